@@ -1,0 +1,15 @@
+import type { Metadata } from "next";
+import { notFound } from "next/navigation";
+import { DieBench } from "@/components/bench/die-bench";
+import { loadPage } from "@/lib/server/page";
+import { getDie } from "@/db/access/dies";
+import { uuidSchema } from "@/lib/validation/common";
+
+export const metadata: Metadata = { title: "Die" };
+
+export default async function DiePage({ params }: { params: Promise<{ dieId: string }> }) {
+  const { dieId } = await params;
+  if (!uuidSchema.safeParse(dieId).success) notFound();
+  const die = await loadPage(({ db, actor }) => getDie(db, actor, dieId));
+  return <DieBench initial={die} />;
+}

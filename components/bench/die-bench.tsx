@@ -1,0 +1,103 @@
+"use client";
+
+import Link from "next/link";
+import { useRouter } from "next/navigation";
+import { useState } from "react";
+import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
+import type { DieDto } from "@/db/access/dies";
+import { apiFetch } from "@/lib/client/api";
+import { can } from "@/lib/auth/permissions";
+import { Wordmark } from "@/components/ui/wordmark";
+import { Button } from "@/components/ui/button";
+import { ConfirmDialog } from "@/components/ui/confirm-dialog";
+import { Dialog } from "@/components/ui/dialog";
+import { ReviewBadge } from "@/components/ui/review-badge";
+import { DieForm } from "@/components/workspace/die-form";
+
+/** The die bench: a top bar with the die's identity, the work area, and a side panel. */
+export function DieBench({ initial }: { initial: DieDto }) {
+  const router = useRouter();
+  const qc = useQueryClient();
+  const [dialog, setDialog] = useState<null | "edit" | "delete">(null);
+  const die = useQuery({ queryKey: ["die", initial.id], queryFn: () => apiFetch<DieDto>(`/api/dies/${initial.id}`), initialData: initial }).data;
+  const editable = can(die.yourRole, "edit");
+  const update = useMutation({
+    mutationFn: (body: unknown) => apiFetch<DieDto>(`/api/dies/${die.id}`, { method: "PATCH", body }),
+    onSuccess: (d) => qc.setQueryData(["die", die.id], d),
+  });
+  return (
+    <>
+      <header className="flex items-center gap-4 border-b border-ink-800 bg-ink-900 px-4 py-2">
+        <Link href="/cases" aria-label="Kerfline home">
+          <Wordmark />
+        </Link>
+        <nav aria-label="Breadcrumb" className="text-sm text-ink-400">
+          <Link href="/cases" className="hover:text-ink-200">
+            Cases
+          </Link>{" "}
+          /{" "}
+          <Link href={`/cases/${die.caseId}`} className="hover:text-ink-200">
+            {die.caseTitle}
+          </Link>{" "}
+          / <span className="text-ink-100">{die.name}</span>
+        </nav>
+        <ReviewBadge status={die.reviewStatus} />
+        <div className="ml-auto flex gap-2">
+          {editable && (
+            <>
+              <Button onClick={() => setDialog("edit")}>Edit die</Button>
+              <Button variant="danger" onClick={() => setDialog("delete")}>
+                Delete die
+              </Button>
+            </>
+          )}
+        </div>
+      </header>
+      <div className="flex min-h-0 flex-1">
+        <section aria-label="Micrograph viewer" className="relative flex flex-1 items-center justify-center bg-ink-950">
+          <p className="text-sm text-ink-400">No micrographs on this die yet.</p>
+        </section>
+        <aside aria-label="Die details" className="w-80 shrink-0 overflow-y-auto border-l border-ink-800 bg-ink-900 p-4">
+          <h1 className="text-base font-semibold">{die.name}</h1>
+          <dl className="mt-3 grid grid-cols-2 gap-3 text-sm">
+            <div>
+              <dt className="text-xs uppercase text-ink-400">Width</dt>
+              <dd>{die.widthUm ? `${die.widthUm} µm` : "not known"}</dd>
+            </div>
+            <div>
+              <dt className="text-xs uppercase text-ink-400">Height</dt>
+              <dd>{die.heightUm ? `${die.heightUm} µm` : "not known"}</dd>
+            </div>
+            <div className="col-span-2">
+              <dt className="text-xs uppercase text-ink-400">Analyst</dt>
+              <dd>{die.analystName ?? "—"}</dd>
+            </div>
+          </dl>
+          {die.notes && <p className="mt-3 whitespace-pre-wrap text-sm text-ink-200">{die.notes}</p>}
+        </aside>
+      </div>
+      <Dialog open={dialog === "edit"} onClose={() => setDialog(null)} title="Edit die">
+        <DieForm
+          initial={die}
+          submitLabel="Save"
+          onCancel={() => setDialog(null)}
+          onSubmit={async (v) => {
+            await update.mutateAsync(v);
+            setDialog(null);
+          }}
+        />
+      </Dialog>
+      <ConfirmDialog
+        open={dialog === "delete"}
+        title="Delete this die?"
+        message={`“${die.name}” with its micrographs and markup will be deleted. This cannot be undone.`}
+        confirmLabel="Delete die"
+        onClose={() => setDialog(null)}
+        onConfirm={async () => {
+          await apiFetch(`/api/dies/${die.id}`, { method: "DELETE" });
+          router.push(`/cases/${die.caseId}`);
+        }}
+      />
+    </>
+  );
+}

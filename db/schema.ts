@@ -1,0 +1,161 @@
+import { sql } from "drizzle-orm";
+import {
+  boolean,
+  doublePrecision,
+  index,
+  integer,
+  jsonb,
+  pgEnum,
+  pgTable,
+  primaryKey,
+  text,
+  timestamp,
+  uniqueIndex,
+  uuid,
+  bigint,
+} from "drizzle-orm/pg-core";
+
+export const roleEnum = pgEnum("role", ["owner", "analyst", "reviewer", "viewer"]);
+export const reviewStatusEnum = pgEnum("review_status", ["draft", "in_review", "approved", "changes_requested"]);
+export const illuminationEnum = pgEnum("illumination", ["bright_field", "dark_field", "dic", "polarized", "ir", "other"]);
+export const micrographStatusEnum = pgEnum("micrograph_status", ["queued", "tiling", "ready", "failed"]);
+
+const createdAt = () => timestamp("created_at", { withTimezone: true }).notNull().defaultNow();
+const updatedAt = () => timestamp("updated_at", { withTimezone: true }).notNull().defaultNow();
+
+export const users = pgTable(
+  "users",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    /** Stored as typed; uniqueness is case-insensitive through the index below. */
+    email: text("email").notNull(),
+    name: text("name").notNull(),
+    passwordHash: text("password_hash"),
+    createdAt: createdAt(),
+  },
+  (t) => [uniqueIndex("users_email_lower_idx").on(sql`lower(${t.email})`)],
+);
+
+export const teams = pgTable("teams", {
+  id: uuid("id").primaryKey().defaultRandom(),
+  name: text("name").notNull(),
+  createdAt: createdAt(),
+});
+
+export const memberships = pgTable(
+  "memberships",
+  {
+    teamId: uuid("team_id").notNull().references(() => teams.id, { onDelete: "cascade" }),
+    userId: uuid("user_id").notNull().references(() => users.id, { onDelete: "cascade" }),
+    role: roleEnum("role").notNull(),
+    createdAt: createdAt(),
+  },
+  (t) => [primaryKey({ columns: [t.teamId, t.userId] }), index("memberships_user_idx").on(t.userId)],
+);
+
+export const cases = pgTable(
+  "cases",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    teamId: uuid("team_id").notNull().references(() => teams.id, { onDelete: "cascade" }),
+    title: text("title").notNull(),
+    partMarking: text("part_marking").notNull().default(""),
+    package: text("package").notNull().default(""),
+    sampleId: text("sample_id").notNull().default(""),
+    notes: text("notes").notNull().default(""),
+    createdBy: uuid("created_by").references(() => users.id, { onDelete: "set null" }),
+    createdAt: createdAt(),
+    updatedAt: updatedAt(),
+  },
+  (t) => [index("cases_team_idx").on(t.teamId)],
+);
+
+export const dies = pgTable(
+  "dies",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    caseId: uuid("case_id").notNull().references(() => cases.id, { onDelete: "cascade" }),
+    name: text("name").notNull(),
+    widthUm: doublePrecision("width_um"),
+    heightUm: doublePrecision("height_um"),
+    notes: text("notes").notNull().default(""),
+    /** The engineer who reads the die; never its approver. */
+    analystId: uuid("analyst_id").references(() => users.id, { onDelete: "set null" }),
+    reviewStatus: reviewStatusEnum("review_status").notNull().default("draft"),
+    createdBy: uuid("created_by").references(() => users.id, { onDelete: "set null" }),
+    createdAt: createdAt(),
+    updatedAt: updatedAt(),
+  },
+  (t) => [index("dies_case_idx").on(t.caseId)],
+);
+
+export const micrographs = pgTable(
+  "micrographs",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    dieId: uuid("die_id").notNull().references(() => dies.id, { onDelete: "cascade" }),
+    label: text("label").notNull(),
+    illumination: illuminationEnum("illumination").notNull().default("bright_field"),
+    objectiveMag: doublePrecision("objective_mag"),
+    numericalAperture: doublePrecision("numerical_aperture"),
+    cameraPixelPitchUm: doublePrecision("camera_pixel_pitch_um"),
+    adapterMag: doublePrecision("adapter_mag"),
+    scaleUmPerPx: doublePrecision("scale_um_per_px"),
+    width: integer("width"),
+    height: integer("height"),
+    /** 2x3 affine image px → die µm, `[[a, b, tx], [c, d, ty]]`; null until in the die frame. */
+    transform: jsonb("transform").$type<[[number, number, number], [number, number, number]] | null>(),
+    status: micrographStatusEnum("status").notNull().default("queued"),
+    progress: integer("progress").notNull().default(0),
+    error: text("error"),
+    /** Server-chosen file name under originals/; never the client's path. */
+    storedName: text("stored_name"),
+    format: text("format"),
+    bytes: bigint("bytes", { mode: "number" }),
+    position: integer("position").notNull().default(0),
+    createdBy: uuid("created_by").references(() => users.id, { onDelete: "set null" }),
+    createdAt: createdAt(),
+    updatedAt: updatedAt(),
+  },
+  (t) => [index("micrographs_die_idx").on(t.dieId)],
+);
+
+export const auditEvents = pgTable(
+  "audit_events",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    teamId: uuid("team_id").references(() => teams.id, { onDelete: "cascade" }),
+    actorId: uuid("actor_id").references(() => users.id, { onDelete: "set null" }),
+    action: text("action").notNull(),
+    entityType: text("entity_type").notNull(),
+    entityId: uuid("entity_id"),
+    /** The die the event concerns, when there is one: the die's activity feed reads by it. */
+    dieId: uuid("die_id"),
+    before: jsonb("before"),
+    after: jsonb("after"),
+    at: timestamp("at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index("audit_entity_idx").on(t.entityType, t.entityId), index("audit_die_idx").on(t.dieId, t.at)],
+);
+
+export const signInAttempts = pgTable(
+  "sign_in_attempts",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    /** Lower-cased e-mail as typed, whether or not an account exists. */
+    email: text("email").notNull(),
+    succeeded: boolean("succeeded").notNull(),
+    at: timestamp("at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index("sign_in_attempts_email_at_idx").on(t.email, t.at)],
+);
+
+export type User = typeof users.$inferSelect;
+export type Team = typeof teams.$inferSelect;
+export type Membership = typeof memberships.$inferSelect;
+export type Role = (typeof roleEnum.enumValues)[number];
+export type CaseRow = typeof cases.$inferSelect;
+export type DieRow = typeof dies.$inferSelect;
+export type ReviewStatus = (typeof reviewStatusEnum.enumValues)[number];
+export type MicrographRow = typeof micrographs.$inferSelect;
+export type AuditEvent = typeof auditEvents.$inferSelect;

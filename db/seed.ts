@@ -1,0 +1,59 @@
+import "server-only";
+import { sql } from "drizzle-orm";
+import { cases, dies, memberships, teams, users } from "./schema";
+import type { Database } from "./client";
+import { hashPassword } from "./access/users";
+import { recordAudit } from "./access/audit";
+
+/** The password of every demo account (documented in the README). */
+export const DEMO_PASSWORD = "fjordlight-demo";
+
+/** The invented demo scenario: team, users, case and die. Names are fiction. */
+export const DEMO = {
+  team: "Fjordlight Failure Lab",
+  otherTeam: "Elsewhere Imaging Group",
+  users: [
+    { email: "owner@fjordlight.test", name: "Demo Owner", role: "owner" },
+    { email: "analyst@fjordlight.test", name: "Demo Analyst", role: "analyst" },
+    { email: "reviewer@fjordlight.test", name: "Demo Reviewer", role: "reviewer" },
+    { email: "viewer@fjordlight.test", name: "Demo Viewer", role: "viewer" },
+  ],
+  outsider: { email: "outsider@elsewhere.test", name: "Demo Outsider" },
+  case: {
+    title: "NV-24R receiver teardown",
+    partMarking: "NV24R-A1 · 2447 · mask NVK-R24-C",
+    package: "QFN-24, 4 × 4 mm, lid removed",
+    sampleId: "FFL-2026-0142",
+    notes:
+      "Fictional 24 GHz radar receiver front end by the invented maker Nordvik Semiconductor, SiGe BiCMOS. " +
+      "Differential layout, mirror-symmetric about a horizontal axis: LNA, mixer, IF buffer. " +
+      "Decapsulated with fuming nitric acid under a fume hood by the wet lab — follow the lab's own safety rules.",
+  },
+  die: { name: "NV-24R die A", widthUm: 2400, heightUm: 1600, notes: "Die about 2.40 mm × 1.60 mm, 22 bond pads." },
+} as const;
+
+/** Seeds the demo scenario when the database has no users yet. Returns whether it seeded. */
+export async function seedDemo(db: Database): Promise<boolean> {
+  const [{ n }] = await db.select({ n: sql<number>`count(*)::int` }).from(users);
+  if (n > 0) return false;
+  const hash = await hashPassword(DEMO_PASSWORD);
+  await db.transaction(async (tx) => {
+    const [team] = await tx.insert(teams).values({ name: DEMO.team }).returning();
+    const [other] = await tx.insert(teams).values({ name: DEMO.otherTeam }).returning();
+    const ids: Record<string, string> = {};
+    for (const u of DEMO.users) {
+      const [row] = await tx.insert(users).values({ email: u.email, name: u.name, passwordHash: hash }).returning();
+      ids[u.role] = row.id;
+      await tx.insert(memberships).values({ teamId: team.id, userId: row.id, role: u.role });
+    }
+    const [outsider] = await tx.insert(users).values({ ...DEMO.outsider, passwordHash: hash }).returning();
+    await tx.insert(memberships).values({ teamId: other.id, userId: outsider.id, role: "owner" });
+    const [c] = await tx.insert(cases).values({ ...DEMO.case, teamId: team.id, createdBy: ids.analyst }).returning();
+    const [d] = await tx
+      .insert(dies)
+      .values({ ...DEMO.die, caseId: c.id, analystId: ids.analyst, createdBy: ids.analyst })
+      .returning();
+    await recordAudit(tx, { userId: ids.analyst }, { teamId: team.id, action: "die.created", entityType: "die", entityId: d.id, dieId: d.id, after: d });
+  });
+  return true;
+}

@@ -1,0 +1,70 @@
+import "server-only";
+import { z } from "zod";
+import path from "node:path";
+import fs from "node:fs";
+import crypto from "node:crypto";
+
+/**
+ * The one module that reads process.env. Everything else asks `env()`.
+ * Validated once, lazily, so that importing it at build time has no side effects.
+ */
+const schema = z.object({
+  KERFLINE_DATA_DIR: z.string().min(1).default("./storage"),
+  PORT: z.coerce.number().int().min(1).max(65535).default(3000),
+  AUTH_SECRET: z.string().min(16).optional(),
+  DATABASE_URL: z
+    .string()
+    .regex(/^postgres(ql)?:\/\//, "DATABASE_URL must be a postgres:// URL")
+    .optional()
+    .or(z.literal("").transform(() => undefined)),
+  SMTP_URL: z.string().optional().or(z.literal("").transform(() => undefined)),
+  KERFLINE_PUBLIC_URL: z.string().url().optional(),
+  KERFLINE_SEED: z.enum(["demo", "none"]).default("demo"),
+  KERFLINE_MAX_UPLOAD_BYTES: z.coerce.number().int().positive().default(8 * 1024 ** 3),
+  KERFLINE_MAX_PIXELS: z.coerce.number().int().positive().default(2_500_000_000),
+});
+
+export type Env = z.infer<typeof schema> & { dataDir: string };
+
+let cached: Env | undefined;
+
+/** Validated configuration; throws a readable error on bad settings. */
+export function env(): Env {
+  if (cached) return cached;
+  const parsed = schema.safeParse(process.env);
+  if (!parsed.success) {
+    const lines = parsed.error.issues.map((i) => `  ${i.path.join(".")}: ${i.message}`);
+    throw new Error(`Kerfline configuration is invalid:\n${lines.join("\n")}`);
+  }
+  cached = { ...parsed.data, dataDir: path.resolve(parsed.data.KERFLINE_DATA_DIR) };
+  return cached;
+}
+
+/** A folder under the data dir, created on first use. */
+export function dataPath(...parts: string[]): string {
+  const p = path.join(/*turbopackIgnore: true*/ env().dataDir, ...parts);
+  fs.mkdirSync(path.dirname(p), { recursive: true });
+  return p;
+}
+
+/**
+ * AUTH_SECRET from the environment, or one generated on first start and kept in the data
+ * dir, so a fresh machine needs no set-up.
+ */
+export function authSecret(): string {
+  const fromEnv = env().AUTH_SECRET;
+  if (fromEnv) return fromEnv;
+  const file = dataPath("auth-secret");
+  try {
+    return fs.readFileSync(file, "utf8").trim();
+  } catch {
+    const secret = crypto.randomBytes(32).toString("base64url");
+    try {
+      fs.writeFileSync(file, secret, { flag: "wx", mode: 0o600 });
+      return secret;
+    } catch {
+      // Another process wrote it first: use theirs.
+      return fs.readFileSync(file, "utf8").trim();
+    }
+  }
+}

@@ -1,21 +1,37 @@
 import { defineConfig } from "vitest/config";
 import path from "node:path";
 
+const alias = {
+  "@": path.resolve(import.meta.dirname),
+  // The marker package throws outside React Server Components; tests are server code.
+  "server-only": path.resolve(import.meta.dirname, "node_modules/server-only/empty.js"),
+};
+
 export default defineConfig({
-  resolve: {
-    alias: {
-      "@": path.resolve(import.meta.dirname),
-      // The marker package throws outside React Server Components; tests are server code.
-      "server-only": path.resolve(import.meta.dirname, "node_modules/server-only/empty.js"),
-    },
-  },
+  resolve: { alias },
   test: {
-    include: ["lib/**/*.test.ts", "db/**/*.test.ts", "tests/integration/**/*.test.ts"],
-    environment: "node",
     testTimeout: 60_000,
-    hookTimeout: 120_000,
+    hookTimeout: 180_000,
     pool: "forks",
-    fileParallelism: true,
     maxWorkers: 2,
+    projects: [
+      {
+        resolve: { alias },
+        test: { name: "unit", include: ["lib/**/*.test.ts", "db/**/*.test.ts"], environment: "node", testTimeout: 60_000 },
+      },
+      {
+        resolve: { alias },
+        test: {
+          name: "integration",
+          include: ["tests/integration/**/*.test.ts"],
+          environment: "node",
+          globalSetup: ["tests/integration/global-setup.ts"],
+          testTimeout: 120_000,
+          hookTimeout: 180_000,
+          // One shared server; files run one after another so they do not race for the CPU.
+          fileParallelism: false,
+        },
+      },
+    ],
   },
 });

@@ -95,6 +95,8 @@ export function DieBench({ initial }: { initial: DieDto }) {
         onClose={() => setDialog(null)}
         onConfirm={async () => {
           await apiFetch(`/api/dies/${die.id}`, { method: "DELETE" });
+          await qc.invalidateQueries({ queryKey: ["dies", die.caseId] });
+          await qc.invalidateQueries({ queryKey: ["cases"] });
           router.push(`/cases/${die.caseId}`);
         }}
       />

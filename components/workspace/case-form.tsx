@@ -28,7 +28,14 @@ export function CaseForm({
   const [serverError, setServerError] = useState<string | null>(null);
   const { register, handleSubmit, formState } = useForm<Values, unknown, Output>({
     resolver: zodResolver(caseInputSchema),
-    defaultValues: { title: "", partMarking: "", package: "", sampleId: "", notes: "", ...initial },
+    // Only the form's own fields: the strict schema refuses anything else (ids, timestamps).
+    defaultValues: {
+      title: initial?.title ?? "",
+      partMarking: initial?.partMarking ?? "",
+      package: initial?.package ?? "",
+      sampleId: initial?.sampleId ?? "",
+      notes: initial?.notes ?? "",
+    },
   });
   const e = formState.errors;
   return (

@@ -29,7 +29,8 @@ export function DieForm({
   const [serverError, setServerError] = useState<string | null>(null);
   const { register, handleSubmit, formState } = useForm<Values, unknown, Output>({
     resolver: zodResolver(dieInputSchema),
-    defaultValues: { name: "", widthUm: null, heightUm: null, notes: "", ...initial },
+    // Only the form's own fields: the strict schema refuses anything else (ids, timestamps).
+    defaultValues: { name: initial?.name ?? "", widthUm: initial?.widthUm ?? null, heightUm: initial?.heightUm ?? null, notes: initial?.notes ?? "" },
   });
   const e = formState.errors;
   return (

@@ -1,0 +1,50 @@
+import type { PadRow, PadTable } from "./types";
+
+export type PadTableCsvOptions = {
+  /** Decimal places for µm values (default 3: 1 nm, far below optical resolution). */
+  readonly decimals?: number;
+};
+
+const COLUMNS: readonly { header: string; value: (r: PadRow) => string | number | null }[] = [
+  { header: "number", value: (r) => r.number },
+  { header: "id", value: (r) => r.id },
+  { header: "label", value: (r) => r.label },
+  { header: "net", value: (r) => r.net },
+  { header: "state", value: (r) => r.state },
+  { header: "side", value: (r) => r.side },
+  { header: "x_um", value: (r) => r.xUm },
+  { header: "y_um", value: (r) => r.yUm },
+  { header: "x_from_centre_um", value: (r) => r.xFromCentreUm },
+  { header: "y_from_centre_um", value: (r) => r.yFromCentreUm },
+  { header: "width_um", value: (r) => r.widthUm },
+  { header: "height_um", value: (r) => r.heightUm },
+  { header: "pitch_um", value: (r) => r.pitchUm },
+];
+
+/** RFC 4180 §2 rules 5–7: quote a field holding a comma, quote, CR or LF; double inner quotes. */
+function field(text: string): string {
+  return /[",\r\n]/.test(text) ? `"${text.replace(/"/g, '""')}"` : text;
+}
+
+/** Fixed decimals with trailing zeros trimmed; −0 written as 0. */
+function formatNumber(value: number, decimals: number): string {
+  const text = value.toFixed(decimals).replace(/(\.\d*?)0+$/, "$1").replace(/\.$/, "");
+  return text === "-0" ? "0" : text;
+}
+
+function cell(value: string | number | null, decimals: number): string {
+  if (value === null) return "";
+  if (typeof value === "number") return Number.isInteger(value) ? String(value) : formatNumber(value, decimals);
+  return field(value);
+}
+
+/**
+ * The pad table as CSV (RFC 4180): a header row, one record per pad in pad-number order,
+ * CRLF line ends, an empty pitch for the last pad on a side.
+ */
+export function padTableCsv(table: PadTable, options: PadTableCsvOptions = {}): string {
+  const decimals = options.decimals ?? 3;
+  const lines = [COLUMNS.map((c) => c.header).join(",")];
+  for (const row of table.rows) lines.push(COLUMNS.map((c) => cell(c.value(row), decimals)).join(","));
+  return lines.map((line) => `${line}\r\n`).join("");
+}

@@ -1,0 +1,23 @@
+/** Histogram of deviations for the report's chart. */
+
+export type HistogramBin = { readonly fromUm: number; readonly toUm: number; readonly count: number };
+
+/**
+ * Splits [min(0, smallest), largest] into binCount equal bins; each bin holds values in
+ * [fromUm, toUm), the last one also its upper edge. Non-finite values are skipped. With no
+ * spread (or no values) the range is one unit wide so the bins stay drawable.
+ */
+export function deviationHistogram(values: readonly number[], binCount: number): HistogramBin[] {
+  if (!Number.isInteger(binCount) || binCount < 1 || binCount > 10_000) {
+    throw new RangeError("binCount must be a whole number from 1 to 10000");
+  }
+  const finite = values.filter(Number.isFinite);
+  // reduce, not Math.min(...values): spreading a long array overflows the call stack.
+  const lo = finite.reduce((m, v) => Math.min(m, v), 0);
+  const top = finite.reduce((m, v) => Math.max(m, v), lo);
+  const hi = top > lo ? top : lo + 1;
+  const width = (hi - lo) / binCount;
+  const counts = new Array<number>(binCount).fill(0);
+  for (const v of finite) counts[Math.min(binCount - 1, Math.floor((v - lo) / width))]++;
+  return counts.map((count, i) => ({ fromUm: lo + i * width, toUm: i === binCount - 1 ? hi : lo + (i + 1) * width, count }));
+}

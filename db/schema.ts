@@ -113,11 +113,44 @@ export const micrographs = pgTable(
     format: text("format"),
     bytes: bigint("bytes", { mode: "number" }),
     position: integer("position").notNull().default(0),
+    /** The micrograph that defines the die frame (the first of a die, until changed). */
+    isReference: boolean("is_reference").notNull().default(false),
+    /** Two-point calibration, when the scale came from one: image px and the known length. */
+    calibration: jsonb("calibration").$type<{ p1: [number, number]; p2: [number, number]; lengthUm: number } | null>(),
+    /** The client's file name, sanitised, for display only. */
+    originalName: text("original_name"),
+    previewWidth: integer("preview_width"),
+    previewHeight: integer("preview_height"),
     createdBy: uuid("created_by").references(() => users.id, { onDelete: "set null" }),
     createdAt: createdAt(),
     updatedAt: updatedAt(),
   },
   (t) => [index("micrographs_die_idx").on(t.dieId)],
+);
+
+export const jobStatusEnum = pgEnum("job_status", ["queued", "running", "done", "failed"]);
+
+/**
+ * Background work (tiling now, exports later). Workers claim a job with
+ * `FOR UPDATE SKIP LOCKED` and keep a heartbeat, so several worker processes can share the
+ * table and a job whose worker died is picked up again.
+ */
+export const jobs = pgTable(
+  "jobs",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    kind: text("kind").notNull(),
+    /** The row the job works on (a micrograph for tiling). */
+    subjectId: uuid("subject_id").notNull(),
+    status: jobStatusEnum("status").notNull().default("queued"),
+    attempts: integer("attempts").notNull().default(0),
+    lockedBy: text("locked_by"),
+    heartbeatAt: timestamp("heartbeat_at", { withTimezone: true }),
+    error: text("error"),
+    createdAt: createdAt(),
+    updatedAt: updatedAt(),
+  },
+  (t) => [index("jobs_status_created_idx").on(t.status, t.createdAt), index("jobs_subject_idx").on(t.subjectId)],
 );
 
 export const auditEvents = pgTable(
@@ -159,3 +192,4 @@ export type DieRow = typeof dies.$inferSelect;
 export type ReviewStatus = (typeof reviewStatusEnum.enumValues)[number];
 export type MicrographRow = typeof micrographs.$inferSelect;
 export type AuditEvent = typeof auditEvents.$inferSelect;
+export type JobRow = typeof jobs.$inferSelect;

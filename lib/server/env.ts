@@ -19,7 +19,8 @@ const schema = z.object({
     .or(z.literal("").transform(() => undefined)),
   SMTP_URL: z.string().optional().or(z.literal("").transform(() => undefined)),
   KERFLINE_PUBLIC_URL: z.string().url().optional(),
-  KERFLINE_SEED: z.enum(["demo", "none"]).default("demo"),
+  /** demo: records and rendered micrographs; demo-records: records only (fast test servers); none. */
+  KERFLINE_SEED: z.enum(["demo", "demo-records", "none"]).default("demo"),
   KERFLINE_MAX_UPLOAD_BYTES: z.coerce.number().int().positive().default(8 * 1024 ** 3),
   KERFLINE_MAX_PIXELS: z.coerce.number().int().positive().default(2_500_000_000),
 });

@@ -2,6 +2,8 @@ import "server-only";
 import { openDatabase } from "@/db/client";
 import { DataDirLockedError } from "@/db/data-dir-lock";
 import { env } from "./env";
+import { requeueOrphanedJobs } from "./jobs/queue";
+import { startTilingWorkers } from "./jobs/tiling";
 
 /**
  * Runs once per server process before the first request: opens the database (taking the data
@@ -13,9 +15,22 @@ export async function startServer(): Promise<void> {
   try {
     g.__kerflineDb ??= openDatabase();
     const opened = await g.__kerflineDb;
-    if (env().KERFLINE_SEED === "demo") {
+    if (opened.kind === "pglite") {
+      const requeued = await requeueOrphanedJobs(opened.db);
+      if (requeued) console.log(`[kerfline] picked up ${requeued} job(s) left running by an earlier stop`);
+    }
+    startTilingWorkers(opened.db);
+    const seed = env().KERFLINE_SEED;
+    if (seed !== "none") {
       const { seedDemo } = await import("@/db/seed");
-      if (await seedDemo(opened.db)) console.log("[kerfline] seeded the demo scenario");
+      if (await seedDemo(opened.db)) {
+        console.log("[kerfline] seeded the demo scenario");
+        if (seed === "demo") {
+          const { seedDemoMicrographs } = await import("./seed-micrographs");
+          await seedDemoMicrographs(opened.db);
+          console.log("[kerfline] rendered and uploaded the demo micrographs (tiling in the background)");
+        }
+      }
     }
     console.log(`[kerfline] database ready (${opened.kind}), data dir ${env().dataDir}`);
   } catch (e) {

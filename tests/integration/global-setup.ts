@@ -9,6 +9,7 @@ declare module "vitest" {
   export interface ProvidedContext {
     baseUrl: string;
     databaseKind: "pglite" | "postgres";
+    dataDir: string;
   }
 }
 
@@ -17,8 +18,9 @@ let server: RunningServer | undefined;
 export async function setup(project: TestProject) {
   buildIfStale();
   const databaseUrl = process.env.KERFLINE_TEST_DATABASE_URL;
-  server = await startServer({ env: databaseUrl ? { DATABASE_URL: databaseUrl } : {} });
+  server = await startServer({ env: { KERFLINE_SEED: "demo-records", ...(databaseUrl ? { DATABASE_URL: databaseUrl } : {}) } });
   project.provide("baseUrl", server.url);
+  project.provide("dataDir", server.dataDir);
   project.provide("databaseKind", databaseUrl ? "postgres" : "pglite");
 }
 

@@ -6,13 +6,13 @@ import { demoClients } from "../support/client";
 describe.skipIf(inject("databaseKind") === "postgres")("restart and data-dir lock (PGlite)", () => {
   it("keeps data across a restart, and a second server on the same data dir refuses to start", async () => {
     const dataDir = tempDataDir();
-    const first = await startServer({ dataDir });
+    const first = await startServer({ dataDir, env: { KERFLINE_SEED: "demo-records" } });
     const { owner } = await demoClients(first.url);
     const teamId = (await owner.get<{ teams: { id: string }[] }>("/api/me")).body.teams[0].id;
     const created = await owner.request<{ id: string }>("POST", `/api/teams/${teamId}/cases`, { title: "Survives a restart" });
     expect(created.status).toBe(201);
 
-    const second = await startServer({ dataDir }).then(
+    const second = await startServer({ dataDir, env: { KERFLINE_SEED: "demo-records" } }).then(
       () => null,
       (e: Error & { exitCode?: number; logs?: string }) => e,
     );
@@ -22,7 +22,7 @@ describe.skipIf(inject("databaseKind") === "postgres")("restart and data-dir loc
     expect((await owner.get(`/api/cases/${created.body.id}`)).status).toBe(200);
 
     await first.stop();
-    const again = await startServer({ dataDir });
+    const again = await startServer({ dataDir, env: { KERFLINE_SEED: "demo-records" } });
     try {
       const { owner: owner2 } = await demoClients(again.url);
       const res = await owner2.get<{ title: string }>(`/api/cases/${created.body.id}`);
@@ -36,9 +36,9 @@ describe.skipIf(inject("databaseKind") === "postgres")("restart and data-dir loc
 
   it("starts again at once after the server was killed (the stale lock is taken over)", async () => {
     const dataDir = tempDataDir();
-    const first = await startServer({ dataDir });
+    const first = await startServer({ dataDir, env: { KERFLINE_SEED: "demo-records" } });
     await first.kill();
-    const again = await startServer({ dataDir });
+    const again = await startServer({ dataDir, env: { KERFLINE_SEED: "demo-records" } });
     expect((await fetch(`${again.url}/api/health`)).status).toBe(200);
     await again.stop();
   });

@@ -5,7 +5,7 @@ import { ApiClient, DEMO_EMAILS } from "../support/client";
 // A server of its own: locking a demo account must not disturb the other suites.
 let server: RunningServer;
 beforeAll(async () => {
-  server = await startServer();
+  server = await startServer({ env: { KERFLINE_SEED: "demo-records" } });
 });
 afterAll(() => server?.stop());
 

@@ -9,7 +9,7 @@ let teamId: string;
 let ids: Record<string, string>;
 
 beforeAll(async () => {
-  server = await startServer();
+  server = await startServer({ env: { KERFLINE_SEED: "demo-records" } });
   const clients = await demoClients(server.url);
   owner = clients.owner;
   teamId = (await owner.get<{ teams: { id: string }[] }>("/api/me")).body.teams[0].id;

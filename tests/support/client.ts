@@ -66,6 +66,19 @@ export class ApiClient {
     return { status: res.status, body: parsed as T, headers: res.headers };
   }
 
+  /** A multipart upload (FormData) with the session cookie. */
+  async upload<T = unknown>(path: string, form: FormData): Promise<ApiResponse<T>> {
+    const res = await fetch(`${this.baseUrl}${path}`, { method: "POST", headers: { cookie: this.cookieHeader() }, body: form });
+    const text = await res.text();
+    let parsed: unknown = text;
+    try {
+      parsed = JSON.parse(text);
+    } catch {
+      /* not JSON */
+    }
+    return { status: res.status, body: parsed as T, headers: res.headers };
+  }
+
   get<T = unknown>(path: string) {
     return this.request<T>("GET", path);
   }

@@ -1,0 +1,22 @@
+import { z } from "zod";
+import { apiRoute } from "@/lib/server/route";
+import { listMicrographs } from "@/db/access/micrographs";
+import { loadDie } from "@/db/access/dies";
+import { uuidSchema } from "@/lib/validation/common";
+import { receiveUpload } from "@/lib/server/upload";
+import { ingestMicrograph } from "@/lib/server/ingest";
+import { env } from "@/lib/server/env";
+import { incomingDir } from "@/lib/server/storage-paths";
+
+export const runtime = "nodejs";
+const params = z.object({ dieId: uuidSchema });
+
+export const GET = apiRoute({ params }, ({ db, actor, params }) => listMicrographs(db, actor, params.dieId));
+
+/** Upload: authorize before reading a byte, stream to disk, then ingest. Answers 202. */
+export const POST = apiRoute({ params }, async ({ db, actor, params, req }) => {
+  await loadDie(db, actor, params.dieId, "edit");
+  const { file, fields } = await receiveUpload(req, { maxBytes: env().KERFLINE_MAX_UPLOAD_BYTES, incomingDir: incomingDir() });
+  const micrograph = await ingestMicrograph(db, actor, params.dieId, file, fields);
+  return Response.json(micrograph, { status: 202 });
+});

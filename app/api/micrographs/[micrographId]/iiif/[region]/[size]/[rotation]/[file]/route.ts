@@ -1,0 +1,31 @@
+import path from "node:path";
+import { z } from "zod";
+import { apiRoute } from "@/lib/server/route";
+import { loadMicrograph } from "@/db/access/micrographs";
+import { uuidSchema } from "@/lib/validation/common";
+import { micrographPaths } from "@/lib/server/storage-paths";
+import { parseTileRequest, resolveTilePath } from "@/lib/tiles/iiif";
+import { readPyramidDescription } from "@/lib/tiles/pyramid";
+import { AppError, BadRequestError, NotFoundError } from "@/lib/server/errors";
+import { serveImmutable } from "@/lib/server/serve-file";
+
+// Every segment is validated: only canonical IIIF numbers reach the file system.
+const params = z.object({
+  micrographId: uuidSchema,
+  region: z.string().max(64),
+  size: z.string().max(32),
+  rotation: z.literal("0", "only rotation 0 is served"),
+  file: z.literal("default.jpg", "only default.jpg is served"),
+});
+
+/** One tile of a micrograph's level-0 IIIF pyramid, for members of its team. */
+export const GET = apiRoute({ params }, async ({ db, actor, params, req }) => {
+  const request = parseTileRequest(params.region, params.size);
+  if (!request) throw new BadRequestError("Not a canonical IIIF tile request.");
+  const { row } = await loadMicrograph(db, actor, params.micrographId, "read");
+  if (row.status !== "ready") throw new AppError(409, "The deep-zoom pyramid is not ready yet.");
+  const dir = micrographPaths(row.dieId, row.id).pyramid;
+  const rel = resolveTilePath(request, await readPyramidDescription(dir));
+  if (!rel) throw new NotFoundError("That tile");
+  return serveImmutable(req, path.join(dir, rel), `${row.id}/${params.region}/${params.size}`, "image/jpeg");
+});

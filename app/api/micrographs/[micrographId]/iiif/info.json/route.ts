@@ -1,0 +1,24 @@
+import { z } from "zod";
+import { apiRoute } from "@/lib/server/route";
+import { loadMicrograph } from "@/db/access/micrographs";
+import { uuidSchema } from "@/lib/validation/common";
+import { micrographPaths } from "@/lib/server/storage-paths";
+import { buildInfoJson } from "@/lib/tiles/iiif";
+import { readPyramidDescription } from "@/lib/tiles/pyramid";
+import { AppError } from "@/lib/server/errors";
+import { publicOrigin } from "@/lib/server/origin";
+
+const params = z.object({ micrographId: uuidSchema });
+
+/** The IIIF Image API 3.0 description of a micrograph's pyramid; `id` is the service's absolute URL. */
+export const GET = apiRoute({ params }, async ({ db, actor, params, req }) => {
+  const { row } = await loadMicrograph(db, actor, params.micrographId, "read");
+  if (row.status !== "ready") {
+    throw new AppError(409, `The deep-zoom pyramid is not ready yet (${row.status}, ${row.progress} %).`, { status: row.status, progress: row.progress });
+  }
+  const pyramid = await readPyramidDescription(micrographPaths(row.dieId, row.id).pyramid);
+  const info = buildInfoJson({ id: `${publicOrigin(req)}/api/micrographs/${row.id}/iiif`, ...pyramid });
+  return Response.json(info, {
+    headers: { "content-type": 'application/ld+json;profile="http://iiif.io/api/image/3/context.json"', "cache-control": "private, no-cache" },
+  });
+});

@@ -1,0 +1,3 @@
+import { derivedImageRoute } from "@/lib/server/derived-image-route";
+
+export const GET = derivedImageRoute("preview");

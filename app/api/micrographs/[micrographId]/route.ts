@@ -1,0 +1,23 @@
+import { z } from "zod";
+import fs from "node:fs/promises";
+import { apiRoute, noContent } from "@/lib/server/route";
+import { deleteMicrograph, getMicrograph, updateMicrograph } from "@/db/access/micrographs";
+import { uuidSchema } from "@/lib/validation/common";
+import { micrographPatchSchema } from "@/lib/validation/micrographs";
+import { micrographPaths, type EXTENSION } from "@/lib/server/storage-paths";
+
+const params = z.object({ micrographId: uuidSchema });
+
+export const GET = apiRoute({ params }, ({ db, actor, params }) => getMicrograph(db, actor, params.micrographId));
+
+export const PATCH = apiRoute({ params, body: micrographPatchSchema }, ({ db, actor, params, body }) =>
+  updateMicrograph(db, actor, params.micrographId, body),
+);
+
+/** Deletes the micrograph and then its files: original, pyramid, preview, thumbnail. */
+export const DELETE = apiRoute({ params }, async ({ db, actor, params }) => {
+  const row = await deleteMicrograph(db, actor, params.micrographId);
+  const p = micrographPaths(row.dieId, row.id, (row.format ?? undefined) as keyof typeof EXTENSION | undefined);
+  await Promise.all([p.original, p.pyramid, p.preview, p.thumbnail].filter(Boolean).map((f) => fs.rm(f!, { recursive: true, force: true })));
+  return noContent();
+});

@@ -1,0 +1,65 @@
+import fs from "node:fs";
+import path from "node:path";
+import sharp from "sharp";
+import { describe, expect, inject, it } from "vitest";
+import { startServer, tempDataDir } from "../support/server";
+import { demoClients } from "../support/client";
+import { uploadForm } from "../support/images";
+import { waitForStatus } from "../support/micrographs";
+import { expectedTilePaths } from "@/lib/tiles/iiif";
+
+/** A 20000 × 12000 px JPEG with structure, big enough that tiling takes seconds. */
+async function bigJpeg(): Promise<Buffer> {
+  const tile = await sharp({ create: { width: 400, height: 400, channels: 3, background: { r: 120, g: 140, b: 100 } } })
+    .composite([{ input: { create: { width: 200, height: 120, channels: 3, background: { r: 220, g: 200, b: 120 } } }, left: 60, top: 90 }])
+    .png()
+    .toBuffer();
+  return sharp({ create: { width: 20000, height: 12000, channels: 3, background: { r: 40, g: 50, b: 45 } }, limitInputPixels: false })
+    .composite([{ input: tile, tile: true, blend: "over" }])
+    .jpeg({ quality: 80 })
+    .toBuffer();
+}
+
+describe.skipIf(inject("databaseKind") === "postgres")("tiling survives a crash (SIGKILL)", () => {
+  it("never serves a partial pyramid, and completes the job after a restart", async () => {
+    const dataDir = tempDataDir();
+    const image = await bigJpeg();
+    let server = await startServer({ dataDir, env: { KERFLINE_SEED: "demo-records" } });
+    try {
+      let { analyst } = await demoClients(server.url);
+      const teamId = (await analyst.get<{ teams: { id: string }[] }>("/api/me")).body.teams[0].id;
+      const c = await analyst.request<{ id: string }>("POST", `/api/teams/${teamId}/cases`, { title: "Crash case" });
+      const d = await analyst.request<{ id: string }>("POST", `/api/cases/${c.body.id}/dies`, { name: "crash die" });
+      const up = await analyst.upload<{ id: string }>(`/api/dies/${d.body.id}/micrographs`, uploadForm(image, "big.jpg", { scaleUmPerPx: "0.5" }));
+      expect(up.status).toBe(202);
+      const id = up.body.id;
+
+      // Wait until the pyramid is under way, check it is not served, then kill the server.
+      const deadline = Date.now() + 60_000;
+      for (;;) {
+        const m = (await analyst.get<{ status: string; progress: number }>(`/api/micrographs/${id}`)).body;
+        if (m.status === "tiling" && m.progress >= 3) break;
+        if (m.status === "ready") throw new Error("tiling finished before the kill: make the test image larger");
+        if (Date.now() > deadline) throw new Error(`never saw tiling under way: ${JSON.stringify(m)}`);
+        await new Promise((r) => setTimeout(r, 50));
+      }
+      expect((await analyst.get(`/api/micrographs/${id}/iiif/info.json`)).status).toBe(409);
+      expect((await analyst.get(`/api/micrographs/${id}/iiif/0,0,512,512/512,512/0/default.jpg`)).status).toBe(409);
+      await server.kill();
+      const tilesDir = path.join(dataDir, "tiles", d.body.id);
+      expect(fs.existsSync(path.join(tilesDir, id))).toBe(false);
+
+      server = await startServer({ dataDir, env: { KERFLINE_SEED: "demo-records" } });
+      ({ analyst } = await demoClients(server.url));
+      const ready = await waitForStatus(analyst, id, "ready", 120_000);
+      expect(ready.progress).toBe(100);
+      expect(server.logs()).toMatch(/picked up 1 job/);
+      // Every tile of the IIIF 3.0 algorithm is there (sharp's whole-image spelling "full").
+      for (const p of expectedTilePaths(20000, 12000, 512)) expect(fs.existsSync(path.join(tilesDir, id, p)), p).toBe(true);
+      expect(fs.readdirSync(tilesDir).filter((n) => n.includes("partial"))).toEqual([]);
+      expect((await analyst.get(`/api/micrographs/${id}/iiif/info.json`)).status).toBe(200);
+    } finally {
+      await server.stop();
+    }
+  }, 240_000);
+});

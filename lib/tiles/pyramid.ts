@@ -123,7 +123,8 @@ export async function buildPyramid(
   await mkdir(work, { recursive: true });
   const stop = startProgress(built, expectedRegionCount(width, height, tileSize), report, pollMs);
   try {
-    await sharpInput(inputPath, pixelCap).jpeg({ quality }).tile({ layout: "iiif3", size: tileSize, overlap: 0 }).toFile(built);
+    // Huffman optimisation off, as libvips' own dzsave default: same image, less time per tile.
+    await sharpInput(inputPath, pixelCap).jpeg({ quality, optimiseCoding: false }).tile({ layout: "iiif3", size: tileSize, overlap: 0 }).toFile(built);
     await stop();
     await verifyLayout(built, description);
     await writeFile(path.join(built, PYRAMID_JSON), JSON.stringify(description));

@@ -1,0 +1,8 @@
+// `npm run bench`: figures for the speed and memory targets in the issues. Not a test: it
+// prints measurements and ratios against reference runs made in the same script.
+import { benchTiling } from "./bench/tiling";
+import { benchUpload } from "./bench/upload";
+
+const only = process.argv[2];
+if (!only || only === "tiling") await benchTiling();
+if (!only || only === "upload") await benchUpload();

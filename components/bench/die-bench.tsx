@@ -13,12 +13,22 @@ import { ConfirmDialog } from "@/components/ui/confirm-dialog";
 import { Dialog } from "@/components/ui/dialog";
 import { ReviewBadge } from "@/components/ui/review-badge";
 import { DieForm } from "@/components/workspace/die-form";
+import { MicrographList } from "@/components/micrographs/micrograph-list";
+import { UploadMicrograph } from "@/components/micrographs/upload-micrograph";
+import { DieDetails } from "./die-details";
+import { useMicrographs } from "./use-micrographs";
+import { ViewerPane } from "./viewer-pane";
 
 /** The die bench: a top bar with the die's identity, the work area, and a side panel. */
 export function DieBench({ initial }: { initial: DieDto }) {
   const router = useRouter();
   const qc = useQueryClient();
-  const [dialog, setDialog] = useState<null | "edit" | "delete">(null);
+  const [dialog, setDialog] = useState<null | "edit" | "delete" | "upload">(null);
+  const [selectedId, setSelectedId] = useState<string | null>(null);
+  const micrographs = useMicrographs(initial.id);
+  const list = micrographs.data ?? [];
+  // Show the chosen micrograph, else the reference one, else the first.
+  const shown = list.find((m) => m.id === selectedId) ?? list.find((m) => m.isReference) ?? list[0] ?? null;
   const die = useQuery({ queryKey: ["die", initial.id], queryFn: () => apiFetch<DieDto>(`/api/dies/${initial.id}`), initialData: initial }).data;
   const editable = can(die.yourRole, "edit");
   const update = useMutation({
@@ -54,28 +64,35 @@ export function DieBench({ initial }: { initial: DieDto }) {
         </div>
       </header>
       <div className="flex min-h-0 flex-1">
-        <section aria-label="Micrograph viewer" className="relative flex flex-1 items-center justify-center bg-ink-950">
-          <p className="text-sm text-ink-400">No micrographs on this die yet.</p>
+        <section aria-label="Work area" className="relative min-w-0 flex-1 bg-ink-950">
+          <ViewerPane micrograph={shown} canEdit={editable} />
         </section>
-        <aside aria-label="Die details" className="w-80 shrink-0 overflow-y-auto border-l border-ink-800 bg-ink-900 p-4">
-          <h1 className="text-base font-semibold">{die.name}</h1>
-          <dl className="mt-3 grid grid-cols-2 gap-3 text-sm">
-            <div>
-              <dt className="text-xs uppercase text-ink-400">Width</dt>
-              <dd>{die.widthUm ? `${die.widthUm} µm` : "not known"}</dd>
+        <aside aria-label="Die panel" className="flex w-80 shrink-0 flex-col gap-5 overflow-y-auto border-l border-ink-800 bg-ink-900 p-4">
+          <DieDetails die={die} />
+          <section aria-label="Micrographs" className="flex flex-col gap-2">
+            <div className="flex items-center justify-between">
+              <h2 className="text-sm font-semibold">Micrographs</h2>
+              {editable && (
+                <Button variant="primary" onClick={() => setDialog("upload")}>
+                  Upload micrograph
+                </Button>
+              )}
             </div>
-            <div>
-              <dt className="text-xs uppercase text-ink-400">Height</dt>
-              <dd>{die.heightUm ? `${die.heightUm} µm` : "not known"}</dd>
-            </div>
-            <div className="col-span-2">
-              <dt className="text-xs uppercase text-ink-400">Analyst</dt>
-              <dd>{die.analystName ?? "—"}</dd>
-            </div>
-          </dl>
-          {die.notes && <p className="mt-3 whitespace-pre-wrap text-sm text-ink-200">{die.notes}</p>}
+            {micrographs.isPending ? <p className="text-sm text-ink-400">Loading…</p> : <MicrographList items={micrographs.data ?? []} selectedId={shown?.id ?? null} onSelect={setSelectedId} />}
+          </section>
         </aside>
       </div>
+      <Dialog open={dialog === "upload"} onClose={() => setDialog(null)} title="Upload a micrograph">
+        <UploadMicrograph
+          dieId={die.id}
+          onCancel={() => setDialog(null)}
+          onUploaded={async (m) => {
+            await qc.invalidateQueries({ queryKey: ["micrographs", die.id] });
+            setSelectedId(m.id);
+            setDialog(null);
+          }}
+        />
+      </Dialog>
       <Dialog open={dialog === "edit"} onClose={() => setDialog(null)} title="Edit die">
         <DieForm
           initial={die}

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { isUnderSampled, rayleighResolutionUm, scaleFromCalibration, scaleFromCapture } from "./scale";
+import { scaleFromCalibration, scaleFromCapture } from "./scale";
 
 describe("scale from capture data", () => {
   it("gives 0.25 µm/px for 5 µm camera pixels at 20x", () => {
@@ -22,17 +22,5 @@ describe("two-point calibration", () => {
   it("refuses coincident points and non-positive lengths", () => {
     expect(() => scaleFromCalibration([1, 1], [1, 1], 10)).toThrow(/coincide/);
     expect(() => scaleFromCalibration([0, 0], [1, 1], 0)).toThrow(/positive/);
-  });
-});
-
-describe("optical resolution", () => {
-  it("gives 235 nm Rayleigh resolution at NA 1.3 and 500 nm", () => {
-    // REFERENCES.md: Rayleigh d = 0.61·λ/NA; NA 1.3 at 500 nm gives 235 nm [pub].
-    expect(rayleighResolutionUm(1.3, 500)).toBeCloseTo(0.2346, 4);
-  });
-  it("flags pixels larger than half the resolution as under-sampled (Nyquist)", () => {
-    // 10x/0.30 (typical objective, common practice) at 550 nm: d = 1.118 µm, so the limit is 0.559 µm/px.
-    expect(isUnderSampled(0.5, 0.3)).toBe(false);
-    expect(isUnderSampled(0.6, 0.3)).toBe(true);
   });
 });

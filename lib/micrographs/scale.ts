@@ -17,16 +17,3 @@ export function scaleFromCalibration(p1: readonly [number, number], p2: readonly
   if (!(lengthUm > 0) || !Number.isFinite(lengthUm)) throw new RangeError("the known length must be positive");
   return lengthUm / px;
 }
-
-/** Rayleigh resolution 0.61·λ/NA in µm (λ in nm). */
-export function rayleighResolutionUm(numericalAperture: number, wavelengthNm = 550): number {
-  return (0.61 * wavelengthNm) / 1000 / numericalAperture;
-}
-
-/**
- * Sampling is adequate when the pixel is at most half the optical resolution (Nyquist);
- * a coarser pixel means measurements finer than the pixel are not meaningful.
- */
-export function isUnderSampled(umPerPx: number, numericalAperture: number, wavelengthNm = 550): boolean {
-  return umPerPx > rayleighResolutionUm(numericalAperture, wavelengthNm) / 2;
-}

@@ -1,0 +1,14 @@
+"use client";
+
+import { useQuery } from "@tanstack/react-query";
+import type { MicrographDto } from "@/db/access/micrographs";
+import { apiFetch } from "@/lib/client/api";
+
+/** A die's micrographs, polled every second while any of them is still being tiled. */
+export function useMicrographs(dieId: string) {
+  return useQuery({
+    queryKey: ["micrographs", dieId],
+    queryFn: () => apiFetch<MicrographDto[]>(`/api/dies/${dieId}/micrographs`),
+    refetchInterval: (q) => (q.state.data?.some((m) => m.status === "queued" || m.status === "tiling") ? 1000 : false),
+  });
+}

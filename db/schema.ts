@@ -14,6 +14,8 @@ import {
   uuid,
   bigint,
 } from "drizzle-orm/pg-core";
+import { MARKUP_KINDS } from "../lib/markup/types";
+import type { Geometry } from "../lib/geometry/types";
 
 export const roleEnum = pgEnum("role", ["owner", "analyst", "reviewer", "viewer"]);
 export const reviewStatusEnum = pgEnum("review_status", ["draft", "in_review", "approved", "changes_requested"]);
@@ -171,6 +173,33 @@ export const auditEvents = pgTable(
   (t) => [index("audit_entity_idx").on(t.entityType, t.entityId), index("audit_die_idx").on(t.dieId, t.at)],
 );
 
+export const markupKindEnum = pgEnum("markup_kind", MARKUP_KINDS);
+
+/**
+ * Markup of a die: GeoJSON-shaped geometry in the die frame (µm, origin lower-left, y up),
+ * never in one micrograph's pixels. `version` starts at 1 and grows by one per change, so a
+ * writer holding a stale copy is refused (optimistic concurrency) instead of overwriting.
+ */
+export const markup = pgTable(
+  "markup",
+  {
+    /** Chosen by the client when it re-creates a shape (undo of a delete keeps the same id). */
+    id: uuid("id").primaryKey().defaultRandom(),
+    dieId: uuid("die_id").notNull().references(() => dies.id, { onDelete: "cascade" }),
+    kind: markupKindEnum("kind").notNull(),
+    geometry: jsonb("geometry").$type<Geometry>().notNull(),
+    properties: jsonb("properties").$type<Record<string, unknown>>().notNull().default({}),
+    version: integer("version").notNull().default(1),
+    /** Insertion order: shapes of one batch share created_at, and lists keep the order they came in. */
+    seq: bigint("seq", { mode: "number" }).generatedAlwaysAsIdentity(),
+    createdBy: uuid("created_by").references(() => users.id, { onDelete: "set null" }),
+    updatedBy: uuid("updated_by").references(() => users.id, { onDelete: "set null" }),
+    createdAt: createdAt(),
+    updatedAt: updatedAt(),
+  },
+  (t) => [index("markup_die_seq_idx").on(t.dieId, t.seq)],
+);
+
 export const signInAttempts = pgTable(
   "sign_in_attempts",
   {
@@ -193,3 +222,4 @@ export type ReviewStatus = (typeof reviewStatusEnum.enumValues)[number];
 export type MicrographRow = typeof micrographs.$inferSelect;
 export type AuditEvent = typeof auditEvents.$inferSelect;
 export type JobRow = typeof jobs.$inferSelect;
+export type MarkupRow = typeof markup.$inferSelect;

@@ -1,0 +1,21 @@
+import { z } from "zod";
+import { apiRoute } from "@/lib/server/route";
+import { listMarkup, markupAuthors } from "@/db/access/markup";
+import { uuidSchema } from "@/lib/validation/common";
+import { markupTableCsv, markupTableRows } from "@/lib/markup/markup-table";
+import { attachmentDisposition } from "@/lib/markup/attachment";
+
+const params = z.object({ dieId: uuidSchema });
+
+/** Every shape of the die as an RFC 4180 CSV download: the markup table's rows. */
+export const GET = apiRoute({ params }, async ({ db, actor, params }) => {
+  const { die, shapes } = await listMarkup(db, actor, params.dieId, "export");
+  const rows = markupTableRows(shapes, await markupAuthors(db, shapes));
+  return new Response(markupTableCsv(rows), {
+    headers: {
+      "Content-Type": "text/csv; charset=utf-8",
+      "Content-Disposition": attachmentDisposition(`${die.name} markup.csv`),
+      "Cache-Control": "private, no-store",
+    },
+  });
+});

@@ -1,0 +1,29 @@
+import { z } from "zod";
+import { apiRoute } from "@/lib/server/route";
+import { BadRequestError, ConflictError } from "@/lib/server/errors";
+import { listMarkup } from "@/db/access/markup";
+import { uuidSchema } from "@/lib/validation/common";
+import { padTableQuerySchema } from "@/lib/validation/markup";
+import { padTableFromMarkup } from "@/lib/markup/pad-table-from-markup";
+import { attachmentDisposition } from "@/lib/markup/attachment";
+import { padTableCsv } from "@/lib/pads";
+
+const params = z.object({ dieId: uuidSchema });
+
+/**
+ * The pad table as an RFC 4180 CSV download, the same rows as GET …/pads. Cells are written
+ * as they are: a label starting with "=" stays text to a CSV parser, but a spreadsheet may read
+ * it as a formula (guarding it with a leading apostrophe would change the data the table round-trips).
+ */
+export const GET = apiRoute({ params, query: padTableQuerySchema }, async ({ db, actor, params, query }) => {
+  const { die, shapes } = await listMarkup(db, actor, params.dieId, "export");
+  const r = padTableFromMarkup(shapes, die, { padOneId: query.padOne });
+  if (!r.ok) throw r.reason === "bad_request" ? new BadRequestError(r.message) : new ConflictError(r.message);
+  return new Response(padTableCsv(r.table), {
+    headers: {
+      "Content-Type": "text/csv; charset=utf-8",
+      "Content-Disposition": attachmentDisposition(`${die.name} pad table.csv`),
+      "Cache-Control": "private, no-store",
+    },
+  });
+});

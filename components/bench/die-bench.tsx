@@ -18,9 +18,20 @@ import { UploadMicrograph } from "@/components/micrographs/upload-micrograph";
 import { DieDetails } from "./die-details";
 import { useMicrographs } from "./use-micrographs";
 import { ViewerPane } from "./viewer-pane";
+import { SideTabs } from "./side-tabs";
+import type { ViewerApi } from "@/components/viewer";
+import { MarkupOverlay } from "@/components/annotate/markup-overlay";
+import { ToolBar } from "@/components/annotate/tool-bar";
+import { Inspector } from "@/components/annotate/inspector";
+import { Legend } from "@/components/annotate/legend";
+import { HelpSheet } from "@/components/annotate/help-sheet";
+import { PadTablePanel } from "@/components/annotate/pad-table-panel";
+import { MarkupTablePanel } from "@/components/annotate/markup-table-panel";
+import { useEditorState, useMarkupEditor } from "@/components/annotate/use-markup-editor";
+import { useMarkupWorkspace } from "@/components/annotate/markup-workspace";
 
 /** The die bench: a top bar with the die's identity, the work area, and a side panel. */
-export function DieBench({ initial }: { initial: DieDto }) {
+export function DieBench({ initial, userId }: { initial: DieDto; userId: string }) {
   const router = useRouter();
   const qc = useQueryClient();
   const [dialog, setDialog] = useState<null | "edit" | "delete" | "upload">(null);
@@ -31,6 +42,10 @@ export function DieBench({ initial }: { initial: DieDto }) {
   const shown = list.find((m) => m.id === selectedId) ?? list.find((m) => m.isReference) ?? list[0] ?? null;
   const die = useQuery({ queryKey: ["die", initial.id], queryFn: () => apiFetch<DieDto>(`/api/dies/${initial.id}`), initialData: initial }).data;
   const editable = can(die.yourRole, "edit");
+  const [api, setApi] = useState<ViewerApi | null>(null);
+  const { editor, save, loadError } = useMarkupEditor(die.id, editable, userId);
+  const state = useEditorState(editor);
+  const ws = useMarkupWorkspace(editor, state, api, shown?.transform ?? null, die.teamId);
   const update = useMutation({
     mutationFn: (body: unknown) => apiFetch<DieDto>(`/api/dies/${die.id}`, { method: "PATCH", body }),
     onSuccess: (d) => qc.setQueryData(["die", die.id], d),
@@ -63,25 +78,73 @@ export function DieBench({ initial }: { initial: DieDto }) {
           )}
         </div>
       </header>
+      {editor && state && <ToolBar editor={editor} state={state} save={save} />}
       <div className="flex min-h-0 flex-1">
         <section aria-label="Work area" className="relative min-w-0 flex-1 bg-ink-950">
-          <ViewerPane micrograph={shown} canEdit={editable} />
+          <ViewerPane
+            micrograph={shown}
+            canEdit={editable}
+            onViewer={setApi}
+            overlay={
+              api && editor && state && shown?.transform ? (
+                <MarkupOverlay api={api} editor={editor} state={state} imageToDie={shown.transform} hiddenKinds={ws.hiddenKinds} labels={ws.labels} />
+              ) : null
+            }
+          />
+          {shown && !shown.transform && (
+            <p role="status" className="absolute bottom-12 left-1/2 -translate-x-1/2 rounded bg-ink-900/95 px-3 py-1.5 text-xs text-ink-200">
+              This micrograph is not in the die frame yet ({shown.scaleUmPerPx ? "align it to the reference" : "calibrate its scale"}); markup shows once it is.
+            </p>
+          )}
+          {loadError && <p role="alert" className="absolute left-3 top-3 text-sm text-danger-400">{loadError}</p>}
         </section>
-        <aside aria-label="Die panel" className="flex w-80 shrink-0 flex-col gap-5 overflow-y-auto border-l border-ink-800 bg-ink-900 p-4">
-          <DieDetails die={die} />
-          <section aria-label="Micrographs" className="flex flex-col gap-2">
-            <div className="flex items-center justify-between">
-              <h2 className="text-sm font-semibold">Micrographs</h2>
-              {editable && (
-                <Button variant="primary" onClick={() => setDialog("upload")}>
-                  Upload micrograph
-                </Button>
-              )}
-            </div>
-            {micrographs.isPending ? <p className="text-sm text-ink-400">Loading…</p> : <MicrographList items={micrographs.data ?? []} selectedId={shown?.id ?? null} onSelect={setSelectedId} />}
-          </section>
+        <aside aria-label="Die panel" className="flex w-96 shrink-0 flex-col border-l border-ink-800 bg-ink-900">
+          <SideTabs
+            tabs={[
+              {
+                id: "inspect",
+                label: "Inspect",
+                content: (
+                  <div className="flex flex-col gap-5">
+                    {editor && state ? <Inspector editor={editor} selected={[...state.selection].map((id) => state.shapes.get(id)!).filter(Boolean)} canEdit={editable} /> : <p className="text-sm text-ink-400">Loading markup…</p>}
+                    <Legend hidden={ws.hiddenKinds} onToggle={ws.toggleKind} counts={ws.counts} />
+                    <label className="flex items-center gap-2 text-xs text-ink-300">
+                      <input type="checkbox" checked={ws.labels} onChange={(e) => ws.setLabels(e.target.checked)} className="accent-kerf-500" /> Show labels
+                    </label>
+                  </div>
+                ),
+              },
+              { id: "pads", label: "Pad table", content: <PadTablePanel dieId={die.id} selection={state?.selection ?? new Set()} onPick={ws.pick} /> },
+              {
+                id: "markup",
+                label: "Markup",
+                content: editor && state ? <MarkupTablePanel dieId={die.id} shapes={state.shapeList} authors={ws.authors} editor={editor} canEdit={editable} onPick={ws.pick} /> : null,
+              },
+              {
+                id: "die",
+                label: "Die & micrographs",
+                content: (
+                  <div className="flex flex-col gap-5">
+                    <DieDetails die={die} />
+                    <section aria-label="Micrographs" className="flex flex-col gap-2">
+                      <div className="flex items-center justify-between">
+                        <h2 className="text-sm font-semibold">Micrographs</h2>
+                        {editable && (
+                          <Button variant="primary" onClick={() => setDialog("upload")}>
+                            Upload micrograph
+                          </Button>
+                        )}
+                      </div>
+                      {micrographs.isPending ? <p className="text-sm text-ink-400">Loading…</p> : <MicrographList items={micrographs.data ?? []} selectedId={shown?.id ?? null} onSelect={setSelectedId} />}
+                    </section>
+                  </div>
+                ),
+              },
+            ]}
+          />
         </aside>
       </div>
+      {editor && state && <HelpSheet open={state.helpVisible} onClose={() => editor.setHelpVisible(false)} />}
       <Dialog open={dialog === "upload"} onClose={() => setDialog(null)} title="Upload a micrograph">
         <UploadMicrograph
           dieId={die.id}

@@ -10,6 +10,6 @@ export const metadata: Metadata = { title: "Die" };
 export default async function DiePage({ params }: { params: Promise<{ dieId: string }> }) {
   const { dieId } = await params;
   if (!uuidSchema.safeParse(dieId).success) notFound();
-  const die = await loadPage(({ db, actor }) => getDie(db, actor, dieId));
-  return <DieBench initial={die} />;
+  const { die, userId } = await loadPage(async ({ db, actor }) => ({ die: await getDie(db, actor, dieId), userId: actor.userId }));
+  return <DieBench initial={die} userId={userId} />;
 }

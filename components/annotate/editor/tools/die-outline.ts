@@ -1,0 +1,15 @@
+import type { EditorContext, ToolState } from "../tool-state";
+import { rectangleToolIdle, type RectangleToolSpec } from "./shared/drawing-rectangle";
+
+const DIE_OUTLINE: RectangleToolSpec = {
+  tool: "die_outline",
+  draft: (_ctx, geometry) => ({ kind: "die_outline", geometry, properties: {} }),
+  // A die has one outline: drawing another replaces it.
+  replaces: (ctx) => [...ctx.shapes().values()].filter((s) => s.kind === "die_outline"),
+  clickGeometry: () => null,
+};
+
+/** The die outline tool: drag a rectangle; a click makes nothing. */
+export function dieOutlineIdle(ctx: EditorContext): ToolState {
+  return rectangleToolIdle(ctx, DIE_OUTLINE);
+}

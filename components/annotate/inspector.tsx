@@ -1,0 +1,128 @@
+"use client";
+
+import { useEffect, useState } from "react";
+import { polylineLength, polygonArea, boundingBox } from "@/lib/geometry/measure";
+import { PAD_STATES, type AnyShape } from "@/lib/markup/types";
+import type { Editor } from "./editor/types";
+import { KIND_STYLE } from "./palette";
+import { formatLength } from "./render/draw-interaction";
+
+type FieldDef = { key: string; label: string; type?: "number" | "text" | "textarea" | "state" | "side" };
+const FIELDS: Record<AnyShape["kind"], FieldDef[]> = {
+  pad: [
+    { key: "label", label: "Label" },
+    { key: "net", label: "Net" },
+    { key: "state", label: "State", type: "state" },
+    { key: "side", label: "Side", type: "side" },
+  ],
+  wire_bond: [
+    { key: "label", label: "Label" },
+    { key: "diameterUm", label: "Wire diameter (µm)", type: "number" },
+  ],
+  block: [
+    { key: "name", label: "Name" },
+    { key: "function", label: "Function (e.g. input stage, bias, output stage)" },
+  ],
+  symmetry_axis: [{ key: "name", label: "Name" }],
+  trace: [
+    { key: "label", label: "Label" },
+    { key: "widthUm", label: "Width (µm)", type: "number" },
+    { key: "layerNote", label: "Layer note" },
+  ],
+  ruler: [{ key: "label", label: "Label" }],
+  note: [{ key: "text", label: "Text", type: "textarea" }],
+  die_outline: [{ key: "label", label: "Label" }],
+};
+
+function Field({ def, shape, editor, readOnly }: { def: FieldDef; shape: AnyShape; editor: Editor; readOnly: boolean }) {
+  const stored = (shape.properties as Record<string, unknown>)[def.key];
+  const [value, setValue] = useState(stored === undefined || stored === null ? "" : String(stored));
+  useEffect(() => setValue(stored === undefined || stored === null ? "" : String(stored)), [stored, shape.id]);
+  const id = `inspector-${def.key}`;
+  const commit = (v: string) => {
+    if (readOnly || v === String(stored ?? "")) return;
+    if (def.type === "number") {
+      const n = Number(v);
+      if (!Number.isFinite(n) || n <= 0) return;
+      editor.updateProperties(shape.id, { [def.key]: n });
+    } else editor.updateProperties(shape.id, { [def.key]: v });
+  };
+  const common = "w-full rounded-md border border-ink-700 bg-ink-950 px-2 py-1 text-sm";
+  let control: React.ReactNode;
+  if (def.type === "state" || def.type === "side") {
+    const options = def.type === "state" ? PAD_STATES : (["", "N", "E", "S", "W"] as const);
+    control = (
+      <select id={id} disabled={readOnly} value={value} onChange={(e) => { setValue(e.target.value); commit(e.target.value); }} className={common}>
+        {options.map((o) => (
+          <option key={o} value={o}>
+            {o === "" ? "from the nearest edge" : o}
+          </option>
+        ))}
+      </select>
+    );
+  } else if (def.type === "textarea") {
+    control = <textarea id={id} readOnly={readOnly} rows={3} value={value} onChange={(e) => setValue(e.target.value)} onBlur={() => commit(value)} className={common} />;
+  } else {
+    control = (
+      <input
+        id={id}
+        readOnly={readOnly}
+        inputMode={def.type === "number" ? "decimal" : undefined}
+        value={value}
+        onChange={(e) => setValue(e.target.value)}
+        onBlur={() => commit(value)}
+        onKeyDown={(e) => e.key === "Enter" && commit(value)}
+        className={common}
+      />
+    );
+  }
+  return (
+    <div className="flex flex-col gap-1">
+      <label htmlFor={id} className="text-xs text-ink-300">
+        {def.label}
+      </label>
+      {control}
+    </div>
+  );
+}
+
+function Measures({ shape }: { shape: AnyShape }) {
+  const g = shape.geometry;
+  const b = boundingBox(g);
+  const rows: [string, string][] = [];
+  if (g.type === "LineString") rows.push(["Length", formatLength(polylineLength(g.coordinates))]);
+  if (g.type === "Polygon") {
+    rows.push(["Size", `${(b.maxX - b.minX).toFixed(1)} × ${(b.maxY - b.minY).toFixed(1)} µm`]);
+    rows.push(["Area", `${polygonArea(g).toFixed(0)} µm²`]);
+  }
+  rows.push(["Centre", `${((b.minX + b.maxX) / 2).toFixed(1)}, ${((b.minY + b.maxY) / 2).toFixed(1)} µm`]);
+  return (
+    <dl className="grid grid-cols-[auto_1fr] gap-x-3 gap-y-1 text-xs" data-testid="inspector-measures">
+      {rows.map(([k, v]) => (
+        <div key={k} className="contents">
+          <dt className="text-ink-400">{k}</dt>
+          <dd className="tabular-nums text-ink-100">{v}</dd>
+        </div>
+      ))}
+    </dl>
+  );
+}
+
+/** The selected shape's properties, edited in place (each change is one undo step). */
+export function Inspector({ editor, selected, canEdit }: { editor: Editor; selected: AnyShape[]; canEdit: boolean }) {
+  if (selected.length === 0) return <p className="text-sm text-ink-400">Select a shape to see and edit its properties.</p>;
+  if (selected.length > 1) return <p className="text-sm text-ink-300">{selected.length} shapes selected. Drag to move them, Delete to remove them.</p>;
+  const shape = selected[0];
+  return (
+    <section aria-label="Inspector" className="flex flex-col gap-3">
+      <h2 className="flex items-center gap-2 text-sm font-semibold">
+        <span aria-hidden="true" className="h-2.5 w-2.5 rounded-full" style={{ background: KIND_STYLE[shape.kind].colour }} />
+        {KIND_STYLE[shape.kind].label}
+      </h2>
+      {FIELDS[shape.kind].map((def) => (
+        <Field key={`${shape.id}-${def.key}`} def={def} shape={shape} editor={editor} readOnly={!canEdit} />
+      ))}
+      <Measures shape={shape} />
+    </section>
+  );
+}

@@ -1,0 +1,134 @@
+import type { Affine2x3, Position } from "@/lib/geometry/types";
+import type { AnyShape, PadProperties } from "@/lib/markup/types";
+import { HALO_COLOUR, KIND_STYLE, PAD_STATE_STYLE } from "../palette";
+import { screenPxPerUm } from "./die-to-screen";
+
+export type DrawOptions = {
+  /** Die µm → screen CSS px. */
+  matrix: Affine2x3;
+  /** Device pixels per CSS px, for sharp lines on high-DPI screens. */
+  pixelRatio: number;
+  /** The visible die rectangle [minX, minY, maxX, maxY], for culling. */
+  visibleUm: [number, number, number, number];
+  labels: boolean;
+  /** Bounding boxes by shape id, precomputed once per model change. */
+  bboxes: ReadonlyMap<string, [number, number, number, number]>;
+};
+
+function pathOf(ctx: CanvasRenderingContext2D, m: Affine2x3, pts: readonly Position[], close: boolean) {
+  ctx.beginPath();
+  pts.forEach(([x, y], i) => {
+    const sx = m[0][0] * x + m[0][1] * y + m[0][2];
+    const sy = m[1][0] * x + m[1][1] * y + m[1][2];
+    if (i === 0) ctx.moveTo(sx, sy);
+    else ctx.lineTo(sx, sy);
+  });
+  if (close) ctx.closePath();
+}
+
+function strokeWithHalo(ctx: CanvasRenderingContext2D, colour: string, width: number, dash?: number[]) {
+  ctx.setLineDash([]);
+  ctx.strokeStyle = HALO_COLOUR;
+  ctx.lineWidth = width + 2;
+  ctx.stroke();
+  ctx.setLineDash(dash ?? []);
+  ctx.strokeStyle = colour;
+  ctx.lineWidth = width;
+  ctx.stroke();
+}
+
+/** The label drawn beside a shape, per kind. */
+export function labelOf(s: AnyShape): string {
+  const p = s.properties as Record<string, unknown>;
+  return String(p.label ?? p.name ?? p.text ?? "");
+}
+
+/** Draws one shape in screen space (positions mapped by hand, so strokes keep a constant width). */
+export function drawShape(ctx: CanvasRenderingContext2D, s: AnyShape, m: Affine2x3, widthPx = 1.5) {
+  const style = KIND_STYLE[s.kind];
+  const g = s.geometry;
+  if (g.type === "Point") {
+    const [x, y] = g.coordinates;
+    const sx = m[0][0] * x + m[0][1] * y + m[0][2];
+    const sy = m[1][0] * x + m[1][1] * y + m[1][2];
+    ctx.beginPath();
+    ctx.arc(sx, sy, 5, 0, Math.PI * 2);
+    ctx.fillStyle = style.colour;
+    ctx.fill();
+    strokeWithHalo(ctx, "#000", 1);
+    return;
+  }
+  if (g.type === "LineString") {
+    pathOf(ctx, m, g.coordinates, false);
+    const trace = s.kind === "trace" ? (s.properties as { widthUm?: number }).widthUm : undefined;
+    // A trace is drawn at its real width once that is wider than a hairline.
+    const w = trace ? Math.max(widthPx, trace * screenPxPerUm(m)) : widthPx;
+    if (trace && w > widthPx) {
+      ctx.globalAlpha = 0.35;
+      ctx.strokeStyle = style.colour;
+      ctx.lineWidth = w;
+      ctx.lineCap = "round";
+      ctx.lineJoin = "round";
+      ctx.setLineDash([]);
+      ctx.stroke();
+      ctx.globalAlpha = 1;
+      strokeWithHalo(ctx, style.colour, widthPx);
+    } else strokeWithHalo(ctx, style.colour, w, style.dash);
+    return;
+  }
+  pathOf(ctx, m, g.coordinates[0], true);
+  if (s.kind === "pad") {
+    const st = PAD_STATE_STYLE[(s.properties as PadProperties).state] ?? PAD_STATE_STYLE.bonded;
+    if (st.fillAlpha > 0) {
+      ctx.globalAlpha = st.fillAlpha;
+      ctx.fillStyle = style.colour;
+      ctx.fill();
+      ctx.globalAlpha = 1;
+    }
+    strokeWithHalo(ctx, style.colour, widthPx, st.dash);
+    return;
+  }
+  if (s.kind === "block") {
+    ctx.globalAlpha = 0.08;
+    ctx.fillStyle = style.colour;
+    ctx.fill();
+    ctx.globalAlpha = 1;
+  }
+  strokeWithHalo(ctx, style.colour, widthPx, style.dash);
+}
+
+function visible(b: [number, number, number, number] | undefined, v: DrawOptions["visibleUm"]) {
+  return !b || !(b[2] < v[0] || b[0] > v[2] || b[3] < v[1] || b[1] > v[3]);
+}
+
+/**
+ * Draws every visible shape of the model; shapes off screen are culled by bounding box, and
+ * labels only appear once a shape is big enough on screen to carry one (level of detail).
+ */
+export function drawMarkup(ctx: CanvasRenderingContext2D, shapes: Iterable<AnyShape>, o: DrawOptions): void {
+  const m = o.matrix;
+  const pxPerUm = screenPxPerUm(m);
+  ctx.lineCap = "butt";
+  for (const s of shapes) {
+    const b = o.bboxes.get(s.id);
+    if (!visible(b, o.visibleUm)) continue;
+    drawShape(ctx, s, m);
+    if (!o.labels || !b) continue;
+    const text = labelOf(s);
+    const sizePx = Math.max(b[2] - b[0], b[3] - b[1]) * pxPerUm;
+    if (!text || (s.kind !== "note" && sizePx < 18)) continue;
+    const cx = (b[0] + b[2]) / 2;
+    const cy = s.kind === "pad" || s.kind === "block" ? (b[1] + b[3]) / 2 : b[3];
+    const sx = m[0][0] * cx + m[0][1] * cy + m[0][2];
+    const sy = m[1][0] * cx + m[1][1] * cy + m[1][2];
+    ctx.font = "600 11px var(--font-inter), system-ui, sans-serif";
+    ctx.textAlign = "center";
+    ctx.textBaseline = "middle";
+    ctx.lineWidth = 3;
+    ctx.strokeStyle = HALO_COLOUR;
+    ctx.setLineDash([]);
+    ctx.strokeText(text, sx, sy - (s.kind === "note" ? 12 : 0));
+    ctx.fillStyle = KIND_STYLE[s.kind].colour;
+    ctx.fillText(text, sx, sy - (s.kind === "note" ? 12 : 0));
+  }
+}

@@ -38,6 +38,7 @@ function useHostSize(api: ViewerApi) {
 export function MarkupOverlay({ api, editor, state, imageToDie, hiddenKinds, labels }: Props) {
   const size = useHostSize(api);
   const layer = useRef<Konva.Layer>(null);
+  const host = useRef<HTMLDivElement>(null);
   const matrix = useRef<Affine2x3>(dieToScreenMatrix(imageToDie, api.imageToScreen));
   const [spaceHeld, setSpaceHeld] = useState(false);
 
@@ -54,6 +55,8 @@ export function MarkupOverlay({ api, editor, state, imageToDie, hiddenKinds, lab
   useEffect(() => {
     const update = () => {
       matrix.current = dieToScreenMatrix(imageToDie, api.imageToScreen);
+      // The current die → screen map, for tests and tools that need it from outside.
+      host.current?.setAttribute("data-die-to-screen", JSON.stringify(matrix.current));
       layer.current?.batchDraw();
     };
     update();
@@ -94,6 +97,7 @@ export function MarkupOverlay({ api, editor, state, imageToDie, hiddenKinds, lab
   const capturing = state.activeTool !== "pan" && !spaceHeld;
   return (
     <div
+      ref={host}
       data-testid="markup-overlay"
       data-tool={state.activeTool}
       data-tool-state={state.toolState}

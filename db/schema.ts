@@ -121,6 +121,13 @@ export const micrographs = pgTable(
     calibration: jsonb("calibration").$type<{ p1: [number, number]; p2: [number, number]; lengthUm: number } | null>(),
     /** The client's file name, sanitised, for display only. */
     originalName: text("original_name"),
+    /** Control-point pairs of the last alignment: image px ↔ die µm. */
+    controlPoints: jsonb("control_points").$type<{ imagePx: [number, number]; dieUm: [number, number] }[] | null>(),
+    alignmentModel: text("alignment_model"),
+    /** The user said the photo really is mirrored (some camera set-ups mirror). */
+    mirrored: boolean("mirrored").notNull().default(false),
+    residualsUm: jsonb("residuals_um").$type<number[] | null>(),
+    alignmentRmsUm: doublePrecision("alignment_rms_um"),
     previewWidth: integer("preview_width"),
     previewHeight: integer("preview_height"),
     createdBy: uuid("created_by").references(() => users.id, { onDelete: "set null" }),
@@ -212,6 +219,151 @@ export const signInAttempts = pgTable(
   (t) => [index("sign_in_attempts_email_at_idx").on(t.email, t.at)],
 );
 
+export const threadStatusEnum = pgEnum("thread_status", ["open", "resolved"]);
+
+/**
+ * A review thread on a shape or on a region drawn for it. The shape reference has no foreign
+ * key: when the shape is deleted the thread stays, anchored where the shape was (`anchor`).
+ */
+export const threads = pgTable(
+  "threads",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    dieId: uuid("die_id").notNull().references(() => dies.id, { onDelete: "cascade" }),
+    shapeId: uuid("shape_id"),
+    /** GeoJSON Point or Polygon in die µm: the region, or where the shape was last. */
+    anchor: jsonb("anchor").notNull(),
+    status: threadStatusEnum("status").notNull().default("open"),
+    resolvedBy: uuid("resolved_by").references(() => users.id, { onDelete: "set null" }),
+    resolvedAt: timestamp("resolved_at", { withTimezone: true }),
+    createdBy: uuid("created_by").references(() => users.id, { onDelete: "set null" }),
+    createdAt: createdAt(),
+    updatedAt: updatedAt(),
+  },
+  (t) => [index("threads_die_idx").on(t.dieId), index("threads_shape_idx").on(t.shapeId)],
+);
+
+export const comments = pgTable(
+  "comments",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    threadId: uuid("thread_id").notNull().references(() => threads.id, { onDelete: "cascade" }),
+    authorId: uuid("author_id").references(() => users.id, { onDelete: "set null" }),
+    /** Stored verbatim; rendered through a safe formatter, never as HTML. */
+    body: text("body").notNull(),
+    editedAt: timestamp("edited_at", { withTimezone: true }),
+    createdAt: createdAt(),
+  },
+  (t) => [index("comments_thread_idx").on(t.threadId, t.createdAt)],
+);
+
+export const commentMentions = pgTable(
+  "comment_mentions",
+  {
+    commentId: uuid("comment_id").notNull().references(() => comments.id, { onDelete: "cascade" }),
+    userId: uuid("user_id").notNull().references(() => users.id, { onDelete: "cascade" }),
+  },
+  (t) => [primaryKey({ columns: [t.commentId, t.userId] }), index("comment_mentions_user_idx").on(t.userId)],
+);
+
+export const reviewActionEnum = pgEnum("review_action", ["submit", "approve", "request_changes"]);
+
+/** The die's review history: every submit and decision with its message. */
+export const reviewEvents = pgTable(
+  "review_events",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    dieId: uuid("die_id").notNull().references(() => dies.id, { onDelete: "cascade" }),
+    actorId: uuid("actor_id").references(() => users.id, { onDelete: "set null" }),
+    action: reviewActionEnum("action").notNull(),
+    fromStatus: reviewStatusEnum("from_status").notNull(),
+    toStatus: reviewStatusEnum("to_status").notNull(),
+    message: text("message").notNull().default(""),
+    at: timestamp("at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index("review_events_die_idx").on(t.dieId, t.at)],
+);
+
+/** An invitation to join a team; only a hash of the single-use token is stored. */
+export const invitations = pgTable(
+  "invitations",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    teamId: uuid("team_id").notNull().references(() => teams.id, { onDelete: "cascade" }),
+    email: text("email").notNull(),
+    role: roleEnum("role").notNull(),
+    tokenHash: text("token_hash").notNull(),
+    invitedBy: uuid("invited_by").references(() => users.id, { onDelete: "set null" }),
+    expiresAt: timestamp("expires_at", { withTimezone: true }).notNull(),
+    acceptedAt: timestamp("accepted_at", { withTimezone: true }),
+    acceptedBy: uuid("accepted_by").references(() => users.id, { onDelete: "set null" }),
+    revokedAt: timestamp("revoked_at", { withTimezone: true }),
+    createdAt: createdAt(),
+  },
+  (t) => [uniqueIndex("invitations_token_idx").on(t.tokenHash), index("invitations_team_idx").on(t.teamId)],
+);
+
+export const outboxStatusEnum = pgEnum("outbox_status", ["pending", "sent", "failed"]);
+
+/**
+ * Mail waits here until sent: a comment is saved even when the mail server is down, and the
+ * sender retries with back-off. `dedupeKey` keeps one message per event and recipient.
+ */
+export const outbox = pgTable(
+  "outbox",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    teamId: uuid("team_id").references(() => teams.id, { onDelete: "cascade" }),
+    kind: text("kind").notNull(),
+    toEmail: text("to_email").notNull(),
+    subject: text("subject").notNull(),
+    text: text("text").notNull(),
+    html: text("html").notNull(),
+    dedupeKey: text("dedupe_key").notNull(),
+    status: outboxStatusEnum("status").notNull().default("pending"),
+    attempts: integer("attempts").notNull().default(0),
+    nextAttemptAt: timestamp("next_attempt_at", { withTimezone: true }).notNull().defaultNow(),
+    lastError: text("last_error"),
+    sentAt: timestamp("sent_at", { withTimezone: true }),
+    createdAt: createdAt(),
+  },
+  (t) => [uniqueIndex("outbox_dedupe_idx").on(t.dedupeKey), index("outbox_due_idx").on(t.status, t.nextAttemptAt)],
+);
+
+/** Which notifications a user receives (absent row = the default, on). */
+export const notificationPrefs = pgTable(
+  "notification_prefs",
+  {
+    userId: uuid("user_id").notNull().references(() => users.id, { onDelete: "cascade" }),
+    kind: text("kind").notNull(),
+    enabled: boolean("enabled").notNull(),
+  },
+  (t) => [primaryKey({ columns: [t.userId, t.kind] })],
+);
+
+export const exportKindEnum = pgEnum("export_kind", ["annotated_png", "report_pdf"]);
+
+/** A hand-over file rendered in the background: status, progress and where the file is. */
+export const exports = pgTable(
+  "exports",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    dieId: uuid("die_id").notNull().references(() => dies.id, { onDelete: "cascade" }),
+    micrographId: uuid("micrograph_id").references(() => micrographs.id, { onDelete: "set null" }),
+    kind: exportKindEnum("kind").notNull(),
+    status: jobStatusEnum("status").notNull().default("queued"),
+    progress: integer("progress").notNull().default(0),
+    params: jsonb("params").notNull(),
+    fileName: text("file_name"),
+    bytes: bigint("bytes", { mode: "number" }),
+    error: text("error"),
+    createdBy: uuid("created_by").references(() => users.id, { onDelete: "set null" }),
+    createdAt: createdAt(),
+    finishedAt: timestamp("finished_at", { withTimezone: true }),
+  },
+  (t) => [index("exports_die_idx").on(t.dieId, t.createdAt)],
+);
+
 export type User = typeof users.$inferSelect;
 export type Team = typeof teams.$inferSelect;
 export type Membership = typeof memberships.$inferSelect;
@@ -222,4 +374,10 @@ export type ReviewStatus = (typeof reviewStatusEnum.enumValues)[number];
 export type MicrographRow = typeof micrographs.$inferSelect;
 export type AuditEvent = typeof auditEvents.$inferSelect;
 export type JobRow = typeof jobs.$inferSelect;
+export type ThreadRow = typeof threads.$inferSelect;
+export type CommentRow = typeof comments.$inferSelect;
+export type ReviewEventRow = typeof reviewEvents.$inferSelect;
+export type InvitationRow = typeof invitations.$inferSelect;
+export type OutboxRow = typeof outbox.$inferSelect;
+export type ExportRow = typeof exports.$inferSelect;
 export type MarkupRow = typeof markup.$inferSelect;

@@ -21,7 +21,7 @@ function newest(p) {
 }
 
 export function buildIfStale(env = process.env) {
-  const id = path.join(ROOT, ".next", "BUILD_ID");
+  const id = path.join(ROOT, env.KERFLINE_DIST_DIR || ".next", "BUILD_ID");
   const built = fs.existsSync(id) ? fs.statSync(id).mtimeMs : 0;
   const src = Math.max(...SOURCES.map((s) => newest(path.join(ROOT, s))));
   if (built > src && env.KERFLINE_FORCE_BUILD !== "1") return;

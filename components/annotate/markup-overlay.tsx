@@ -16,7 +16,19 @@ import { drawInteraction } from "./render/draw-interaction";
 /** How near, in screen px, a click must be to a line, vertex or handle to hit it. */
 const HIT_TOLERANCE_PX = 6;
 
-type Props = { api: ViewerApi; editor: Editor; state: EditorState; imageToDie: Affine2x3; hiddenKinds: ReadonlySet<MarkupKind>; labels: boolean };
+/** Extra drawing over the markup (e.g. symmetry ghosts, thread pins), in screen px through `matrix`. */
+export type OverlayDrawer = (ctx: CanvasRenderingContext2D, matrix: Affine2x3) => void;
+
+type Props = {
+  api: ViewerApi;
+  editor: Editor;
+  state: EditorState;
+  imageToDie: Affine2x3;
+  hiddenKinds: ReadonlySet<MarkupKind>;
+  labels: boolean;
+  /** Drawn between the markup and the interaction layer; a new function redraws. */
+  extraDrawers?: readonly OverlayDrawer[];
+};
 
 function useHostSize(api: ViewerApi) {
   const el = api.viewer.element as HTMLElement;
@@ -35,7 +47,7 @@ function useHostSize(api: ViewerApi) {
  * (animating) view on every view change, so markup stays locked to the image. Pointer input is
  * converted to die µm here and handed to the editor, which owns hit testing.
  */
-export function MarkupOverlay({ api, editor, state, imageToDie, hiddenKinds, labels }: Props) {
+export function MarkupOverlay({ api, editor, state, imageToDie, hiddenKinds, labels, extraDrawers = [] }: Props) {
   const size = useHostSize(api);
   const layer = useRef<Konva.Layer>(null);
   const host = useRef<HTMLDivElement>(null);
@@ -65,7 +77,7 @@ export function MarkupOverlay({ api, editor, state, imageToDie, hiddenKinds, lab
 
   useEffect(() => {
     layer.current?.batchDraw();
-  }, [state, visibleShapes, labels, size]);
+  }, [state, visibleShapes, labels, size, extraDrawers]);
 
   useEffect(() => {
     const down = (e: KeyboardEvent) => e.code === "Space" && !(e.target instanceof HTMLInputElement || e.target instanceof HTMLTextAreaElement) && setSpaceHeld(true);
@@ -126,6 +138,7 @@ export function MarkupOverlay({ api, editor, state, imageToDie, hiddenKinds, lab
             listening={false}
             sceneFunc={(ctx) => ready() && drawMarkup(ctx._context, visibleShapes, { matrix: matrix.current, pixelRatio: 1, visibleUm: visibleUm(), labels, bboxes })}
           />
+          <Shape perfectDrawEnabled={false} listening={false} sceneFunc={(ctx) => ready() && extraDrawers.forEach((d) => d(ctx._context, matrix.current))} />
           <Shape perfectDrawEnabled={false} listening={false} sceneFunc={(ctx) => ready() && drawInteraction(ctx._context, state, matrix.current)} />
         </Layer>
       </Stage>

@@ -2,7 +2,9 @@
 // prints measurements and ratios against reference runs made in the same script.
 import { benchTiling } from "./bench/tiling";
 import { benchUpload } from "./bench/upload";
+import { benchMarkup } from "./bench/markup";
 
 const only = process.argv[2];
 if (!only || only === "tiling") await benchTiling();
 if (!only || only === "upload") await benchUpload();
+if (!only || only === "markup") await benchMarkup();

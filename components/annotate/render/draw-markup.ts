@@ -101,34 +101,117 @@ function visible(b: [number, number, number, number] | undefined, v: DrawOptions
   return !b || !(b[2] < v[0] || b[0] > v[2] || b[3] < v[1] || b[1] > v[3]);
 }
 
-/**
- * Draws every visible shape of the model; shapes off screen are culled by bounding box, and
- * labels only appear once a shape is big enough on screen to carry one (level of detail).
- */
-export function drawMarkup(ctx: CanvasRenderingContext2D, shapes: Iterable<AnyShape>, o: DrawOptions): void {
+type Batch = { path: Path2D; colour: string; dash?: number[]; fillAlpha: number };
+
+function addPath(path: Path2D, m: Affine2x3, pts: readonly Position[], close: boolean) {
+  pts.forEach(([x, y], i) => {
+    const sx = m[0][0] * x + m[0][1] * y + m[0][2];
+    const sy = m[1][0] * x + m[1][1] * y + m[1][2];
+    if (i === 0) path.moveTo(sx, sy);
+    else path.lineTo(sx, sy);
+  });
+  if (close) path.closePath();
+}
+
+/** The batch a shape's outline joins: one per kind and look, so thousands of shapes are a few strokes. */
+function batchKey(s: AnyShape): { key: string; colour: string; dash?: number[]; fillAlpha: number } {
+  const style = KIND_STYLE[s.kind];
+  if (s.kind === "pad") {
+    const state = (s.properties as PadProperties).state;
+    const st = PAD_STATE_STYLE[state] ?? PAD_STATE_STYLE.bonded;
+    return { key: `pad:${state}`, colour: style.colour, dash: st.dash, fillAlpha: st.fillAlpha };
+  }
+  return { key: s.kind, colour: style.colour, dash: style.dash, fillAlpha: s.kind === "block" ? 0.08 : 0 };
+}
+
+function drawLabels(ctx: CanvasRenderingContext2D, shapes: readonly AnyShape[], o: DrawOptions) {
   const m = o.matrix;
   const pxPerUm = screenPxPerUm(m);
-  ctx.lineCap = "butt";
+  ctx.font = "600 11px var(--font-inter), system-ui, sans-serif";
+  ctx.textAlign = "center";
+  ctx.textBaseline = "middle";
+  ctx.lineWidth = 3;
+  ctx.setLineDash([]);
   for (const s of shapes) {
-    const b = o.bboxes.get(s.id);
-    if (!visible(b, o.visibleUm)) continue;
-    drawShape(ctx, s, m);
-    if (!o.labels || !b) continue;
+    const b = o.bboxes.get(s.id)!;
     const text = labelOf(s);
     const sizePx = Math.max(b[2] - b[0], b[3] - b[1]) * pxPerUm;
     if (!text || (s.kind !== "note" && sizePx < 18)) continue;
     const cx = (b[0] + b[2]) / 2;
     const cy = s.kind === "pad" || s.kind === "block" ? (b[1] + b[3]) / 2 : b[3];
     const sx = m[0][0] * cx + m[0][1] * cy + m[0][2];
-    const sy = m[1][0] * cx + m[1][1] * cy + m[1][2];
-    ctx.font = "600 11px var(--font-inter), system-ui, sans-serif";
-    ctx.textAlign = "center";
-    ctx.textBaseline = "middle";
-    ctx.lineWidth = 3;
+    const sy = m[1][0] * cx + m[1][1] * cy + m[1][2] - (s.kind === "note" ? 12 : 0);
     ctx.strokeStyle = HALO_COLOUR;
-    ctx.setLineDash([]);
-    ctx.strokeText(text, sx, sy - (s.kind === "note" ? 12 : 0));
+    ctx.strokeText(text, sx, sy);
     ctx.fillStyle = KIND_STYLE[s.kind].colour;
-    ctx.fillText(text, sx, sy - (s.kind === "note" ? 12 : 0));
+    ctx.fillText(text, sx, sy);
   }
+}
+
+/**
+ * Draws every visible shape of the model. Shapes off screen are culled by bounding box;
+ * outlines of the same kind and look are batched into one path (a halo stroke, a fill and a
+ * colour stroke per batch), so thousands of shapes cost a handful of canvas calls; wide traces
+ * and notes are drawn one by one. Labels appear only once a shape is big enough on screen to
+ * carry one (level of detail).
+ */
+export function drawMarkup(ctx: CanvasRenderingContext2D, shapes: Iterable<AnyShape>, o: DrawOptions): void {
+  const m = o.matrix;
+  const pxPerUm = screenPxPerUm(m);
+  const batches = new Map<string, Batch>();
+  const dots = new Map<string, Path2D>();
+  const singles: AnyShape[] = [];
+  const shown: AnyShape[] = [];
+  for (const s of shapes) {
+    const b = o.bboxes.get(s.id);
+    if (!visible(b, o.visibleUm)) continue;
+    shown.push(s);
+    const g = s.geometry;
+    // Level of detail: a shape under 5 px on screen is drawn as a filled dot of its colour.
+    if (b && g.type !== "Point" && Math.max(b[2] - b[0], b[3] - b[1]) * pxPerUm < 5) {
+      const colour = KIND_STYLE[s.kind].colour;
+      let dot = dots.get(colour);
+      if (!dot) dots.set(colour, (dot = new Path2D()));
+      const sx = m[0][0] * b[0] + m[0][1] * b[3] + m[0][2];
+      const sy = m[1][0] * b[0] + m[1][1] * b[3] + m[1][2];
+      const w = Math.max(2, (b[2] - b[0]) * pxPerUm);
+      const h = Math.max(2, (b[3] - b[1]) * pxPerUm);
+      dot.rect(Math.min(sx, sx + w), Math.min(sy, sy + h), w, h);
+      continue;
+    }
+    const wide = s.kind === "trace" && ((s.properties as { widthUm?: number }).widthUm ?? 0) * pxPerUm > 1.5;
+    if (g.type === "Point" || wide) {
+      singles.push(s);
+      continue;
+    }
+    const k = batchKey(s);
+    let batch = batches.get(k.key);
+    if (!batch) batches.set(k.key, (batch = { path: new Path2D(), colour: k.colour, dash: k.dash, fillAlpha: k.fillAlpha }));
+    if (g.type === "LineString") addPath(batch.path, m, g.coordinates, false);
+    else addPath(batch.path, m, g.coordinates[0], true);
+  }
+  ctx.lineCap = "butt";
+  for (const b of batches.values()) {
+    if (b.fillAlpha > 0) {
+      ctx.globalAlpha = b.fillAlpha;
+      ctx.fillStyle = b.colour;
+      ctx.fill(b.path);
+      ctx.globalAlpha = 1;
+    }
+    ctx.setLineDash([]);
+    ctx.strokeStyle = HALO_COLOUR;
+    ctx.lineWidth = 3.5;
+    ctx.stroke(b.path);
+    ctx.setLineDash(b.dash ?? []);
+    ctx.strokeStyle = b.colour;
+    ctx.lineWidth = 1.5;
+    ctx.stroke(b.path);
+  }
+  ctx.setLineDash([]);
+  for (const [colour, dot] of dots) {
+    ctx.fillStyle = colour;
+    ctx.fill(dot);
+  }
+  for (const s of singles) drawShape(ctx, s, m);
+  if (o.labels) drawLabels(ctx, shown, o);
 }

@@ -1,10 +1,10 @@
 import { z } from "zod";
 import { apiRoute, created } from "@/lib/server/route";
 import { BadRequestError } from "@/lib/server/errors";
-import { createMarkup, listMarkup } from "@/db/access/markup";
+import { createMarkup, listMarkupJson } from "@/db/access/markup";
 import { uuidSchema } from "@/lib/validation/common";
 import { parseNewShapes } from "@/lib/markup/markup-input";
-import { ifNoneMatchMatches, markupEtag } from "@/lib/markup/etag";
+import { ifNoneMatchMatches } from "@/lib/markup/etag";
 
 const params = z.object({ dieId: uuidSchema });
 
@@ -13,12 +13,11 @@ const MAX_MARKUP_BODY_BYTES = 16 * 1024 * 1024;
 
 /** All shapes of the die, with an ETag of their ids and versions; 304 when If-None-Match matches. */
 export const GET = apiRoute({ params }, async ({ db, actor, params, req }) => {
-  const { shapes } = await listMarkup(db, actor, params.dieId);
-  const etag = markupEtag(shapes);
+  const { json, etag } = await listMarkupJson(db, actor, params.dieId);
   // private: answers depend on the caller's membership; no-cache: revalidate every time.
   const headers = { ETag: etag, "Cache-Control": "private, no-cache" };
   if (ifNoneMatchMatches(req.headers.get("if-none-match"), etag)) return new Response(null, { status: 304, headers });
-  return Response.json(shapes, { headers });
+  return new Response(json, { headers: { ...headers, "content-type": "application/json" } });
 });
 
 /** One shape or an array of up to 10,000, written in one transaction; 201 with what was created. */

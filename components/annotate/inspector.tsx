@@ -109,6 +109,27 @@ function Measures({ shape }: { shape: AnyShape }) {
 }
 
 /** The selected shape's properties, edited in place (each change is one undo step). */
+function PadOne({ editor, shape, canEdit }: { editor: Editor; shape: AnyShape; canEdit: boolean }) {
+  const isOne = (shape.properties as { isPadOne?: boolean }).isPadOne === true;
+  if (isOne) return <p className="text-xs text-kerf-300">This is pad 1: the pad table numbers counter-clockwise from here.</p>;
+  if (!canEdit) return null;
+  return (
+    <button
+      type="button"
+      className="self-start rounded border border-ink-700 px-2 py-1 text-xs text-ink-200 hover:bg-ink-800"
+      onClick={() => {
+        // Only one pad can be pad 1: clear the old mark first.
+        for (const s of editor.getState().shapeList) {
+          if (s.kind === "pad" && (s.properties as { isPadOne?: boolean }).isPadOne) editor.updateProperties(s.id, { isPadOne: false });
+        }
+        editor.updateProperties(shape.id, { isPadOne: true });
+      }}
+    >
+      Make this pad 1
+    </button>
+  );
+}
+
 export function Inspector({ editor, selected, canEdit }: { editor: Editor; selected: AnyShape[]; canEdit: boolean }) {
   if (selected.length === 0) return <p className="text-sm text-ink-400">Select a shape to see and edit its properties.</p>;
   if (selected.length > 1) return <p className="text-sm text-ink-300">{selected.length} shapes selected. Drag to move them, Delete to remove them.</p>;
@@ -122,6 +143,7 @@ export function Inspector({ editor, selected, canEdit }: { editor: Editor; selec
       {FIELDS[shape.kind].map((def) => (
         <Field key={`${shape.id}-${def.key}`} def={def} shape={shape} editor={editor} readOnly={!canEdit} />
       ))}
+      {shape.kind === "pad" && <PadOne editor={editor} shape={shape} canEdit={canEdit} />}
       <Measures shape={shape} />
     </section>
   );

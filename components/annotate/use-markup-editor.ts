@@ -39,6 +39,11 @@ export function useMarkupEditor(dieId: string, canEdit: boolean, userId: string 
               for (const s of saved) ed.applyServerShape(s);
               setSave({ status: "saved" });
               void qc.invalidateQueries({ queryKey: ["pads", dieId] });
+              // A die outline re-frames the die on the server (origin, size): reload what moved.
+              if (entry.some((c) => (c.after ?? c.before)?.kind === "die_outline")) {
+                await Promise.all([qc.invalidateQueries({ queryKey: ["micrographs", dieId] }), qc.invalidateQueries({ queryKey: ["die", dieId] })]);
+                setGeneration((g) => g + 1);
+              }
             } catch (e) {
               setSave({ status: "failed", message: `${(e as Error).message} The markup was reloaded from the server.` });
               setGeneration((g) => g + 1);

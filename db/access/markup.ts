@@ -4,6 +4,8 @@ import { auditEvents, markup, users, type MarkupRow } from "../schema";
 import { type Actor, type Db } from "./context";
 import { loadDie, type DieDto } from "./dies";
 import { recordAudit, snapshot } from "./audit";
+import { reframeToOutline } from "./die-frame";
+import type { PolygonGeometry } from "@/lib/geometry/types";
 import { BadRequestError, ConflictError, NotFoundError } from "@/lib/server/errors";
 import { dieBounds } from "@/lib/markup/die-bounds";
 import { checkInsideDie, parseShapeOfKind, type InputFailure } from "@/lib/markup/markup-input";
@@ -124,6 +126,13 @@ export async function createMarkup(db: Db, actor: Actor, dieId: string, shapes: 
         rows.push(...(await tx.insert(markup).values(values).returning()));
       }
       await auditCreations(tx, actor, teamId, rows);
+      const outline = rows.find((r) => r.kind === "die_outline");
+      if (outline && (await reframeToOutline(tx, actor, teamId, dieId, outline.geometry as PolygonGeometry))) {
+        // The frame moved: answer with the shapes as they now are.
+        const now2 = await tx.select().from(markup).where(inArray(markup.id, rows.map((r) => r.id)));
+        const byId = new Map(now2.map((r) => [r.id, r]));
+        return rows.map((r) => toShape(byId.get(r.id) ?? r));
+      }
       return rows.map(toShape);
     });
   } catch (e) {
@@ -168,6 +177,10 @@ export async function updateMarkup(db: Db, actor: Actor, id: string, patch: Mark
       .returning();
     if (!after) return conflict(tx, id, "change");
     await recordAudit(tx, actor, { teamId: die.teamId, action: "markup.updated", entityType: "markup", entityId: id, dieId: row.dieId, before: row, after });
+    if (after.kind === "die_outline" && patch.geometry && (await reframeToOutline(tx, actor, die.teamId, row.dieId, after.geometry as PolygonGeometry))) {
+      const [moved] = await tx.select().from(markup).where(eq(markup.id, id));
+      return toShape(moved);
+    }
     return toShape(after);
   });
 }

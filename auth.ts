@@ -26,8 +26,14 @@ export const { handlers, auth, signIn, signOut } = NextAuth(async () => ({
         if (!parsed.success) return null;
         const { database } = await import("@/db/client");
         const { authenticate } = await import("@/db/access/users");
-        const result = await authenticate(await database(), parsed.data.email, parsed.data.password);
-        if (result.ok) return result.user;
+        const db = await database();
+        const result = await authenticate(db, parsed.data.email, parsed.data.password);
+        if (result.ok) {
+          // An existing user invited to another team joins it on signing in.
+          const { acceptInvitationsOnSignIn } = await import("@/db/access/invitations");
+          await acceptInvitationsOnSignIn(db, result.user);
+          return result.user;
+        }
         if (result.reason === "locked") throw new TooManyAttempts(result.retryInMinutes);
         return null;
       },

@@ -7,5 +7,5 @@ const { auth } = NextAuth(authConfig);
 export default auth;
 
 export const config = {
-  matcher: ["/((?!api|_next/static|_next/image|favicon.ico|sign-in|icon.svg).*)"],
+  matcher: ["/((?!api|_next/static|_next/image|favicon.ico|sign-in|invitations|icon.svg).*)"],
 };

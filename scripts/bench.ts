@@ -3,8 +3,10 @@
 import { benchTiling } from "./bench/tiling";
 import { benchUpload } from "./bench/upload";
 import { benchMarkup } from "./bench/markup";
+import { benchExport } from "./bench/export";
 
 const only = process.argv[2];
 if (!only || only === "tiling") await benchTiling();
 if (!only || only === "upload") await benchUpload();
 if (!only || only === "markup") await benchMarkup();
+if (!only || only === "export") await benchExport();

@@ -2,6 +2,7 @@ import Link from "next/link";
 import { Wordmark } from "@/components/ui/wordmark";
 import { loadPage } from "@/lib/server/page";
 import { getMe } from "@/db/access/teams";
+import { isLocalMailMode } from "@/lib/server/mail/local-mail";
 
 export default async function WorkspaceLayout({ children }: { children: React.ReactNode }) {
   const me = await loadPage(({ db, actor }) => getMe(db, actor));
@@ -25,6 +26,14 @@ export default async function WorkspaceLayout({ children }: { children: React.Re
           <span className="text-ink-300" data-testid="signed-in-as">
             {me.user.name} <span className="text-ink-400">({me.user.email})</span>
           </span>
+          {me.teams.some((t) => t.role === "owner") && isLocalMailMode() && (
+            <Link href="/mailbox" className="rounded px-2 py-1 text-ink-200 hover:bg-ink-800">
+              Mailbox
+            </Link>
+          )}
+          <Link href="/settings/notifications" className="rounded px-2 py-1 text-ink-200 hover:bg-ink-800">
+            Notifications
+          </Link>
           <Link href="/sign-out" className="rounded px-2 py-1 text-ink-200 hover:bg-ink-800">
             Sign out
           </Link>

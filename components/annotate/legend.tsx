@@ -2,9 +2,22 @@
 
 import { MARKUP_KINDS, PAD_STATES, type MarkupKind } from "@/lib/markup/types";
 import { KIND_STYLE, PAD_STATE_STYLE } from "./palette";
+import { SHAPE_REVIEW_LABELS, SHAPE_REVIEW_STATES, type ShapeReviewState } from "@/lib/markup/review-state";
 
 /** What each colour means, with a visibility toggle per kind. */
-export function Legend({ hidden, onToggle, counts }: { hidden: ReadonlySet<MarkupKind>; onToggle: (k: MarkupKind) => void; counts: Partial<Record<MarkupKind, number>> }) {
+export function Legend({
+  hidden,
+  onToggle,
+  counts,
+  hiddenReview,
+  onToggleReview,
+}: {
+  hidden: ReadonlySet<MarkupKind>;
+  onToggle: (k: MarkupKind) => void;
+  counts: Partial<Record<MarkupKind, number>>;
+  hiddenReview: ReadonlySet<ShapeReviewState>;
+  onToggleReview: (s: ShapeReviewState) => void;
+}) {
   return (
     <section aria-label="Layers and legend" className="flex flex-col gap-1.5">
       <h2 className="text-sm font-semibold">Layers</h2>
@@ -21,6 +34,17 @@ export function Legend({ hidden, onToggle, counts }: { hidden: ReadonlySet<Marku
         ))}
       </ul>
       <p className="text-xs text-ink-400">Pads: {PAD_STATES.map((s) => PAD_STATE_STYLE[s].label).join(", ")}.</p>
+      <h3 className="mt-1 text-xs font-semibold text-ink-300">By review</h3>
+      <ul className="flex flex-col gap-1 text-xs">
+        {SHAPE_REVIEW_STATES.map((r) => (
+          <li key={r} className="flex items-center gap-2">
+            <input id={`review-layer-${r}`} type="checkbox" checked={!hiddenReview.has(r)} onChange={() => onToggleReview(r)} className="accent-kerf-500" />
+            <label htmlFor={`review-layer-${r}`} className="text-ink-200">
+              {SHAPE_REVIEW_LABELS[r]}
+            </label>
+          </li>
+        ))}
+      </ul>
     </section>
   );
 }

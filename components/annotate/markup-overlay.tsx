@@ -6,7 +6,7 @@ import type Konva from "konva";
 import { applyAffine, invertAffine } from "@/lib/geometry/affine";
 import { boundingBox } from "@/lib/geometry/measure";
 import type { Affine2x3 } from "@/lib/geometry/types";
-import type { MarkupKind } from "@/lib/markup/types";
+import type { AnyShape, MarkupKind } from "@/lib/markup/types";
 import type { ViewerApi } from "@/components/viewer";
 import type { Editor, EditorState, PointerInput } from "./editor/types";
 import { dieToScreenMatrix, screenPxPerUm } from "./render/die-to-screen";
@@ -28,6 +28,8 @@ type Props = {
   labels: boolean;
   /** Drawn between the markup and the interaction layer; a new function redraws. */
   extraDrawers?: readonly OverlayDrawer[];
+  /** Shapes to leave out besides hidden kinds (e.g. by review state). */
+  isHidden?: (s: AnyShape) => boolean;
 };
 
 function useHostSize(api: ViewerApi) {
@@ -47,14 +49,14 @@ function useHostSize(api: ViewerApi) {
  * (animating) view on every view change, so markup stays locked to the image. Pointer input is
  * converted to die µm here and handed to the editor, which owns hit testing.
  */
-export function MarkupOverlay({ api, editor, state, imageToDie, hiddenKinds, labels, extraDrawers = [] }: Props) {
+export function MarkupOverlay({ api, editor, state, imageToDie, hiddenKinds, labels, extraDrawers = [], isHidden }: Props) {
   const size = useHostSize(api);
   const layer = useRef<Konva.Layer>(null);
   const host = useRef<HTMLDivElement>(null);
   const matrix = useRef<Affine2x3>(dieToScreenMatrix(imageToDie, api.imageToScreen));
   const [spaceHeld, setSpaceHeld] = useState(false);
 
-  const visibleShapes = useMemo(() => state.shapeList.filter((s) => !hiddenKinds.has(s.kind)), [state.shapeList, hiddenKinds]);
+  const visibleShapes = useMemo(() => state.shapeList.filter((s) => !hiddenKinds.has(s.kind) && !isHidden?.(s)), [state.shapeList, hiddenKinds, isHidden]);
   const bboxes = useMemo(() => {
     const m = new Map<string, [number, number, number, number]>();
     for (const s of state.shapeList) {

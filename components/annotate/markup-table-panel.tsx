@@ -43,6 +43,7 @@ export function MarkupTablePanel({ dieId, shapes, authors, editor, canEdit, onPi
       },
       { accessorKey: "label", header: "Label", cell: (c) => <RenameCell key={`${c.row.original.id}-${c.row.original.label}`} row={c.row.original} editor={editor} canEdit={canEdit} /> },
       { id: "size", header: "Size / length", accessorFn: (r) => r.lengthUm ?? r.areaUm2 ?? 0, cell: (c) => (c.row.original.lengthUm !== null ? `${n1(c.row.original.lengthUm)} µm` : c.row.original.areaUm2 !== null ? `${c.row.original.widthUm.toFixed(1)} × ${c.row.original.heightUm.toFixed(1)} µm` : "") },
+      { accessorKey: "estimates", header: "Estimates", cell: (c) => <span className="whitespace-nowrap tabular-nums">{c.getValue() as string}</span> },
       { accessorKey: "author", header: "Author" },
       { accessorKey: "updatedAt", header: "Updated", cell: (c) => new Date(c.getValue() as string).toLocaleString() },
     ],

@@ -5,7 +5,8 @@ import { useQuery } from "@tanstack/react-query";
 import { applyAffine, invertAffine } from "@/lib/geometry/affine";
 import { boundingBox } from "@/lib/geometry/measure";
 import type { Affine2x3 } from "@/lib/geometry/types";
-import type { MarkupKind } from "@/lib/markup/types";
+import type { AnyShape, MarkupKind } from "@/lib/markup/types";
+import { reviewStates, type ShapeReviewState } from "@/lib/markup/review-state";
 import type { MemberDto } from "@/db/access/teams";
 import { apiFetch } from "@/lib/client/api";
 import type { ViewerApi } from "@/components/viewer";
@@ -13,9 +14,21 @@ import type { Editor, EditorState } from "./editor/types";
 import { isTypingTarget } from "@/components/viewer/viewer-keys";
 
 /** Shared state of the markup workspace: visibility, labels, picking (select + fly to). */
-export function useMarkupWorkspace(editor: Editor | null, state: EditorState | null, api: ViewerApi | null, transform: Affine2x3 | null, teamId: string) {
+export function useMarkupWorkspace(editor: Editor | null, state: EditorState | null, api: ViewerApi | null, transform: Affine2x3 | null, teamId: string, dieId: string) {
   const [hiddenKinds, setHidden] = useState<ReadonlySet<MarkupKind>>(new Set());
   const [labels, setLabels] = useState(true);
+  const [hiddenReview, setHiddenReview] = useState<ReadonlySet<ShapeReviewState>>(new Set());
+  const threads = useQuery({ queryKey: ["threads", dieId], queryFn: () => apiFetch<{ shapeId: string | null; status: "open" | "resolved" }[]>(`/api/dies/${dieId}/threads`) });
+  const states = useMemo(() => reviewStates(threads.data ?? []), [threads.data]);
+  const isHidden = useCallback((s: AnyShape) => hiddenReview.size > 0 && hiddenReview.has(states.get(s.id) ?? "none"), [hiddenReview, states]);
+  const toggleReview = useCallback((r: ShapeReviewState) => {
+    setHiddenReview((h) => {
+      const next = new Set(h);
+      if (next.has(r)) next.delete(r);
+      else next.add(r);
+      return next;
+    });
+  }, []);
   const members = useQuery({ queryKey: ["members", teamId], queryFn: () => apiFetch<MemberDto[]>(`/api/teams/${teamId}/members`) });
   const authors = useMemo(() => Object.fromEntries((members.data ?? []).map((m) => [m.userId, m.name])), [members.data]);
 
@@ -68,5 +81,5 @@ export function useMarkupWorkspace(editor: Editor | null, state: EditorState | n
     return c;
   }, [state?.shapeList]);
 
-  return { hiddenKinds, toggleKind, labels, setLabels, authors, pick, counts };
+  return { hiddenKinds, toggleKind, labels, setLabels, authors, pick, counts, hiddenReview, toggleReview, isHidden };
 }

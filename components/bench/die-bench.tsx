@@ -2,7 +2,7 @@
 
 import Link from "next/link";
 import { useRouter } from "next/navigation";
-import { useState } from "react";
+import { useMemo, useState } from "react";
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import type { DieDto } from "@/db/access/dies";
 import { apiFetch } from "@/lib/client/api";
@@ -29,6 +29,16 @@ import { PadTablePanel } from "@/components/annotate/pad-table-panel";
 import { MarkupTablePanel } from "@/components/annotate/markup-table-panel";
 import { useEditorState, useMarkupEditor } from "@/components/annotate/use-markup-editor";
 import { useMarkupWorkspace } from "@/components/annotate/markup-workspace";
+import { useReviewBench } from "@/components/review/use-review-bench";
+import { ReviewPanel } from "@/components/review/review-panel";
+import { EstimatesPanel } from "@/components/layout-reading/estimates-panel";
+import { SymmetryPanel } from "@/components/layout-reading/symmetry-panel";
+import { DieSummaryPanel } from "@/components/layout-reading/die-summary-panel";
+import { ExportPanel } from "@/components/export/export-panel";
+import { useSymmetryView } from "@/components/layout-reading/use-symmetry-view";
+import { CompareWorkArea } from "@/components/compare/compare-work-area";
+import { MicrographsManager } from "@/components/compare/micrographs-manager";
+import type { WorkMode } from "@/components/compare/work-mode";
 
 /** The die bench: a top bar with the die's identity, the work area, and a side panel. */
 export function DieBench({ initial, userId }: { initial: DieDto; userId: string }) {
@@ -40,12 +50,18 @@ export function DieBench({ initial, userId }: { initial: DieDto; userId: string 
   const list = micrographs.data ?? [];
   // Show the chosen micrograph, else the reference one, else the first.
   const shown = list.find((m) => m.id === selectedId) ?? list.find((m) => m.isReference) ?? list[0] ?? null;
+  // Aligning or comparing replaces the single view; markup then edits on the top micrograph.
+  const [work, setWork] = useState<WorkMode>({ kind: "view" });
+  const compareTop = work.kind === "compare" ? (list.find((m) => m.id === work.topId) ?? null) : null;
   const die = useQuery({ queryKey: ["die", initial.id], queryFn: () => apiFetch<DieDto>(`/api/dies/${initial.id}`), initialData: initial }).data;
   const editable = can(die.yourRole, "edit");
   const [api, setApi] = useState<ViewerApi | null>(null);
   const { editor, save, loadError } = useMarkupEditor(die.id, editable, userId);
   const state = useEditorState(editor);
-  const ws = useMarkupWorkspace(editor, state, api, shown?.transform ?? null, die.teamId);
+  const ws = useMarkupWorkspace(editor, state, api, (compareTop ?? shown)?.transform ?? null, die.teamId, die.id);
+  const symmetry = useSymmetryView(state?.shapeList);
+  const review = useReviewBench(die.id, state, api, shown?.transform ?? null, ws.pick);
+  const drawers = useMemo(() => [...symmetry.drawers, review.drawer], [symmetry.drawers, review.drawer]);
   const update = useMutation({
     mutationFn: (body: unknown) => apiFetch<DieDto>(`/api/dies/${die.id}`, { method: "PATCH", body }),
     onSuccess: (d) => qc.setQueryData(["die", die.id], d),
@@ -64,7 +80,7 @@ export function DieBench({ initial, userId }: { initial: DieDto; userId: string 
           <Link href={`/cases/${die.caseId}`} className="hover:text-ink-200">
             {die.caseTitle}
           </Link>{" "}
-          / <span className="text-ink-100">{die.name}</span>
+          / <h1 className="inline text-sm font-semibold text-ink-100">{die.name}</h1>
         </nav>
         <ReviewBadge status={die.reviewStatus} />
         <div className="ml-auto flex gap-2">
@@ -81,17 +97,28 @@ export function DieBench({ initial, userId }: { initial: DieDto; userId: string 
       {editor && state && <ToolBar editor={editor} state={state} save={save} />}
       <div className="flex min-h-0 flex-1">
         <section aria-label="Work area" className="relative min-w-0 flex-1 bg-ink-950">
+          {work.kind !== "view" ? (
+            <CompareWorkArea
+              work={work}
+              items={list}
+              onWork={setWork}
+              onAligned={() => qc.invalidateQueries({ queryKey: ["micrographs", die.id] })}
+              onTopViewer={setApi}
+              overlay={(a, t) => (editor && state ? <MarkupOverlay api={a} editor={editor} state={state} imageToDie={t} hiddenKinds={ws.hiddenKinds} labels={ws.labels} extraDrawers={drawers} isHidden={ws.isHidden} /> : null)}
+            />
+          ) : (
           <ViewerPane
             micrograph={shown}
             canEdit={editable}
             onViewer={setApi}
             overlay={
               api && editor && state && shown?.transform ? (
-                <MarkupOverlay api={api} editor={editor} state={state} imageToDie={shown.transform} hiddenKinds={ws.hiddenKinds} labels={ws.labels} />
+                <MarkupOverlay api={api} editor={editor} state={state} imageToDie={shown.transform} hiddenKinds={ws.hiddenKinds} labels={ws.labels} extraDrawers={drawers} isHidden={ws.isHidden} />
               ) : null
             }
           />
-          {shown && !shown.transform && (
+          )}
+          {work.kind === "view" && shown && !shown.transform && (
             <p role="status" className="absolute bottom-12 left-1/2 -translate-x-1/2 rounded bg-ink-900/95 px-3 py-1.5 text-xs text-ink-200">
               This micrograph is not in the die frame yet ({shown.scaleUmPerPx ? "align it to the reference" : "calibrate its scale"}); markup shows once it is.
             </p>
@@ -100,6 +127,7 @@ export function DieBench({ initial, userId }: { initial: DieDto; userId: string 
         </section>
         <aside aria-label="Die panel" className="flex w-96 shrink-0 flex-col border-l border-ink-800 bg-ink-900">
           <SideTabs
+            initial={review.linkedAtStart ? "review" : undefined}
             tabs={[
               {
                 id: "inspect",
@@ -107,7 +135,7 @@ export function DieBench({ initial, userId }: { initial: DieDto; userId: string 
                 content: (
                   <div className="flex flex-col gap-5">
                     {editor && state ? <Inspector editor={editor} selected={[...state.selection].map((id) => state.shapes.get(id)!).filter(Boolean)} canEdit={editable} /> : <p className="text-sm text-ink-400">Loading markup…</p>}
-                    <Legend hidden={ws.hiddenKinds} onToggle={ws.toggleKind} counts={ws.counts} />
+                    <Legend hidden={ws.hiddenKinds} onToggle={ws.toggleKind} counts={ws.counts} hiddenReview={ws.hiddenReview} onToggleReview={ws.toggleReview} />
                     <label className="flex items-center gap-2 text-xs text-ink-300">
                       <input type="checkbox" checked={ws.labels} onChange={(e) => ws.setLabels(e.target.checked)} className="accent-kerf-500" /> Show labels
                     </label>
@@ -120,6 +148,19 @@ export function DieBench({ initial, userId }: { initial: DieDto; userId: string 
                 label: "Markup",
                 content: editor && state ? <MarkupTablePanel dieId={die.id} shapes={state.shapeList} authors={ws.authors} editor={editor} canEdit={editable} onPick={ws.pick} /> : null,
               },
+              {
+                id: "estimates",
+                label: "Estimates",
+                content: editor && state ? <EstimatesPanel selected={[...state.selection].map((id) => state.shapes.get(id)!).filter(Boolean)} editor={editor} canEdit={editable} /> : null,
+              },
+              { id: "symmetry", label: "Symmetry", content: state ? <SymmetryPanel view={symmetry} shapes={state.shapeList} onPick={ws.pick} /> : null },
+              { id: "summary", label: "Summary", content: state ? <DieSummaryPanel die={die} shapes={state.shapeList} onPick={ws.pick} /> : null },
+              {
+                id: "review",
+                label: "Review",
+                content: <ReviewPanel die={die} userId={userId} review={review} state={state} api={api} transform={shown?.transform ?? null} />,
+              },
+              { id: "export", label: "Export", content: <ExportPanel die={die} micrographs={list} api={api} shownId={shown?.id} /> },
               {
                 id: "die",
                 label: "Die & micrographs",
@@ -135,8 +176,9 @@ export function DieBench({ initial, userId }: { initial: DieDto; userId: string 
                           </Button>
                         )}
                       </div>
-                      {micrographs.isPending ? <p className="text-sm text-ink-400">Loading…</p> : <MicrographList items={micrographs.data ?? []} selectedId={shown?.id ?? null} onSelect={setSelectedId} />}
+                      {micrographs.isPending ? <p className="text-sm text-ink-400">Loading…</p> : <MicrographList items={micrographs.data ?? []} selectedId={shown?.id ?? null} onSelect={(id) => { setSelectedId(id); setWork({ kind: "view" }); }} />}
                     </section>
+                    <MicrographsManager dieId={die.id} items={list} editable={editable} onWork={setWork} />
                   </div>
                 ),
               },

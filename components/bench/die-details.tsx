@@ -4,7 +4,7 @@ import type { DieDto } from "@/db/access/dies";
 export function DieDetails({ die }: { die: DieDto }) {
   return (
     <section aria-label="Die details">
-      <h1 className="text-base font-semibold">{die.name}</h1>
+      <h2 className="text-base font-semibold">{die.name}</h2>
       <dl className="mt-3 grid grid-cols-2 gap-3 text-sm">
         <div>
           <dt className="text-xs uppercase text-ink-400">Width</dt>

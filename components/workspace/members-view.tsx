@@ -9,6 +9,7 @@ import { ROLES, ROLE_LABELS, can, type TeamRole } from "@/lib/auth/permissions";
 import { Button } from "@/components/ui/button";
 import { ConfirmDialog } from "@/components/ui/confirm-dialog";
 import { DataTable } from "@/components/ui/data-table";
+import { InvitationsSection } from "@/components/review/invitations-section";
 
 /** A team's members; the owner changes roles and removes members here. */
 export function MembersView({ team, myUserId }: { team: { id: string; name: string; yourRole: TeamRole }; myUserId: string }) {
@@ -75,6 +76,7 @@ export function MembersView({ team, myUserId }: { team: { id: string; name: stri
       </div>
       {members.isPending && <p className="text-sm text-ink-400">Loading members…</p>}
       {members.data && <DataTable data={members.data} columns={columns} filterLabel="Filter members" empty="No members." />}
+      {manage && <InvitationsSection teamId={team.id} />}
       <ConfirmDialog
         open={!!removing}
         title="Remove this member?"

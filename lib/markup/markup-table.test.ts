@@ -87,6 +87,7 @@ describe("markupTableRows", () => {
       yUm: -3,
       author: "Demo Analyst",
       updatedAt: T,
+      estimates: "",
     });
   });
 
@@ -114,10 +115,10 @@ describe("markupTableCsv", () => {
 
   it("quotes labels holding commas, quotes or line breaks and rounds to 3 decimals", () => {
     const lines = csv.split("\r\n");
-    expect(lines[0]).toBe("id,kind,label,length_um,area_um2,width_um,height_um,x_um,y_um,author,updated_at");
-    expect(lines[1]).toBe(`pad-1,pad,"VB1, ""bias""",,4800,80,60,140,230,Demo Analyst,${T}`);
+    expect(lines[0]).toBe("id,kind,label,length_um,area_um2,width_um,height_um,x_um,y_um,author,updated_at,estimates");
+    expect(lines[1]).toBe(`pad-1,pad,"VB1, ""bias""",,4800,80,60,140,230,Demo Analyst,${T},`);
     // 472000 / 9600 = 49.1666…, 3 decimals → 49.167 (ECMA-262 Number.prototype.toFixed).
-    expect(lines[3]).toBe(`outline-1,die_outline,,,9600,100,100,49.167,49.167,Demo Analyst,${T}`);
+    expect(lines[3]).toBe(`outline-1,die_outline,,,9600,100,100,49.167,49.167,Demo Analyst,${T},`);
     expect(csv.endsWith("\r\n")).toBe(true);
   });
 });

@@ -1,4 +1,5 @@
 import { boundingBox, geometryCentre, polygonArea, polylineLength } from "@/lib/geometry/measure";
+import { summariseSavedEstimates } from "@/lib/layout-reading/saved-estimates";
 import { csvCell, csvLines } from "./csv";
 import type { AnyShape, MarkupKind } from "./types";
 
@@ -21,6 +22,8 @@ export type MarkupTableRow = {
   /** The name of who drew the shape; empty when unknown (account removed). */
   readonly author: string;
   readonly updatedAt: string;
+  /** Estimates saved on the shape, summarised ("L 0.865 nH · Z0 49.8 Ω (microstrip)"); empty when none. */
+  readonly estimates: string;
 };
 
 function text(value: unknown): string {
@@ -60,6 +63,7 @@ export function markupTableRows(shapes: readonly AnyShape[], authors: Readonly<R
       yUm,
       author: shape.createdBy ? (authors[shape.createdBy] ?? "") : "",
       updatedAt: shape.updatedAt,
+      estimates: summariseSavedEstimates(shape.properties),
     };
   });
 }
@@ -76,6 +80,7 @@ const COLUMNS: readonly { header: string; value: (r: MarkupTableRow) => string |
   { header: "y_um", value: (r) => r.yUm },
   { header: "author", value: (r) => r.author },
   { header: "updated_at", value: (r) => r.updatedAt },
+  { header: "estimates", value: (r) => r.estimates },
 ];
 
 /** The CSV header of the markup table, in column order. */

@@ -18,6 +18,14 @@ const schema = z.object({
     .optional()
     .or(z.literal("").transform(() => undefined)),
   SMTP_URL: z.string().optional().or(z.literal("").transform(() => undefined)),
+  /** Port of the local fake mail server (only when SMTP_URL is unset); 0 = any free port. */
+  KERFLINE_SMTP_PORT: z.coerce.number().int().min(0).max(65535).default(0),
+  /** First retry delay of the mail outbox; later ones double (tests shorten it). */
+  KERFLINE_MAIL_RETRY_MS: z.coerce.number().int().positive().default(30_000),
+  /** How often the outbox sender looks for due mail. */
+  KERFLINE_MAIL_POLL_MS: z.coerce.number().int().positive().default(2_000),
+  /** How long an invitation link stays valid (7 days unless a test shortens it). */
+  KERFLINE_INVITATION_TTL_SECONDS: z.coerce.number().int().positive().default(7 * 24 * 3600),
   KERFLINE_PUBLIC_URL: z.string().url().optional(),
   /** demo: records and rendered micrographs; demo-records: records only (fast test servers); none. */
   KERFLINE_SEED: z.enum(["demo", "demo-records", "none"]).default("demo"),

@@ -4,6 +4,7 @@ import { DataDirLockedError } from "@/db/data-dir-lock";
 import { env } from "./env";
 import { requeueOrphanedJobs } from "./jobs/queue";
 import { startTilingWorkers } from "./jobs/tiling";
+import { startExportWorker } from "./jobs/export";
 
 /**
  * Runs once per server process before the first request: opens the database (taking the data
@@ -20,6 +21,9 @@ export async function startServer(): Promise<void> {
       if (requeued) console.log(`[kerfline] picked up ${requeued} job(s) left running by an earlier stop`);
     }
     startTilingWorkers(opened.db);
+    startExportWorker(opened.db);
+    const { startMail } = await import("./mail/start-mail");
+    await startMail(opened.db);
     const seed = env().KERFLINE_SEED;
     if (seed !== "none") {
       const { seedDemo } = await import("@/db/seed");

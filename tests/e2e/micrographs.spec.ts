@@ -21,6 +21,7 @@ test("the analyst uploads a micrograph, sees both progress bars, zooms, and the 
   await cdp.send("Network.enable");
   await cdp.send("Network.emulateNetworkConditions", { offline: false, latency: 0, downloadThroughput: -1, uploadThroughput: 1.5 * 1024 * 1024 });
 
+  await page.getByRole("tab", { name: "Die & micrographs" }).click();
   await page.getByRole("button", { name: "Upload micrograph" }).click();
   const dialog = page.getByRole("dialog", { name: "Upload a micrograph" });
   await dialog.getByLabel(/Micrograph file/).setInputFiles(file);
@@ -82,6 +83,7 @@ test("the seeded demo micrographs are listed with illumination and scale, and a 
   await signInAs(page, "viewer");
   await page.getByRole("link", { name: "NV-24R receiver teardown" }).click();
   await page.getByRole("link", { name: "NV-24R die A" }).click();
+  await page.getByRole("tab", { name: "Die & micrographs" }).click();
   const list = page.getByRole("list", { name: "Micrographs" });
   await expect(list.getByText(/NV-24R 10x bright field/)).toBeVisible();
   await expect(list.getByText(/Dark field · 12000×/)).toBeVisible();

@@ -1,0 +1,10 @@
+import { z } from "zod";
+import { apiRoute } from "@/lib/server/route";
+import { listActivity } from "@/db/access/activity";
+import { uuidSchema } from "@/lib/validation/common";
+import { activityQuerySchema } from "@/lib/validation/review";
+
+/** `{ items, nextBefore }`, newest first; pass `?before=<nextBefore>` for the next page. */
+export const GET = apiRoute({ params: z.object({ dieId: uuidSchema }), query: activityQuerySchema }, ({ db, actor, params, query }) =>
+  listActivity(db, actor, params.dieId, query),
+);

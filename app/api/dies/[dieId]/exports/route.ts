@@ -1,0 +1,18 @@
+import { z } from "zod";
+import { apiRoute } from "@/lib/server/route";
+import { createExport, listExports } from "@/db/access/exports";
+import { notifyJobs } from "@/lib/server/jobs/queue";
+import { uuidSchema } from "@/lib/validation/common";
+import { exportRequestSchema } from "@/lib/validation/exports";
+
+const params = z.object({ dieId: uuidSchema });
+
+/** Queues an annotated PNG export (any member); 202 with the export to poll. */
+export const POST = apiRoute({ params, body: exportRequestSchema }, async ({ db, actor, params, body }) => {
+  const created = await createExport(db, actor, params.dieId, body);
+  notifyJobs();
+  return Response.json(created, { status: 202, headers: { Location: `/api/exports/${created.id}` } });
+});
+
+/** The die's recent exports, newest first. */
+export const GET = apiRoute({ params }, async ({ db, actor, params }) => listExports(db, actor, params.dieId));

@@ -1,0 +1,7 @@
+import { z } from "zod";
+import { apiRoute } from "@/lib/server/route";
+import { setThreadStatus } from "@/db/access/threads";
+import { uuidSchema } from "@/lib/validation/common";
+
+/** Resolves the thread (409 when it already is); the answer says who resolved it and when. */
+export const POST = apiRoute({ params: z.object({ threadId: uuidSchema }) }, ({ db, actor, params }) => setThreadStatus(db, actor, params.threadId, "resolved"));

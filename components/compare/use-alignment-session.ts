@@ -1,0 +1,85 @@
+"use client";
+
+import { useEffect, useState } from "react";
+import { useQuery } from "@tanstack/react-query";
+import type { AlignmentDto } from "@/db/access/alignment";
+import { apiFetch } from "@/lib/client/api";
+import { applyAffine, invertAffine } from "@/lib/geometry/affine";
+import type { Affine2x3 } from "@/lib/geometry/types";
+import { MIN_PAIRS, type AlignmentModel } from "@/lib/alignment/fit";
+
+/** One pair being placed: a point on the new micrograph and the same feature on the aligned one. */
+export type SessionPair = { imagePx: [number, number]; fixedPx: [number, number] };
+export type Solve = { transform: Affine2x3; residualsUm: number[]; rmsUm: number; worstIndex: number };
+
+/**
+ * The state of an alignment: pairs (re-opened from the stored control points), the point waiting
+ * for its partner, model and mirrored flag, and a live dry-run solve on every change. Die µm of
+ * each pair come from the aligned micrograph's transform.
+ */
+export function useAlignmentSession(movingId: string, fixedToDie: Affine2x3) {
+  const stored = useQuery({ queryKey: ["alignment", movingId], queryFn: () => apiFetch<AlignmentDto>(`/api/micrographs/${movingId}/alignment`) });
+  const [pairs, setPairs] = useState<SessionPair[] | null>(null);
+  const [pending, setPending] = useState<[number, number] | null>(null);
+  const [model, setModel] = useState<AlignmentModel>("similarity");
+  const [mirrored, setMirrored] = useState(false);
+  const [solve, setSolve] = useState<Solve | null>(null);
+  const [error, setError] = useState<string | null>(null);
+
+  useEffect(() => {
+    if (!stored.data || pairs) return;
+    const back = invertAffine(fixedToDie);
+    setPairs(stored.data.pairs.map((p) => ({ imagePx: p.imagePx, fixedPx: applyAffine(back, p.dieUm[0], p.dieUm[1]) })));
+    if (stored.data.model) setModel(stored.data.model);
+    setMirrored(stored.data.mirrored);
+  }, [stored.data, pairs, fixedToDie]);
+
+  const list = pairs ?? [];
+  const body = { model, mirrored, pairs: list.map((p) => ({ imagePx: p.imagePx, dieUm: applyAffine(fixedToDie, p.fixedPx[0], p.fixedPx[1]) })) };
+  const key = JSON.stringify(body);
+  useEffect(() => {
+    setError(null);
+    if (list.length < MIN_PAIRS[model]) {
+      setSolve(null);
+      return;
+    }
+    const ctrl = { stale: false };
+    const t = setTimeout(async () => {
+      try {
+        const r = await apiFetch<Solve>(`/api/micrographs/${movingId}/alignment/preview`, { method: "POST", body: JSON.parse(key) });
+        if (!ctrl.stale) setSolve(r);
+      } catch (e) {
+        if (!ctrl.stale) {
+          setSolve(null);
+          setError((e as Error).message);
+        }
+      }
+    }, 120);
+    return () => {
+      ctrl.stale = true;
+      clearTimeout(t);
+    };
+  }, [key, movingId]); // eslint-disable-line react-hooks/exhaustive-deps
+
+  return {
+    loading: !pairs,
+    pairs: list,
+    pending,
+    model,
+    mirrored,
+    solve,
+    error,
+    body,
+    setModel,
+    setMirrored,
+    pickLeft: (p: [number, number]) => setPending(p),
+    pickRight: (p: [number, number]) => {
+      if (!pending) return;
+      setPairs([...list, { imagePx: pending, fixedPx: p }]);
+      setPending(null);
+    },
+    move: (i: number, side: "left" | "right", p: [number, number]) => setPairs(list.map((q, k) => (k !== i ? q : side === "left" ? { ...q, imagePx: p } : { ...q, fixedPx: p }))),
+    remove: (i: number) => setPairs(list.filter((_, k) => k !== i)),
+    cancelPending: () => setPending(null),
+  };
+}

@@ -1,0 +1,138 @@
+"use client";
+
+import { useMemo, useState } from "react";
+import { useQuery } from "@tanstack/react-query";
+import { apiFetch } from "@/lib/client/api";
+import { can } from "@/lib/auth/permissions";
+import { boundingBox } from "@/lib/geometry/measure";
+import { Button } from "@/components/ui/button";
+import type { DieDto } from "@/db/access/dies";
+import type { MemberDto } from "@/db/access/teams";
+import type { ViewerApi } from "@/components/viewer";
+import type { Affine2x3 } from "@/lib/geometry/types";
+import type { EditorState } from "@/components/annotate/editor/types";
+import { ReplyBox } from "./reply-box";
+import { ThreadView } from "./thread-view";
+import { ReviewStatusPanel } from "./review-status-panel";
+import { ActivityList } from "./activity-list";
+import { viewBoxUm, type ReviewBench } from "./use-review-bench";
+
+type Filter = "all" | "open" | "resolved" | "mine" | "mentions";
+const FILTERS: { id: Filter; label: string }[] = [
+  { id: "all", label: "All" },
+  { id: "open", label: "Open" },
+  { id: "resolved", label: "Resolved" },
+  { id: "mine", label: "Mine" },
+  { id: "mentions", label: "Mentioning me" },
+];
+
+const boxPolygon = (b: { minX: number; minY: number; maxX: number; maxY: number }) => ({
+  type: "Polygon",
+  coordinates: [[[b.minX, b.minY], [b.maxX, b.minY], [b.maxX, b.maxY], [b.minX, b.maxY], [b.minX, b.minY]]],
+});
+
+/** The Review tab: review status, threads with filters, one thread, starting threads, activity. */
+export function ReviewPanel({ die, userId, review, state, api, transform }: {
+  die: DieDto;
+  userId: string;
+  review: ReviewBench;
+  state: EditorState | null;
+  api: ViewerApi | null;
+  transform: Affine2x3 | null;
+}) {
+  const [filter, setFilter] = useState<Filter>("all");
+  const [starting, setStarting] = useState<null | "shape" | "region">(null);
+  const members = useQuery({ queryKey: ["members", die.teamId], queryFn: () => apiFetch<MemberDto[]>(`/api/teams/${die.teamId}/members`) }).data ?? [];
+  const canComment = can(die.yourRole, "comment");
+  const selection = [...(state?.selection ?? [])];
+  const list = review.list;
+  const shown = useMemo(
+    () =>
+      list.filter((t) => {
+        if (filter === "open" || filter === "resolved") return t.status === filter;
+        if (filter === "mine") return t.createdBy === userId || t.comments.some((c) => c.authorId === userId);
+        if (filter === "mentions") return t.comments.some((c) => c.mentions.includes(userId));
+        return true;
+      }),
+    [list, filter, userId],
+  );
+  const selected = list.find((t) => t.id === review.selectedId);
+  if (selected) {
+    return <ThreadView thread={selected} number={list.indexOf(selected) + 1} members={members} userId={userId} canComment={canComment} api={review.threads} onBack={() => review.select(null)} />;
+  }
+
+  const regionBox = () => {
+    const shapes = selection.map((id) => state?.shapes.get(id)).filter((s) => !!s);
+    if (shapes.length) {
+      const boxes = shapes.map((s) => boundingBox(s!.geometry));
+      return { minX: Math.min(...boxes.map((b) => b.minX)), minY: Math.min(...boxes.map((b) => b.minY)), maxX: Math.max(...boxes.map((b) => b.maxX)), maxY: Math.max(...boxes.map((b) => b.maxY)) };
+    }
+    return api && transform ? viewBoxUm(api, transform) : null;
+  };
+
+  const startThread = async (body: string) => {
+    if (starting === "shape") {
+      const t = await review.threads.start.mutateAsync({ shapeId: selection[0], body });
+      review.select(t.id);
+    } else {
+      const b = regionBox();
+      if (!b) throw new Error("Open a micrograph in the die frame first.");
+      const t = await review.threads.start.mutateAsync({ region: boxPolygon(b), body });
+      review.select(t.id);
+    }
+    setStarting(null);
+  };
+
+  return (
+    <div className="flex flex-col gap-5">
+      <ReviewStatusPanel die={die} userId={userId} />
+      <section aria-label="Threads" className="flex flex-col gap-2">
+        <h2 className="text-sm font-semibold">Threads</h2>
+        {canComment && !starting && (
+          <div className="flex flex-wrap gap-2">
+            <Button disabled={selection.length !== 1} onClick={() => setStarting("shape")} title="Select one shape first">
+              Start thread on selection
+            </Button>
+            <Button onClick={() => setStarting("region")}>Start thread on a region</Button>
+          </div>
+        )}
+        {starting && (
+          <ReplyBox
+            members={members}
+            label={starting === "shape" ? "First comment on the selected shape" : selection.length ? "First comment on the selection's area" : "First comment on the area in view"}
+            submitLabel="Start thread"
+            onSubmit={startThread}
+            onCancel={() => setStarting(null)}
+          />
+        )}
+        <div role="group" aria-label="Filter threads" className="flex flex-wrap gap-1">
+          {FILTERS.map((f) => (
+            <button key={f.id} aria-pressed={filter === f.id} onClick={() => setFilter(f.id)} className={`rounded px-2 py-0.5 text-xs ${filter === f.id ? "bg-kerf-600/40 text-ink-100" : "bg-ink-800 text-ink-300"}`}>
+              {f.label}
+            </button>
+          ))}
+        </div>
+        {review.threads.threads.isPending ? (
+          <p className="text-sm text-ink-400">Loading threads…</p>
+        ) : shown.length === 0 ? (
+          <p className="text-sm text-ink-400">No threads here.</p>
+        ) : (
+          <ul className="flex flex-col gap-1">
+            {shown.map((t) => (
+              <li key={t.id}>
+                <button onClick={() => review.select(t.id)} className="w-full rounded-md border border-ink-800 p-2 text-left hover:bg-ink-800">
+                  <span className="text-xs text-ink-400">
+                    #{list.indexOf(t) + 1} · {t.status === "open" ? "open" : "resolved"} · {t.comments.length} comment{t.comments.length === 1 ? "" : "s"}
+                    {t.orphaned && " · shape deleted"}
+                  </span>
+                  <span className="block truncate text-sm text-ink-100">{t.comments[0]?.body ?? "(no comments)"}</span>
+                </button>
+              </li>
+            ))}
+          </ul>
+        )}
+      </section>
+      <ActivityList dieId={die.id} />
+    </div>
+  );
+}

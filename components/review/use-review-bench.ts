@@ -1,0 +1,78 @@
+"use client";
+
+import { useCallback, useEffect, useMemo, useRef, useState } from "react";
+import { applyAffine, invertAffine } from "@/lib/geometry/affine";
+import { boundingBox, type BoundingBox } from "@/lib/geometry/measure";
+import type { Affine2x3 } from "@/lib/geometry/types";
+import type { ViewerApi } from "@/components/viewer";
+import type { EditorState } from "@/components/annotate/editor/types";
+import { threadPinsDrawer } from "./thread-pins";
+import { useThreads } from "./use-threads";
+
+/** The thread named in the page's address (`?thread=`), read once. */
+function threadInAddress(): string | null {
+  if (typeof window === "undefined") return null;
+  return new URLSearchParams(window.location.search).get("thread");
+}
+
+/** Animates the viewer to a die-µm box with room around it. */
+export function flyToDieBox(api: ViewerApi, transform: Affine2x3, b: BoundingBox) {
+  const inv = invertAffine(transform);
+  const p = [applyAffine(inv, b.minX, b.minY), applyAffine(inv, b.maxX, b.maxY)];
+  const x0 = Math.min(p[0][0], p[1][0]);
+  const y0 = Math.min(p[0][1], p[1][1]);
+  const w = Math.abs(p[1][0] - p[0][0]);
+  const h = Math.abs(p[1][1] - p[0][1]);
+  const pad = Math.max(w, h, 40) * 2;
+  api.flyToImageRect(x0 - pad, y0 - pad, w + 2 * pad, h + 2 * pad);
+}
+
+/** The die area in view, in die µm (for a thread on a region when nothing is selected). */
+export function viewBoxUm(api: ViewerApi, transform: Affine2x3): BoundingBox {
+  const el = api.viewer.element as HTMLElement;
+  const corners = [
+    [0, 0],
+    [el.clientWidth, el.clientHeight],
+  ].map(([x, y]) => {
+    const img = api.screenToImage(x, y);
+    return applyAffine(transform, img.x, img.y);
+  });
+  return { minX: Math.min(corners[0][0], corners[1][0]), minY: Math.min(corners[0][1], corners[1][1]), maxX: Math.max(corners[0][0], corners[1][0]), maxY: Math.max(corners[0][1], corners[1][1]) };
+}
+
+/**
+ * Review state of the die bench: the threads, which one is open, its pins on the canvas, and
+ * selecting a thread (flies to its anchor and selects its shape when the shape still exists).
+ */
+export function useReviewBench(dieId: string, state: EditorState | null, api: ViewerApi | null, transform: Affine2x3 | null, pick: (id: string) => void) {
+  const threads = useThreads(dieId);
+  const [selectedId, setSelectedId] = useState<string | null>(() => threadInAddress());
+  const list = useMemo(() => threads.threads.data ?? [], [threads.threads.data]);
+  const drawer = useMemo(() => threadPinsDrawer(list, selectedId), [list, selectedId]);
+
+  const select = useCallback(
+    (id: string | null) => {
+      setSelectedId(id);
+      const t = list.find((x) => x.id === id);
+      if (!t) return;
+      if (t.shapeId && state?.shapes.has(t.shapeId)) pick(t.shapeId);
+      else if (api && transform) flyToDieBox(api, transform, boundingBox(t.anchor));
+    },
+    [list, state, api, transform, pick],
+  );
+
+  // A deep link opens the die zoomed to its thread once the viewer, the markup and the threads are in.
+  const linked = useRef(threadInAddress());
+  useEffect(() => {
+    const id = linked.current;
+    if (!id || !api || !transform || !state || !list.some((t) => t.id === id)) return;
+    linked.current = null;
+    // Let the viewer settle on its first view before flying.
+    const timer = setTimeout(() => select(id), 300);
+    return () => clearTimeout(timer);
+  }, [api, transform, state, list, select]);
+
+  return { threads, list, selectedId, select, drawer, linkedAtStart: threadInAddress() !== null };
+}
+
+export type ReviewBench = ReturnType<typeof useReviewBench>;

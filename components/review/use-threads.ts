@@ -1,0 +1,27 @@
+"use client";
+
+import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
+import { apiFetch } from "@/lib/client/api";
+import type { ThreadDto } from "@/db/access/threads";
+
+/** The die's threads and the mutations on them; every change refreshes the list. */
+export function useThreads(dieId: string) {
+  const qc = useQueryClient();
+  const key = ["threads", dieId];
+  const threads = useQuery({ queryKey: key, queryFn: () => apiFetch<ThreadDto[]>(`/api/dies/${dieId}/threads`) });
+  const refresh = () => {
+    void qc.invalidateQueries({ queryKey: key });
+    void qc.invalidateQueries({ queryKey: ["activity", dieId] });
+  };
+  const start = useMutation({
+    mutationFn: (body: { shapeId: string; body: string } | { region: unknown; body: string }) => apiFetch<ThreadDto>(`/api/dies/${dieId}/threads`, { method: "POST", body }),
+    onSuccess: refresh,
+  });
+  const reply = useMutation({ mutationFn: (p: { threadId: string; body: string }) => apiFetch(`/api/threads/${p.threadId}/comments`, { method: "POST", body: { body: p.body } }), onSuccess: refresh });
+  const setStatus = useMutation({ mutationFn: (p: { threadId: string; resolve: boolean }) => apiFetch(`/api/threads/${p.threadId}/${p.resolve ? "resolve" : "reopen"}`, { method: "POST" }), onSuccess: refresh });
+  const edit = useMutation({ mutationFn: (p: { commentId: string; body: string }) => apiFetch(`/api/comments/${p.commentId}`, { method: "PATCH", body: { body: p.body } }), onSuccess: refresh });
+  const remove = useMutation({ mutationFn: (commentId: string) => apiFetch(`/api/comments/${commentId}`, { method: "DELETE" }), onSuccess: refresh });
+  return { threads, start, reply, setStatus, edit, remove };
+}
+
+export type ThreadsApi = ReturnType<typeof useThreads>;

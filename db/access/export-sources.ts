@@ -1,0 +1,85 @@
+import "server-only";
+import { and, asc, eq } from "drizzle-orm";
+import { cases, dies, markup, micrographs, threads, users, type MicrographRow } from "../schema";
+import type { Db } from "./context";
+import { polygonCentroid } from "@/lib/geometry/measure";
+import type { Affine2x3, Geometry, Position } from "@/lib/geometry/types";
+import type { AnyShape, MarkupKind } from "@/lib/markup/types";
+import type { ThreadMark } from "@/lib/export/markup-svg";
+import type { TitleBlock } from "@/lib/export/footer-svg";
+import { ILLUMINATION_LABELS } from "@/lib/validation/micrographs";
+
+/** Everything an export of one die needs, read after the caller was authorized. */
+export type DieSources = {
+  die: { id: string; name: string; widthUm: number | null; heightUm: number | null; reviewStatus: string; notes: string; analystName: string | null };
+  caseRow: { title: string; partMarking: string; package: string; sampleId: string };
+  shapes: AnyShape[];
+};
+
+/** The die, its case and its markup in creation order (no authorization: callers check first). */
+export async function loadDieSources(db: Db, dieId: string): Promise<DieSources | null> {
+  const [found] = await db
+    .select({ die: dies, c: cases, analystName: users.name })
+    .from(dies)
+    .innerJoin(cases, eq(cases.id, dies.caseId))
+    .leftJoin(users, eq(users.id, dies.analystId))
+    .where(eq(dies.id, dieId));
+  if (!found) return null;
+  const rows = await db.select().from(markup).where(eq(markup.dieId, dieId)).orderBy(asc(markup.seq));
+  const shapes = rows.map((r) => ({ id: r.id, kind: r.kind, geometry: r.geometry, properties: r.properties, version: r.version, createdBy: r.createdBy, updatedAt: r.updatedAt.toISOString() }) as AnyShape);
+  const d = found.die;
+  return {
+    die: { id: d.id, name: d.name, widthUm: d.widthUm, heightUm: d.heightUm, reviewStatus: d.reviewStatus, notes: d.notes, analystName: found.analystName },
+    caseRow: { title: found.c.title, partMarking: found.c.partMarking, package: found.c.package, sampleId: found.c.sampleId },
+    shapes,
+  };
+}
+
+/** A micrograph of the die (or null when it is not one of the die's). */
+export async function loadDieMicrograph(db: Db, dieId: string, micrographId: string): Promise<MicrographRow | null> {
+  const [row] = await db.select().from(micrographs).where(and(eq(micrographs.id, micrographId), eq(micrographs.dieId, dieId)));
+  return row ?? null;
+}
+
+function anchorPoint(anchor: unknown): Position | null {
+  const g = anchor as Geometry | null;
+  if (g?.type === "Point") return g.coordinates;
+  if (g?.type === "Polygon") return polygonCentroid(g);
+  return null;
+}
+
+/** The die's review threads as numbered markers, oldest first. */
+export async function loadThreadMarks(db: Db, dieId: string): Promise<ThreadMark[]> {
+  const rows = await db.select({ anchor: threads.anchor, status: threads.status }).from(threads).where(eq(threads.dieId, dieId)).orderBy(asc(threads.createdAt));
+  return rows.flatMap((r, i) => {
+    const at = anchorPoint(r.anchor);
+    return at ? [{ at, open: r.status === "open", number: i + 1 }] : [];
+  });
+}
+
+/** Only the shapes of the chosen kinds (all when none are chosen). */
+export function shapesOfKinds(shapes: readonly AnyShape[], kinds?: readonly MarkupKind[]): AnyShape[] {
+  if (!kinds) return [...shapes];
+  const keep = new Set(kinds);
+  return shapes.filter((s) => keep.has(s.kind));
+}
+
+/** The title block of an export of this micrograph, dated today (UTC). */
+export function titleBlockFor(src: DieSources, m: MicrographRow, umPerPx: number, author: string, date = new Date()): TitleBlock {
+  return {
+    caseTitle: src.caseRow.title,
+    dieName: src.die.name,
+    micrograph: m.label,
+    illumination: ILLUMINATION_LABELS[m.illumination],
+    umPerPx,
+    date: date.toISOString().slice(0, 10),
+    author,
+    reviewStatus: src.die.reviewStatus.replace(/_/g, " "),
+  };
+}
+
+/** The micrograph's size and transform as the planner takes them, or null when not in the die frame. */
+export function sourceImageOf(m: MicrographRow): { width: number; height: number; transform: Affine2x3 } | null {
+  if (!m.transform || !m.width || !m.height) return null;
+  return { width: m.width, height: m.height, transform: m.transform };
+}

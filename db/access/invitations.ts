@@ -1,0 +1,119 @@
+import "server-only";
+import { and, desc, eq, gt, isNull, sql } from "drizzle-orm";
+import { invitations, memberships, teams, users, type InvitationRow } from "../schema";
+import { authorize, type Actor, type Db } from "./context";
+import { recordAudit } from "./audit";
+import { enqueueMail } from "./notify";
+import { findUserByEmail, hashPassword } from "./users";
+import { AppError, BadRequestError, ConflictError, NotFoundError } from "@/lib/server/errors";
+import { hashInvitationToken, invitationState, newInvitationToken, type InvitationState } from "@/lib/review/invitation-token";
+import { invitationMail } from "@/lib/review/mail-templates";
+import { ROLE_LABELS, type TeamRole } from "@/lib/auth/permissions";
+import { env } from "@/lib/server/env";
+
+export type InvitationDto = { id: string; email: string; role: TeamRole; invitedBy: string | null; expiresAt: string; createdAt: string };
+
+const toDto = (r: InvitationRow): InvitationDto => ({ id: r.id, email: r.email, role: r.role, invitedBy: r.invitedBy, expiresAt: r.expiresAt.toISOString(), createdAt: r.createdAt.toISOString() });
+
+const pending = (now: Date) => and(isNull(invitations.acceptedAt), isNull(invitations.revokedAt), gt(invitations.expiresAt, now));
+
+/** Invites someone by e-mail with a role (owner only); the link goes out by mail only. */
+export async function createInvitation(db: Db, actor: Actor, teamId: string, input: { email: string; role: TeamRole }, origin: string): Promise<InvitationDto> {
+  return db.transaction(async (tx) => {
+    await authorize(tx, actor, teamId, "manage_team", "That team");
+    const existing = await findUserByEmail(tx, input.email);
+    if (existing) {
+      const [member] = await tx.select().from(memberships).where(and(eq(memberships.teamId, teamId), eq(memberships.userId, existing.id)));
+      if (member) throw new ConflictError(`${input.email} is already a member of this team.`);
+    }
+    const now = new Date();
+    // A new invitation replaces an earlier pending one to the same address.
+    await tx.update(invitations).set({ revokedAt: now }).where(and(eq(invitations.teamId, teamId), sql`lower(${invitations.email}) = ${input.email}`, pending(now)));
+    const token = newInvitationToken();
+    const expiresAt = new Date(now.getTime() + env().KERFLINE_INVITATION_TTL_SECONDS * 1000);
+    const [row] = await tx.insert(invitations).values({ teamId, email: input.email, role: input.role, tokenHash: hashInvitationToken(token), invitedBy: actor.userId, expiresAt }).returning();
+    const [team] = await tx.select({ name: teams.name }).from(teams).where(eq(teams.id, teamId));
+    const [me] = await tx.select({ name: users.name }).from(users).where(eq(users.id, actor.userId));
+    const content = invitationMail({ inviter: me?.name ?? "A team owner", teamName: team.name, role: ROLE_LABELS[input.role].toLowerCase(), link: `${origin}/invitations/${token}`, expiresAt });
+    await enqueueMail(tx, { teamId, kind: "invitation", to: input.email, content, dedupeKey: `invitation:${row.id}` });
+    await recordAudit(tx, actor, { teamId, action: "invitation.created", entityType: "invitation", entityId: row.id, after: toDto(row) });
+    return toDto(row);
+  });
+}
+
+/** Pending invitations of a team, newest first (owner only). */
+export async function listInvitations(db: Db, actor: Actor, teamId: string): Promise<InvitationDto[]> {
+  await authorize(db, actor, teamId, "manage_team", "That team");
+  const rows = await db.select().from(invitations).where(and(eq(invitations.teamId, teamId), pending(new Date()))).orderBy(desc(invitations.createdAt));
+  return rows.map(toDto);
+}
+
+/** Revokes a pending invitation (owner only); its link stops working at once. */
+export async function revokeInvitation(db: Db, actor: Actor, teamId: string, invitationId: string): Promise<void> {
+  await db.transaction(async (tx) => {
+    await authorize(tx, actor, teamId, "manage_team", "That team");
+    const [row] = await tx.update(invitations).set({ revokedAt: new Date() }).where(and(eq(invitations.id, invitationId), eq(invitations.teamId, teamId), pending(new Date()))).returning();
+    if (!row) throw new NotFoundError("That pending invitation");
+    await recordAudit(tx, actor, { teamId, action: "invitation.revoked", entityType: "invitation", entityId: row.id, before: toDto(row) });
+  });
+}
+
+export type InvitationView = { state: InvitationState; teamName: string; email: string; role: TeamRole; accountExists: boolean };
+
+/** What the invitation page shows for a token (no sign-in needed: the token is the proof). */
+export async function viewInvitation(db: Db, token: string): Promise<InvitationView> {
+  const [row] = await db
+    .select({ inv: invitations, teamName: teams.name })
+    .from(invitations)
+    .innerJoin(teams, eq(teams.id, invitations.teamId))
+    .where(eq(invitations.tokenHash, hashInvitationToken(token)));
+  if (!row) throw new NotFoundError("That invitation");
+  return { state: invitationState(row.inv, new Date()), teamName: row.teamName, email: row.inv.email, role: row.inv.role, accountExists: !!(await findUserByEmail(db, row.inv.email)) };
+}
+
+const GONE: Record<Exclude<InvitationState, "pending">, string> = {
+  accepted: "This invitation link has already been used.",
+  revoked: "This invitation was revoked by the team's owner.",
+  expired: "This invitation has expired; ask the team's owner for a new one.",
+};
+
+async function join(db: Db, inv: InvitationRow, userId: string) {
+  await db.insert(memberships).values({ teamId: inv.teamId, userId, role: inv.role }).onConflictDoNothing();
+  await recordAudit(db, { userId }, { teamId: inv.teamId, action: "invitation.accepted", entityType: "invitation", entityId: inv.id, after: { userId, role: inv.role } });
+}
+
+/**
+ * Accepts an invitation once: a new person sets name and password; someone with an account
+ * must be signed in as the invited address. Claiming is one UPDATE … WHERE not used, so two
+ * uses of the same link cannot both succeed.
+ */
+export async function acceptInvitation(db: Db, caller: Actor | null, input: { token: string; name?: string; password?: string }): Promise<{ teamId: string; email: string }> {
+  return db.transaction(async (tx) => {
+    const hash = hashInvitationToken(input.token);
+    const [found] = await tx.select().from(invitations).where(eq(invitations.tokenHash, hash));
+    if (!found) throw new NotFoundError("That invitation");
+    const state = invitationState(found, new Date());
+    if (state !== "pending") throw new AppError(410, GONE[state]);
+    const existing = await findUserByEmail(tx, found.email);
+    if (existing && caller?.userId !== existing.id) throw new ConflictError(`An account for ${found.email} already exists: sign in with it and the invitation is accepted.`);
+    if (!existing && (!input.name || !input.password)) throw new BadRequestError("Invalid body: name and password are required to create your account.");
+    const userId = existing?.id ?? (await tx.insert(users).values({ email: found.email, name: input.name!, passwordHash: await hashPassword(input.password!) }).returning())[0].id;
+    const [claimed] = await tx.update(invitations).set({ acceptedAt: new Date(), acceptedBy: userId }).where(and(eq(invitations.id, found.id), pending(new Date()))).returning();
+    if (!claimed) throw new AppError(410, GONE.accepted);
+    await join(tx, claimed, userId);
+    return { teamId: claimed.teamId, email: claimed.email };
+  });
+}
+
+/** On sign-in, an existing user joins every team with a pending invitation to their address. */
+export async function acceptInvitationsOnSignIn(db: Db, user: { id: string; email: string }): Promise<number> {
+  return db.transaction(async (tx) => {
+    const claimed = await tx
+      .update(invitations)
+      .set({ acceptedAt: new Date(), acceptedBy: user.id })
+      .where(and(sql`lower(${invitations.email}) = ${user.email.toLowerCase()}`, pending(new Date())))
+      .returning();
+    for (const inv of claimed) await join(tx, inv, user.id);
+    return claimed.length;
+  });
+}

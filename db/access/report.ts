@@ -1,0 +1,93 @@
+import "server-only";
+import { asc, eq, inArray, sql } from "drizzle-orm";
+import { comments, micrographs, reviewEvents, threads, users, type MicrographRow } from "../schema";
+import { type Actor, type Db } from "./context";
+import { loadDie } from "./dies";
+import { loadDieSources, sourceImageOf, titleBlockFor, type DieSources } from "./export-sources";
+import { NotFoundError } from "@/lib/server/errors";
+import { polygonArea, polylineLength } from "@/lib/geometry/measure";
+import { padTableFromMarkup } from "@/lib/markup/pad-table-from-markup";
+import { shapeLabel } from "@/lib/markup/markup-table";
+import { KIND_STYLE } from "@/lib/markup/palette";
+import { planRender } from "@/lib/export/render-plan";
+import { renderAnnotatedPngBuffer } from "@/lib/export/render-png";
+import type { ReportData } from "@/lib/export/report-pdf";
+import { ILLUMINATION_LABELS } from "@/lib/validation/micrographs";
+
+/** Width of the report's overview image: sharp enough for print at the page's text width. */
+export const OVERVIEW_WIDTH_PX = 1600;
+
+const day = (d: Date) => d.toISOString().slice(0, 16).replace("T", " ");
+
+async function namesOf(db: Db, ids: (string | null)[]): Promise<Map<string, string>> {
+  const wanted = [...new Set(ids.filter((i): i is string => !!i))];
+  if (wanted.length === 0) return new Map();
+  const rows = await db.select({ id: users.id, name: users.name }).from(users).where(inArray(users.id, wanted));
+  return new Map(rows.map((r) => [r.id, r.name]));
+}
+
+async function overview(src: DieSources, ms: MicrographRow[], author: string, original: (m: MicrographRow) => string | null, pixelCap: number): Promise<ReportData["overview"]> {
+  const m = ms.find((x) => x.isReference && x.status !== "failed" && sourceImageOf(x)) ?? ms.find((x) => x.status !== "failed" && sourceImageOf(x));
+  if (!m) return null;
+  const planned = planRender(sourceImageOf(m)!, src.die, { widthPx: OVERVIEW_WIDTH_PX });
+  if (!planned.ok) return null;
+  const title = titleBlockFor(src, m, planned.plan.umPerPx, author);
+  const { png, info } = await renderAnnotatedPngBuffer({ original: original(m), pixelCap, plan: planned.plan, shapes: src.shapes, threads: [], labels: true, title });
+  return { png, caption: `${m.label} (${ILLUMINATION_LABELS[m.illumination]}), whole die at ${planned.plan.umPerPx.toPrecision(3)} µm/px; scale bar ${info.scaleBar.label}.${planned.plan.warnings.length ? ` ${planned.plan.warnings.join(" ")}` : ""}` };
+}
+
+async function reviewParts(db: Db, dieId: string): Promise<Pick<ReportData, "reviewHistory" | "threads">> {
+  const events = await db.select().from(reviewEvents).where(eq(reviewEvents.dieId, dieId)).orderBy(asc(reviewEvents.at));
+  const ts = await db.select().from(threads).where(eq(threads.dieId, dieId)).orderBy(asc(threads.createdAt));
+  const cs = ts.length
+    ? await db.select({ threadId: comments.threadId, body: comments.body, n: sql<number>`count(*) over (partition by ${comments.threadId})::int` }).from(comments).where(inArray(comments.threadId, ts.map((t) => t.id))).orderBy(asc(comments.createdAt))
+    : [];
+  const names = await namesOf(db, [...events.map((e) => e.actorId), ...ts.map((t) => t.createdBy)]);
+  return {
+    reviewHistory: events.map((e) => ({ at: day(e.at), who: names.get(e.actorId ?? "") ?? "—", action: e.action.replace(/_/g, " "), from: e.fromStatus.replace(/_/g, " "), to: e.toStatus.replace(/_/g, " "), message: e.message })),
+    threads: ts.map((t, i) => {
+      const first = cs.find((c) => c.threadId === t.id);
+      return { number: i + 1, status: t.status, author: names.get(t.createdBy ?? "") ?? "—", firstComment: first?.body ?? "", comments: first?.n ?? 0, createdAt: t.createdAt.toISOString().slice(0, 10) };
+    }),
+  };
+}
+
+/**
+ * Gathers the die report (any member may export): case and die data, an overview rendered by
+ * the PNG exporter, pad table, blocks, measurements, review history and threads, micrographs.
+ */
+export async function loadReport(db: Db, actor: Actor, dieId: string, files: { original: (m: MicrographRow) => string | null; pixelCap: number }): Promise<ReportData> {
+  await loadDie(db, actor, dieId, "export");
+  const src = await loadDieSources(db, dieId);
+  if (!src) throw new NotFoundError("That die");
+  const ms = await db.select().from(micrographs).where(eq(micrographs.dieId, dieId)).orderBy(asc(micrographs.position));
+  const me = (await namesOf(db, [actor.userId])).get(actor.userId) ?? "unknown";
+  const pads = padTableFromMarkup(src.shapes, src.die);
+  const lines = src.shapes.filter((s) => s.kind === "ruler" || s.kind === "trace");
+  return {
+    generatedAt: day(new Date()),
+    generatedBy: me,
+    caseInfo: src.caseRow,
+    die: { name: src.die.name, widthUm: src.die.widthUm, heightUm: src.die.heightUm, analyst: src.die.analystName ?? "—", reviewStatus: src.die.reviewStatus.replace(/_/g, " "), notes: src.die.notes },
+    overview: await overview(src, ms, me, files.original, files.pixelCap),
+    padTable: pads.ok ? pads.table : { unavailable: pads.message },
+    blocks: src.shapes.flatMap((s) => (s.kind === "block" ? [{ name: s.properties.name, function: s.properties.function, areaUm2: polygonArea(s.geometry) }] : [])),
+    measurements: lines.map((s) => ({
+      kind: KIND_STYLE[s.kind].label,
+      label: shapeLabel(s),
+      lengthUm: polylineLength((s.geometry as { coordinates: readonly (readonly [number, number])[] }).coordinates),
+      ...(s.kind === "trace" ? { widthUm: s.properties.widthUm } : {}),
+    })),
+    ...(await reviewParts(db, dieId)),
+    micrographs: ms.map((m) => ({
+      label: m.label,
+      illumination: ILLUMINATION_LABELS[m.illumination],
+      size: m.width && m.height ? `${m.width} × ${m.height}` : "—",
+      scale: m.scaleUmPerPx ? `${m.scaleUmPerPx.toPrecision(3)} µm/px` : "not set",
+      objective: [m.objectiveMag ? `${m.objectiveMag}×` : "", m.numericalAperture ? `NA ${m.numericalAperture}` : ""].filter(Boolean).join(", ") || "—",
+      reference: m.isReference,
+      alignmentRms: m.isReference ? "reference" : m.alignmentRmsUm === null ? "not aligned" : `${m.alignmentRmsUm.toFixed(2)} µm`,
+      status: m.status,
+    })),
+  };
+}

@@ -1,0 +1,118 @@
+import { describe, expect, it, beforeAll } from "vitest";
+import { mkdtempSync, writeFileSync } from "node:fs";
+import os from "node:os";
+import path from "node:path";
+import sharp from "sharp";
+import { planRender, type RenderPlan } from "./render-plan";
+import { renderAnnotatedPngBuffer, renderAnnotatedPngFile, type RenderInput } from "./render-png";
+import type { AnyShape } from "@/lib/markup/types";
+
+// Pixel checks of the annotated PNG. Expected positions come from the affine maps written out
+// by hand below (image px → die µm as PRODUCT.md's coordinates define it), and the image area
+// is compared against sharp's own extract + resize of the same source rectangle.
+const dir = mkdtempSync(path.join(os.tmpdir(), "kerfline-export-"));
+const source = path.join(dir, "source.png");
+const SRC_W = 1200;
+const SRC_H = 900;
+// 2 µm/px, y flipped, image px (0, 0) at die (0, 1800): die = [[2, 0, 0], [0, -2, 1800]] · px.
+const transform = [
+  [2, 0, 0],
+  [0, -2, 1800],
+] as const;
+const die = { widthUm: 2400, heightUm: 1800 };
+
+beforeAll(async () => {
+  // A smooth ramp (x → red, y → green) with no markup-like colours, so shapes are easy to find.
+  const raw = Buffer.alloc(SRC_W * SRC_H * 3);
+  for (let y = 0; y < SRC_H; y++)
+    for (let x = 0; x < SRC_W; x++) {
+      const i = (y * SRC_W + x) * 3;
+      raw[i] = Math.round((x / SRC_W) * 120);
+      raw[i + 1] = Math.round((y / SRC_H) * 120);
+      raw[i + 2] = 60;
+    }
+  writeFileSync(source, await sharp(raw, { raw: { width: SRC_W, height: SRC_H, channels: 3 } }).png().toBuffer());
+});
+
+const pad: AnyShape = {
+  id: "11111111-1111-4111-8111-111111111111",
+  kind: "pad",
+  geometry: { type: "Polygon", coordinates: [[[800, 400], [1000, 400], [1000, 600], [800, 600], [800, 400]]] },
+  properties: { label: "", net: "", state: "unbonded" },
+  version: 1,
+  createdBy: null,
+  updatedAt: "2025-01-01T00:00:00.000Z",
+};
+const title = { caseTitle: "Case", dieName: "die", micrograph: "bright field", illumination: "Bright field", umPerPx: 1, date: "2025-01-02", author: "Ada", reviewStatus: "draft" };
+
+function plan(req: Parameters<typeof planRender>[2]): RenderPlan {
+  const r = planRender({ width: SRC_W, height: SRC_H, transform }, die, req);
+  if (!r.ok) throw new Error(r.message);
+  return r.plan;
+}
+const input = (p: RenderPlan, shapes: AnyShape[] = [], caseTitle = "Case"): RenderInput => ({ original: source, pixelCap: 1e9, plan: p, shapes, threads: [], labels: false, title: { ...title, caseTitle, umPerPx: p.umPerPx } });
+
+async function rawOf(png: Buffer) {
+  const { data, info } = await sharp(png).removeAlpha().raw().toBuffer({ resolveWithObject: true });
+  return { data, info, at: (x: number, y: number) => [...data.subarray((y * info.width + x) * info.channels, (y * info.width + x) * info.channels + 3)] };
+}
+
+// The ramp never has red above blue by more than 60; the pad's amber stroke (#ffcf5a) does, even antialiased.
+const isPadColour = ([r, , b]: number[]) => r - b > 80;
+
+describe("renderAnnotatedPng", () => {
+  it("draws a pad's outline on the pixels the die → output map predicts (±1 px)", async () => {
+    // Region x 600–1600 µm, y 200–900 µm at 4 µm/px: output x = (xµm − 600) / 4, y = (900 − yµm) / 4.
+    const p = plan({ region: { x: 600, y: 200, width: 1000, height: 700 }, umPerPx: 4 });
+    expect([p.width, p.height]).toEqual([250, 175]);
+    const { png } = await renderAnnotatedPngBuffer(input(p, [pad]));
+    const img = await rawOf(png);
+    const row = Math.round((900 - 500) / 4); // the pad's middle, y = 500 µm
+    const hits = Array.from({ length: p.width }, (_, x) => x).filter((x) => isPadColour(img.at(x, row)));
+    const leftRun = hits.filter((x) => x < 75);
+    const rightRun = hits.filter((x) => x > 75);
+    const mean = (xs: number[]) => xs.reduce((a, b) => a + b, 0) / xs.length;
+    expect(Math.abs(mean(leftRun) - (800 - 600) / 4)).toBeLessThanOrEqual(1);
+    expect(Math.abs(mean(rightRun) - (1000 - 600) / 4)).toBeLessThanOrEqual(1);
+    const topHits = Array.from({ length: p.height }, (_, y) => y).filter((y) => isPadColour(img.at(Math.round((900 - 600) / 4), y)));
+    expect(Math.abs(mean(topHits.filter((y) => y < 100)) - (900 - 600) / 4)).toBeLessThanOrEqual(1);
+  });
+
+  it("draws a scale bar whose length in pixels is its label divided by the output scale (±1 px)", async () => {
+    const p = plan({ widthPx: 800 });
+    const { png, info } = await renderAnnotatedPngBuffer(input(p));
+    const img = await rawOf(png);
+    const y = info.scaleBar.y + 1;
+    const white = Array.from({ length: info.width }, (_, x) => x).filter((x) => img.at(x, y).every((v) => v > 250));
+    const [value, unit] = info.scaleBar.label.split(" ");
+    const um = Number(value) * ({ nm: 1e-3, "µm": 1, mm: 1000 } as Record<string, number>)[unit];
+    expect(Math.abs(white.length - um / p.umPerPx)).toBeLessThanOrEqual(1);
+    expect(info.scaleBar.label).toMatch(/^(1|2|5)0* (µm|mm)$/);
+  });
+
+  it("shows the same pixels as an independent extract and resize of the region", async () => {
+    // Region x 400–2000 µm, y 600–1400 µm → image px x 200–1000, y (1800−1400)/2 = 200 to 600.
+    const p = plan({ region: { x: 400, y: 600, width: 1600, height: 800 }, widthPx: 400 });
+    const { png } = await renderAnnotatedPngBuffer(input(p));
+    const ours = await rawOf(await sharp(png).extract({ left: 0, top: 0, width: 400, height: 200 }).png().toBuffer());
+    const ref = await sharp(source).extract({ left: 200, top: 200, width: 800, height: 400 }).resize(400, 200).removeAlpha().raw().toBuffer();
+    let diff = 0;
+    for (let i = 0; i < ref.length; i++) diff += Math.abs(ref[i] - ours.data[i]);
+    expect(diff / ref.length).toBeLessThan(1.5);
+  });
+
+  it("writes title, scale and software as PNG text chunks a PNG reader finds", async () => {
+    const p = plan({ widthPx: 300 });
+    const out = path.join(dir, "out.png");
+    await renderAnnotatedPngFile(input(p, [], "Case µ-Ø"), out);
+    // libvips' PNG loader reports tEXt chunks as comments (sharp metadata().comments).
+    const meta = await sharp(out).metadata();
+    const comments = Object.fromEntries((meta.comments ?? []).map((c) => [c.keyword, c.text]));
+    expect(comments.Software).toBe("Kerfline");
+    expect(comments.Title).toContain("die");
+    expect(comments.Description).toContain(`${p.umPerPx} um/px`);
+    expect(comments.Title).toContain("Case µ-Ø");
+    expect(meta.width).toBe(300);
+    expect(meta.channels).toBe(3);
+  });
+});

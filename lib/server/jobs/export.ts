@@ -1,0 +1,102 @@
+import "server-only";
+import { mkdir } from "node:fs/promises";
+import path from "node:path";
+import { eq } from "drizzle-orm";
+import { exports as exportsTable, users } from "@/db/schema";
+import type { Database } from "@/db/client";
+import type { ExportParams, ExportResult } from "@/db/access/exports";
+import { loadDieMicrograph, loadDieSources, loadThreadMarks, shapesOfKinds, sourceImageOf, titleBlockFor } from "@/db/access/export-sources";
+import { planRender } from "@/lib/export/render-plan";
+import { renderAnnotatedPngFile } from "@/lib/export/render-png";
+import { safeFileName } from "@/lib/markup/attachment";
+import { micrographPaths, EXTENSION } from "../storage-paths";
+import { exportFilePath } from "../export-paths";
+import { env } from "../env";
+import { claimJob, finishJob, keepAlive, waitForJob } from "./queue";
+
+/** The download name: case-die-micrograph-date.png, in safe ASCII. */
+export function exportFileName(caseTitle: string, dieName: string, micrograph: string, date: string): string {
+  return `${[caseTitle, dieName, micrograph, date].map((p) => safeFileName(p)).join("-")}.png`;
+}
+
+async function setState(db: Database, id: string, changes: Partial<typeof exportsTable.$inferInsert>) {
+  await db.update(exportsTable).set(changes).where(eq(exportsTable.id, id));
+}
+
+/**
+ * Renders one annotated PNG export: queued → running → done (file, size, result with scale bar
+ * and warnings) or failed with a reason the UI shows. The caller's rights were checked when the
+ * export was created.
+ */
+export async function runExport(db: Database, exportId: string): Promise<void> {
+  const [row] = await db.select().from(exportsTable).where(eq(exportsTable.id, exportId));
+  if (!row || row.status === "done") return;
+  const params = row.params as ExportParams;
+  const req = params.request;
+  await setState(db, exportId, { status: "running", progress: 5, error: null });
+  const src = await loadDieSources(db, row.dieId);
+  const m = await loadDieMicrograph(db, row.dieId, req.micrographId);
+  const image = m && sourceImageOf(m);
+  if (!src || !m || !image || !m.format) throw new Error("The micrograph is gone or no longer in the die frame.");
+  const planned = planRender(image, src.die, req);
+  if (!planned.ok) throw new Error(planned.message);
+  const plan = planned.plan;
+  const [author] = row.createdBy ? await db.select({ name: users.name }).from(users).where(eq(users.id, row.createdBy)) : [];
+  const title = titleBlockFor(src, m, plan.umPerPx, author?.name ?? "unknown", row.createdAt);
+  const file = exportFilePath(row.dieId, row.id);
+  await mkdir(path.dirname(file), { recursive: true });
+  await setState(db, exportId, { progress: 15 });
+  const info = await renderAnnotatedPngFile(
+    {
+      original: micrographPaths(row.dieId, m.id, m.format as keyof typeof EXTENSION).original,
+      pixelCap: env().KERFLINE_MAX_PIXELS,
+      plan,
+      shapes: shapesOfKinds(src.shapes, req.kinds),
+      threads: req.threads ? await loadThreadMarks(db, row.dieId) : [],
+      labels: req.labels,
+      title,
+    },
+    file,
+  );
+  const { lengthUm, label, px, x, y } = info.scaleBar;
+  const result: ExportResult = { width: info.width, height: info.height, umPerPx: plan.umPerPx, warnings: [...plan.warnings], scaleBar: { lengthUm, label, px, x, y } };
+  await setState(db, exportId, {
+    status: "done",
+    progress: 100,
+    params: { ...params, result, warnings: [...plan.warnings] },
+    fileName: exportFileName(title.caseTitle, title.dieName, title.micrograph, title.date),
+    bytes: info.bytes,
+    finishedAt: new Date(),
+  });
+}
+
+async function workerLoop(db: Database, stopped: () => boolean): Promise<void> {
+  while (!stopped()) {
+    const job = await claimJob(db, "export").catch(() => null);
+    if (!job) {
+      await waitForJob(1_000);
+      continue;
+    }
+    const stop = keepAlive(db, job.id);
+    try {
+      await runExport(db, job.subjectId);
+      await finishJob(db, job.id);
+    } catch (e) {
+      const message = `The export failed: ${(e as Error).message}`;
+      console.error(`[kerfline] export ${job.subjectId} failed:`, (e as Error).message);
+      await setState(db, job.subjectId, { status: "failed", error: message, finishedAt: new Date() }).catch(() => {});
+      await finishJob(db, job.id, message).catch(() => {});
+    } finally {
+      stop();
+    }
+  }
+}
+
+/** Starts the in-process export worker: one, so a large render never takes both cores from tiling. */
+export function startExportWorker(db: Database): () => void {
+  let stopped = false;
+  void workerLoop(db, () => stopped);
+  return () => {
+    stopped = true;
+  };
+}

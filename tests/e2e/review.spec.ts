@@ -1,0 +1,149 @@
+import { expect, test, type Browser, type Page } from "@playwright/test";
+import { signInAs } from "./helpers";
+import { NV24R_LAYOUT, padByLabel } from "../../lib/demo-die/layout";
+import { demoMicrographOptions } from "../../lib/demo-die/render";
+import { placeDie, pxPerUmForWidth } from "../../lib/demo-die/placement";
+import { applyAffine } from "../../lib/geometry/affine";
+
+// The review flow in a real browser: a thread on a pad with a mention, the mention's mail in
+// the local mailbox over real SMTP, its deep link, reply, resolve, submit and approve, and an
+// invitation accepted through the mailed link.
+const opts = demoMicrographOptions("bright_field");
+const placement = placeDie(NV24R_LAYOUT, { pxPerUm: pxPerUmForWidth(NV24R_LAYOUT, opts.widthPx!, 300), marginUm: 300 });
+const PAD = padByLabel(NV24R_LAYOUT, "VB3");
+
+async function openDemoDie(page: Page) {
+  await page.getByRole("link", { name: "NV-24R receiver teardown" }).click();
+  await page.getByRole("link", { name: "NV-24R die A" }).click();
+  await expect(page.getByTestId("markup-overlay")).toBeVisible();
+}
+
+async function as(browser: Browser, who: "owner" | "analyst" | "reviewer") {
+  const page = await (await browser.newContext({ viewport: { width: 1400, height: 900 } })).newPage();
+  await signInAs(page, who);
+  return page;
+}
+
+/** Screen position of a die point at the "fit" view, from the renderer's own placement. */
+async function fitScreen(page: Page, [x, y]: readonly [number, number]) {
+  const box = (await page.getByRole("application", { name: "Micrograph viewer" }).boundingBox())!;
+  const s = Math.min(box.width / placement.widthPx, box.height / placement.heightPx);
+  const [ix, iy] = applyAffine(placement.dieToImage, x, y);
+  return { x: box.x + (box.width - placement.widthPx * s) / 2 + ix * s, y: box.y + (box.height - placement.heightPx * s) / 2 + iy * s };
+}
+
+/** Opens the newest mailbox message whose subject matches and returns its text part. */
+async function readMail(owner: Page, subject: RegExp, to: string): Promise<string> {
+  await expect(async () => {
+    await owner.goto("/mailbox");
+    await expect(owner.getByRole("list", { name: "Messages" }).getByRole("button").filter({ hasText: subject }).filter({ hasText: to }).first()).toBeVisible({ timeout: 1000 });
+  }).toPass({ timeout: 30_000 });
+  await owner.getByRole("list", { name: "Messages" }).getByRole("button").filter({ hasText: subject }).filter({ hasText: to }).first().click();
+  const message = owner.getByRole("region", { name: "Message" });
+  await expect(message.getByRole("heading")).toHaveText(subject);
+  return message.innerText();
+}
+
+test.describe.serial("review of the demo die", () => {
+  test("thread with a mention, mail, deep link, reply, resolve, submit and approve", async ({ browser }) => {
+    // Four signed-in people and the first tiling of the demo micrographs share two cores.
+    test.setTimeout(180_000);
+    const analyst = await as(browser, "analyst");
+    await openDemoDie(analyst);
+    const dieId = analyst.url().split("/").pop()!;
+    const [cx, cy] = PAD.centreUm;
+    const [w, h] = PAD.sizeUm;
+    const made = await analyst.evaluate(
+      async ({ dieId, ring }) => (await fetch(`/api/dies/${dieId}/markup`, { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify({ kind: "pad", geometry: { type: "Polygon", coordinates: [ring] }, properties: { label: "VB3" } }) })).status,
+      { dieId, ring: [[cx - w / 2, cy - h / 2], [cx + w / 2, cy - h / 2], [cx + w / 2, cy + h / 2], [cx - w / 2, cy + h / 2], [cx - w / 2, cy - h / 2]] },
+    );
+    expect(made).toBe(201);
+
+    // The reviewer selects the pad on the canvas and starts a thread mentioning the analyst.
+    const reviewer = await as(browser, "reviewer");
+    await openDemoDie(reviewer);
+    await reviewer.getByRole("button", { name: "Fit die" }).click();
+    await reviewer.waitForTimeout(1200);
+    const at = await fitScreen(reviewer, PAD.centreUm);
+    await reviewer.mouse.click(at.x, at.y);
+    await reviewer.getByRole("tab", { name: "Review" }).click();
+    await reviewer.getByRole("button", { name: "Start thread on selection" }).click();
+    const box = reviewer.getByLabel("First comment on the selected shape");
+    await box.pressSequentially("Is this pad probed? @Demo Ana");
+    await reviewer.getByRole("option", { name: /Demo Analyst/ }).click();
+    await box.pressSequentially("please check the `VB3` bond.");
+    await reviewer.getByRole("button", { name: "Start thread" }).click();
+    await expect(reviewer.getByRole("heading", { name: /Thread \d+ on a shape/ })).toBeVisible();
+
+    // The analyst's mail arrives in the local mailbox over SMTP, with a link to the thread.
+    const owner = await as(browser, "owner");
+    const text = await readMail(owner, /mentioned you/, "analyst@fjordlight.test");
+    expect(text).toContain("please check the VB3 bond");
+    const link = /(http:\/\/\S+\/dies\/[0-9a-f-]+\?thread=[0-9a-f-]+)/.exec(text)![1];
+
+    // The link opens the die on the Review tab, zoomed to the pad.
+    await analyst.goto(new URL(link).pathname + new URL(link).search);
+    await expect(analyst.getByRole("heading", { name: /Thread \d+ on a shape/ })).toBeVisible();
+    await expect(async () => {
+      const m = JSON.parse((await analyst.getByTestId("markup-overlay").getAttribute("data-die-to-screen"))!) as number[][];
+      const view = (await analyst.getByRole("application", { name: "Micrograph viewer" }).boundingBox())!;
+      const [sx, sy] = applyAffine(m as never, cx, cy);
+      expect(Math.abs(sx - view.width / 2)).toBeLessThan(view.width * 0.1);
+      expect(Math.abs(sy - view.height / 2)).toBeLessThan(view.height * 0.1);
+      // Zoomed in: the pad spans a good part of the view (fit view shows it at a few px).
+      expect(Math.abs(m[0][0]) * w).toBeGreaterThan(view.width * 0.08);
+    }).toPass({ timeout: 15_000 });
+
+    await analyst.getByLabel("Reply").fill("Probed only, not bonded; label fixed.");
+    await analyst.getByRole("button", { name: "Reply", exact: true }).click();
+    await expect(analyst.getByText("Probed only, not bonded; label fixed.")).toBeVisible();
+
+    await reviewer.goto(link);
+    await expect(reviewer.getByText("Probed only, not bonded; label fixed.")).toBeVisible();
+    await reviewer.getByRole("button", { name: "Resolve thread" }).click();
+    await expect(reviewer.getByText(/Resolved by Demo Reviewer/)).toBeVisible();
+
+    // Analyst submits, reviewer approves.
+    await analyst.getByRole("button", { name: "← All threads" }).click();
+    await analyst.getByRole("region", { name: "Review status" }).getByLabel("Message").fill("Pad map complete.");
+    await analyst.getByRole("button", { name: "Submit for review" }).click();
+    await expect(analyst.getByRole("region", { name: "Review status" }).getByText("In review").first()).toBeVisible();
+    await reviewer.reload();
+    await reviewer.getByRole("tab", { name: "Review" }).click();
+    await reviewer.getByRole("button", { name: "← All threads" }).click();
+    await reviewer.getByRole("region", { name: "Review status" }).getByLabel("Message").fill("Checked against the bond diagram.");
+    await reviewer.getByRole("button", { name: "Approve" }).click();
+    await expect(reviewer.getByRole("list", { name: "Review history" }).getByText("Approved")).toBeVisible();
+  });
+
+  test("the owner invites a new reviewer, who joins through the mailed link and comments", async ({ browser }) => {
+    const owner = await as(browser, "owner");
+    await owner.getByRole("link", { name: "Fjordlight Failure Lab" }).click();
+    const email = `new.reviewer.${Date.now()}@fjordlight.test`;
+    const invitations = owner.getByRole("region", { name: "Invitations" });
+    await invitations.getByLabel("E-mail").fill(email);
+    await invitations.getByLabel("Role").selectOption("reviewer");
+    await invitations.getByRole("button", { name: "Send invitation" }).click();
+    await expect(invitations.getByText(email).first()).toBeVisible();
+    const text = await readMail(owner, /Invitation to join/, email);
+    const link = /(http:\/\/\S+\/invitations\/[A-Za-z0-9_-]+)/.exec(text)![1];
+
+    const newcomer = await (await browser.newContext()).newPage();
+    await newcomer.goto(new URL(link).pathname);
+    await newcomer.getByLabel("Your name").fill("Nea Reviewer");
+    await newcomer.getByLabel("Choose a password").fill("a-long-password");
+    await newcomer.getByRole("button", { name: "Join the team" }).click();
+    await expect(newcomer.getByRole("heading", { name: "Cases" })).toBeVisible();
+    await openDemoDie(newcomer);
+    await newcomer.getByRole("tab", { name: "Review" }).click();
+    await newcomer.getByRole("button", { name: "Start thread on a region" }).click();
+    await newcomer.getByLabel("First comment on the area in view").fill("First look from the new reviewer.");
+    await newcomer.getByRole("button", { name: "Start thread" }).click();
+    await expect(newcomer.getByText("First look from the new reviewer.")).toBeVisible();
+
+    // The link works once.
+    const again = await (await browser.newContext()).newPage();
+    await again.goto(new URL(link).pathname);
+    await expect(again.getByText("This invitation link has already been used.")).toBeVisible();
+  });
+});

@@ -1,0 +1,146 @@
+import { beforeAll, describe, expect, it } from "vitest";
+import { applyAffine, determinant } from "@/lib/geometry/affine";
+import { demoWorld, EVERYONE, expectedStatus, freshCase } from "./fixtures";
+import { padPairs, uploadDemoMicrograph, type UploadedDemo } from "../support/demo-micrographs";
+
+// The demo die rendered twice (the seed's bright-field and dark-field settings at 3000 px
+// wide): the renderer's placement is the ground truth (lib/demo-die/placement.ts), so control
+// points are the layout's pad centres where the renderer drew them, paired with their die µm.
+type Alignment = { transform: number[][]; residualsUm: number[]; rmsUm: number; pairs?: unknown[]; model?: string | null; mirrored?: boolean };
+let world: Awaited<ReturnType<typeof demoWorld>>;
+let dieId: string;
+let bright: UploadedDemo;
+let dark: UploadedDemo;
+const FOUR = ["G1", "G6", "VCC2", "VEE1"];
+
+beforeAll(async () => {
+  world = await demoWorld();
+  ({ dieId } = await freshCase(world.clients.owner, world.teamId, "Alignment target"));
+  bright = await uploadDemoMicrograph(world.clients.analyst, dieId, "bright_field");
+  dark = await uploadDemoMicrograph(world.clients.analyst, dieId, "dark_field");
+}, 120_000);
+
+const put = (who: keyof typeof world.clients, id: string, body: unknown) => world.clients[who].request<Alignment & { error?: string }>("PUT", `/api/micrographs/${id}/alignment`, body);
+const stored = async () => (await world.clients.viewer.get<Alignment>(`/api/micrographs/${dark.id}/alignment`)).body;
+
+describe("aligning the demo dark-field micrograph", () => {
+  it("places the reference on the die frame from the layout's pads", async () => {
+    const res = await put("analyst", bright.id, { model: "similarity", pairs: padPairs(bright.render) });
+    expect(res.status).toBe(200);
+    // Ground truth: the renderer's imageToDie of the bright-field picture.
+    res.body.transform.flat().forEach((v, i) => expect(v).toBeCloseTo(bright.render.imageToDie.flat()[i], 6));
+  });
+
+  it("fits four pad pairs with RMS under 1 µm and maps every pad centre within 2 µm", async () => {
+    const pairs = padPairs(dark.render, FOUR).map((p) => ({ ...p, imagePx: p.imagePx.map((v) => Math.round(v * 2) / 2) })); // clicks to ½ px
+    const res = await put("analyst", dark.id, { model: "similarity", pairs });
+    expect(res.status).toBe(200);
+    expect(res.body.residualsUm).toHaveLength(4);
+    expect(res.body.rmsUm).toBeLessThan(1);
+    const t = res.body.transform as [[number, number, number], [number, number, number]];
+    expect(determinant(t)).toBeLessThan(0); // image y down, die y up
+    for (const { imagePx, dieUm } of padPairs(dark.render)) {
+      const [u, v] = applyAffine(t, imagePx[0], imagePx[1]);
+      expect(Math.hypot(u - dieUm[0], v - dieUm[1])).toBeLessThan(2);
+    }
+    const got = await stored();
+    expect(got).toMatchObject({ model: "similarity", mirrored: false, transform: res.body.transform, residualsUm: res.body.residualsUm, rmsUm: res.body.rmsUm });
+    expect(got.pairs).toEqual(pairs);
+    const dto = (await world.clients.viewer.get<{ transform: number[][] }>(`/api/micrographs/${dark.id}`)).body;
+    expect(dto.transform).toEqual(res.body.transform);
+  });
+
+  it("fits an affine model to all pads within 1 µm RMS", async () => {
+    const res = await world.clients.analyst.request<Alignment>("POST", `/api/micrographs/${dark.id}/alignment/preview`, { model: "affine", pairs: padPairs(dark.render) });
+    expect(res.status).toBe(200);
+    expect(res.body.rmsUm).toBeLessThan(1);
+  });
+
+  it("answers a dry run without storing anything", async () => {
+    const before = await stored();
+    const res = await world.clients.analyst.request<Alignment>("POST", `/api/micrographs/${dark.id}/alignment/preview`, { model: "similarity", pairs: padPairs(dark.render, ["G1", "G4", "VB1"]) });
+    expect(res.status).toBe(200);
+    expect(res.body.residualsUm).toHaveLength(3);
+    expect(await stored()).toEqual(before);
+  });
+
+  it("refines a rough transform's translation by phase correlation", async () => {
+    const truth = dark.render.imageToDie;
+    // A rough alignment 12 µm right and 9 µm down of the truth.
+    const rough = [[truth[0][0], truth[0][1], truth[0][2] + 12], [truth[1][0], truth[1][1], truth[1][2] - 9]];
+    const res = await world.clients.analyst.request<{ transform: number[][]; rmsBeforeUm: number; rmsAfterUm: number; againstId: string; error?: string }>(
+      "POST",
+      `/api/micrographs/${dark.id}/alignment/refine`,
+      { transform: rough, pairs: padPairs(dark.render), againstId: bright.id },
+    );
+    expect(res.status, res.body.error).toBe(200);
+    expect(res.body.rmsBeforeUm).toBeCloseTo(15, 6); // √(12² + 9²), by hand
+    expect(res.body.rmsAfterUm).toBeLessThan(2);
+    expect((await stored()).transform).not.toEqual(res.body.transform); // proposed, not stored
+    const accepted = await put("analyst", dark.id, { model: "similarity", pairs: padPairs(dark.render, FOUR), transform: res.body.transform });
+    expect(accepted.status).toBe(200);
+    expect((await stored()).transform).toEqual(res.body.transform);
+    const flipped = res.body.transform.map((row, i) => (i === 1 ? row.map((v, j) => (j < 2 ? -v : v)) : row));
+    const refused = await put("analyst", dark.id, { model: "similarity", pairs: padPairs(dark.render, FOUR), transform: flipped });
+    expect(refused.status).toBe(400);
+    expect(refused.body.error).toMatch(/transform fits a mirrored photo/);
+  });
+});
+
+describe("who may align", () => {
+  it("follows the role table for PUT, dry run and GET", async () => {
+    const body = { model: "similarity", pairs: padPairs(dark.render, FOUR) };
+    for (const who of EVERYONE) {
+      expect((await put(who, dark.id, body)).status, who).toBe(expectedStatus(who, "edit", 200));
+      expect((await world.clients[who].request("POST", `/api/micrographs/${dark.id}/alignment/preview`, body)).status, who).toBe(expectedStatus(who, "edit", 200));
+      expect((await world.clients[who].request("POST", `/api/micrographs/${dark.id}/alignment/refine`, {})).status, who).toBe(expectedStatus(who, "edit", 200));
+      expect((await world.clients[who].get(`/api/micrographs/${dark.id}/alignment`)).status, who).toBe(expectedStatus(who, "read", 200));
+    }
+  }, 60_000);
+});
+
+describe("bad alignment input", () => {
+  const good = () => padPairs(dark.render, FOUR);
+  const mirroredPairs = () => good().map((p) => ({ ...p, imagePx: [dark.width - p.imagePx[0], p.imagePx[1]] }));
+  const CORPUS: { name: string; body: () => unknown; message: RegExp }[] = [
+    { name: "one pair for a similarity", body: () => ({ model: "similarity", pairs: good().slice(0, 1) }), message: /at least 2 control points/ },
+    { name: "two pairs for an affine", body: () => ({ model: "affine", pairs: good().slice(0, 2) }), message: /at least 3 control points/ },
+    { name: "no pairs", body: () => ({ model: "similarity", pairs: [] }), message: /at least 2/ },
+    { name: "a null (NaN in JSON) coordinate", body: () => ({ model: "similarity", pairs: [...good(), { imagePx: [null, 5], dieUm: [1, 1] }] }), message: /pairs/ },
+    { name: "a string coordinate", body: () => ({ model: "similarity", pairs: [...good(), { imagePx: ["NaN", 5], dieUm: [1, 1] }] }), message: /numbers/ },
+    { name: "duplicate image points", body: () => ({ model: "similarity", pairs: [...good(), { imagePx: good()[0].imagePx, dieUm: [5, 5] }] }), message: /1 and 5 are at the same image position/ },
+    { name: "duplicate die points", body: () => ({ model: "affine", pairs: [...good(), { imagePx: [100, 100], dieUm: good()[1].dieUm }] }), message: /same die position/ },
+    { name: "a point right of the image", body: () => ({ model: "similarity", pairs: [...good(), { imagePx: [dark.width + 10, 50], dieUm: [5, 5] }] }), message: /control point 5 .* outside the micrograph/i },
+    { name: "a point above the image", body: () => ({ model: "similarity", pairs: [{ imagePx: [10, -3], dieUm: [5, 5] }, ...good()] }), message: /control point 1 .* outside/i },
+    { name: "collinear points for an affine", body: () => ({ model: "affine", pairs: padPairs(dark.render, ["G1", "RFIN_P", "G2", "G3"]) }), message: /lie on one line/ },
+    { name: "a reflection when not mirrored", body: () => ({ model: "similarity", pairs: mirroredPairs() }), message: /fit a mirrored photo/ },
+    { name: "an affine reflection when not mirrored", body: () => ({ model: "affine", pairs: mirroredPairs() }), message: /fit a mirrored photo/ },
+    { name: "an ordinary photo marked mirrored", body: () => ({ model: "similarity", mirrored: true, pairs: good() }), message: /not mirrored/ },
+    { name: "an unknown model", body: () => ({ model: "projective", pairs: good() }), message: /model must be similarity or affine/ },
+    { name: "an unknown field", body: () => ({ model: "similarity", pairs: good(), scale: 2 }), message: /Invalid body/ },
+  ];
+
+  for (const c of CORPUS) {
+    it(`answers 400 for ${c.name} and changes nothing`, async () => {
+      const before = await stored();
+      for (const path of ["alignment", "alignment/preview"]) {
+        const res = await world.clients.analyst.request<{ error: string }>(path === "alignment" ? "PUT" : "POST", `/api/micrographs/${dark.id}/${path}`, c.body());
+        expect(res.status, path).toBe(400);
+        expect(res.body.error).toMatch(c.message);
+      }
+      expect(await stored()).toEqual(before);
+    });
+  }
+
+  it("answers 400 for a body that is not JSON, such as a bare NaN", async () => {
+    const res = await world.clients.analyst.request<{ error: string }>("PUT", `/api/micrographs/${dark.id}/alignment`, '{"model":"similarity","pairs":[{"imagePx":[NaN,1],"dieUm":[1,1]}]}');
+    expect(res.status).toBe(400);
+    expect(res.body.error).toMatch(/not valid JSON/);
+  });
+
+  it("accepts a mirrored photo when told it is mirrored", async () => {
+    const res = await world.clients.analyst.request<Alignment>("POST", `/api/micrographs/${dark.id}/alignment/preview`, { model: "similarity", mirrored: true, pairs: mirroredPairs() });
+    expect(res.status).toBe(200);
+    expect(determinant(res.body.transform as [[number, number, number], [number, number, number]])).toBeGreaterThan(0);
+  });
+});

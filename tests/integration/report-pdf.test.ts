@@ -1,0 +1,106 @@
+import { beforeAll, describe, expect, inject, it } from "vitest";
+import sharp from "sharp";
+import { PDFDocument } from "pdf-lib";
+import { demoWorld, EVERYONE, freshCase, type Who } from "./fixtures";
+import { uploadForm } from "../support/images";
+import { waitForStatus } from "../support/micrographs";
+
+// The PDF die report over HTTP: any member downloads it, outsiders get 404; the file opened by
+// an independent PDF parser (pdfjs-dist, once installed) holds the title, the pad labels and
+// decodable images.
+let world: Awaited<ReturnType<typeof demoWorld>>;
+let dieId: string;
+
+const rect = (x0: number, y0: number, w: number, h: number) => ({ type: "Polygon", coordinates: [[[x0, y0], [x0 + w, y0], [x0 + w, y0 + h], [x0, y0 + h], [x0, y0]]] });
+const LABELS = ["VREF", "GND", "OUTA", "VCC"];
+
+beforeAll(async () => {
+  world = await demoWorld();
+  ({ dieId } = await freshCase(world.clients.owner, world.teamId, "Report case"));
+  const png = await sharp({ create: { width: 500, height: 400, channels: 3, background: { r: 120, g: 130, b: 90 } } }).png().toBuffer();
+  const up = await world.clients.analyst.upload<{ id: string }>(`/api/dies/${dieId}/micrographs`, uploadForm(png, "bf.png", { label: "bright field 5x", scaleUmPerPx: "2" }));
+  expect(up.status).toBe(202);
+  await waitForStatus(world.clients.analyst, up.body.id, "ready");
+  const shapes = [
+    { kind: "pad", geometry: rect(20, 600, 60, 60), properties: { label: LABELS[0], state: "bonded" } },
+    { kind: "pad", geometry: rect(20, 200, 60, 60), properties: { label: LABELS[1], state: "bonded" } },
+    { kind: "pad", geometry: rect(920, 200, 60, 60), properties: { label: LABELS[2], state: "probed" } },
+    { kind: "pad", geometry: rect(920, 600, 60, 60), properties: { label: LABELS[3], state: "unbonded" } },
+    { kind: "block", geometry: rect(300, 300, 300, 200), properties: { name: "bandgap", function: "voltage reference" } },
+    { kind: "ruler", geometry: { type: "LineString", coordinates: [[0, 100], [1000, 100]] }, properties: { label: "die width" } },
+  ];
+  expect((await world.clients.analyst.request("POST", `/api/dies/${dieId}/markup`, shapes)).status).toBe(201);
+});
+
+async function fetchPdf(who: Who) {
+  const cookie = (world.clients[who] as unknown as { cookieHeader(): string }).cookieHeader();
+  const res = await fetch(`${inject("baseUrl")}/api/dies/${dieId}/report.pdf`, { headers: { cookie } });
+  return { res, body: new Uint8Array(await res.arrayBuffer()) };
+}
+
+type PdfJs = {
+  getDocument: (src: { data: Uint8Array; useSystemFonts?: boolean }) => { promise: Promise<PdfDoc> };
+  OPS: Record<string, number>;
+};
+type PdfDoc = { numPages: number; getMetadata: () => Promise<{ info: Record<string, unknown> }>; getPage: (n: number) => Promise<PdfPage> };
+type PdfPage = {
+  getTextContent: () => Promise<{ items: { str?: string }[] }>;
+  getOperatorList: () => Promise<{ fnArray: number[]; argsArray: unknown[][] }>;
+  objs: { get: (id: string, cb: (img: { width: number; height: number }) => void) => void };
+};
+let pdfjs: PdfJs | null = null;
+// A variable specifier, so type-checking does not need the package before it is installed.
+const PDFJS = "pdfjs-dist/legacy/build/pdf.mjs";
+try {
+  pdfjs = (await import(/* @vite-ignore */ PDFJS)) as PdfJs;
+} catch {
+  pdfjs = null;
+}
+
+describe("PDF die report", () => {
+  it("downloads as a PDF whose pages pdf-lib can read back", async () => {
+    const { res, body } = await fetchPdf("viewer");
+    expect(res.status).toBe(200);
+    expect(res.headers.get("content-type")).toBe("application/pdf");
+    expect(res.headers.get("content-disposition")).toMatch(/filename="Report-case-die-1-report-\d{4}-\d{2}-\d{2}\.pdf"/);
+    // ISO 32000-1 §7.5.2: a PDF file starts with the header %PDF-1.n.
+    expect(Buffer.from(body.subarray(0, 5)).toString("latin1")).toBe("%PDF-");
+    const doc = await PDFDocument.load(body);
+    // Cover, contents and six sections, each starting on its own page.
+    expect(doc.getPageCount()).toBeGreaterThanOrEqual(8);
+    expect(doc.getTitle()).toBe("Die report: Report case — die 1");
+  });
+
+  // pdfjs-dist is an independent PDF reader (not installed yet: the lead adds it as a dev dependency).
+  it.skipIf(!pdfjs)("holds the title, page count, pad labels and decodable images for an independent PDF parser", async () => {
+    const { body } = await fetchPdf("owner");
+    const doc = await pdfjs!.getDocument({ data: body, useSystemFonts: false }).promise;
+    const meta = await doc.getMetadata();
+    expect(meta.info.Title).toBe("Die report: Report case — die 1");
+    const texts: string[] = [];
+    let images = 0;
+    for (let n = 1; n <= doc.numPages; n++) {
+      const page = await doc.getPage(n);
+      texts.push((await page.getTextContent()).items.map((i) => i.str ?? "").join(" "));
+      const ops = await page.getOperatorList();
+      for (let i = 0; i < ops.fnArray.length; i++) {
+        if (ops.fnArray[i] !== pdfjs!.OPS.paintImageXObject) continue;
+        const img = await new Promise<{ width: number; height: number }>((resolve) => page.objs.get(ops.argsArray[i][0] as string, resolve));
+        expect(img.width).toBeGreaterThan(0);
+        images++;
+      }
+    }
+    const all = texts.join("\n");
+    for (const label of LABELS) expect(all).toContain(label);
+    expect(all).toContain(`page ${doc.numPages} of ${doc.numPages}`);
+    expect(all).toContain("Contents");
+    expect(images).toBeGreaterThanOrEqual(1);
+  });
+
+  for (const who of EVERYONE) {
+    const status = who === "anonymous" ? 401 : who === "outsider" ? 404 : 200;
+    it(`answers ${status} for ${who}`, async () => {
+      expect((await fetchPdf(who)).res.status).toBe(status);
+    });
+  }
+});

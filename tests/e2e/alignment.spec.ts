@@ -165,9 +165,10 @@ test.describe.serial("aligning and comparing the demo micrographs", () => {
     await expect(page.getByTestId("save-state")).toHaveAttribute("data-status", "saved");
     const shapes = await page.evaluate(async () => {
       const id = location.pathname.split("/").pop();
-      return (await (await fetch(`/api/dies/${id}/markup`)).json()) as { kind: string; geometry: { coordinates: number[][][] } }[];
+      return (await (await fetch(`/api/dies/${id}/markup`)).json()) as { id: string; kind: string; geometry: { coordinates: number[][][] } }[];
     });
-    const ring = shapes.filter((s) => s.kind === "pad").pop()!.geometry.coordinates[0];
+    const drawn = shapes.filter((s) => s.kind === "pad").pop()! as { id?: string; geometry: { coordinates: number[][][] } };
+    const ring = drawn.geometry.coordinates[0];
     const centre = [(Math.min(...ring.map((p) => p[0])) + Math.max(...ring.map((p) => p[0]))) / 2, (Math.min(...ring.map((p) => p[1])) + Math.max(...ring.map((p) => p[1]))) / 2] as const;
 
     // Switch to the dark field: the same die-frame pad is drawn through its (aligned) transform
@@ -184,5 +185,7 @@ test.describe.serial("aligning and comparing the demo micrographs", () => {
     // One fit-view screen px is about 7 µm; the alignment from fit-view clicks is good to a few µm.
     expect(Math.abs(o.x + sx - truth.x)).toBeLessThan(3);
     expect(Math.abs(o.y + sy - truth.y)).toBeLessThan(3);
+    // Leave the shared demo die as seeded for the suites that follow.
+    await page.evaluate(async (id) => fetch(`/api/markup/${id}`, { method: "DELETE" }), drawn.id);
   });
 });

@@ -21,10 +21,13 @@ function newest(p) {
 }
 
 export function buildIfStale(env = process.env) {
-  const id = path.join(ROOT, env.KERFLINE_DIST_DIR || ".next", "BUILD_ID");
-  const built = fs.existsSync(id) ? fs.statSync(id).mtimeMs : 0;
+  const dist = path.join(ROOT, env.KERFLINE_DIST_DIR || ".next");
+  // The stamp holds the newest source time seen when the last build STARTED, so an edit made
+  // while a build runs still counts as newer than that build.
+  const stamp = path.join(dist, "kerfline-sources-mtime");
+  const built = fs.existsSync(path.join(dist, "BUILD_ID")) && fs.existsSync(stamp) ? Number(fs.readFileSync(stamp, "utf8")) : 0;
   const src = Math.max(...SOURCES.map((s) => newest(path.join(ROOT, s))));
-  if (built > src && env.KERFLINE_FORCE_BUILD !== "1") return;
+  if (built >= src && env.KERFLINE_FORCE_BUILD !== "1") return;
   console.log("[kerfline] building the app (next build)…");
   const r = spawnSync(process.execPath, [path.join(ROOT, "node_modules/next/dist/bin/next"), "build"], {
     cwd: ROOT,
@@ -32,6 +35,7 @@ export function buildIfStale(env = process.env) {
     env: { ...env, NEXT_TELEMETRY_DISABLED: "1" },
   });
   if (r.status !== 0) process.exit(r.status ?? 1);
+  fs.writeFileSync(stamp, String(src));
 }
 
 if (import.meta.url === `file://${process.argv[1]}`) buildIfStale();

@@ -40,6 +40,7 @@ async function scriptedPanZoom(page: Page): Promise<number[]> {
 }
 
 async function openDie(page: Page, url: string) {
+  page.on("pageerror", (e) => console.error("page error:", e.message));
   await page.goto(`${url}/sign-in`);
   await page.getByLabel("E-mail").fill("analyst@fjordlight.test");
   await page.getByLabel("Password").fill(DEMO_PASSWORD);

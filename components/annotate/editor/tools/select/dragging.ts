@@ -2,6 +2,7 @@ import { translateGeometry } from "@/lib/geometry/transform-geometry";
 import type { AnyShape } from "@/lib/markup/types";
 import { withGeometry } from "../../model";
 import type { EditorContext, ToolState } from "../../tool-state";
+import { liveDragState } from "../shared/live-drag";
 import type { PointerInput } from "../../types";
 
 /**
@@ -11,8 +12,7 @@ import type { PointerInput } from "../../types";
 export function draggingSelection(ctx: EditorContext, down: PointerInput): ToolState {
   const shapes = ctx.shapes();
   const originals = [...ctx.selection()].map((id) => shapes.get(id)).filter((s): s is AnyShape => s !== undefined);
-  const live = ctx.beginLiveEdit();
-  const update = (e: PointerInput) => {
+  return liveDragState(ctx, "select.dragging", (e: PointerInput) => {
     let dx = e.x - down.x;
     let dy = e.y - down.y;
     if (e.shift) {
@@ -20,19 +20,6 @@ export function draggingSelection(ctx: EditorContext, down: PointerInput): ToolS
       else dx = 0;
     }
     const now = ctx.stamp.now();
-    live.set(originals.map((s) => withGeometry(s, translateGeometry(s.geometry, dx, dy), now)));
-  };
-  return {
-    name: "select.dragging",
-    interacting: true,
-    pointerMove: update,
-    pointerUp(e) {
-      update(e);
-      live.commit();
-      ctx.toIdle();
-    },
-    cancel() {
-      live.cancel();
-    },
-  };
+    return originals.map((s) => withGeometry(s, translateGeometry(s.geometry, dx, dy), now));
+  });
 }

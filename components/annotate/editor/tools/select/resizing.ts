@@ -4,6 +4,7 @@ import type { Handle } from "../../handles";
 import { withGeometry } from "../../model";
 import { boxFromCorners, rectangleGeometry } from "../../rectangle";
 import type { EditorContext, ToolState } from "../../tool-state";
+import { liveDragState } from "../shared/live-drag";
 import type { PointerInput } from "../../types";
 import { editableVertices } from "../../vertices";
 
@@ -22,24 +23,10 @@ export function resizing(ctx: EditorContext, shape: AnyShape, handle: Handle, do
   const fixed = corners[(handle.index + 2) % 4];
   // Where the press was relative to the corner, so the corner does not jump to the pointer.
   const offset: Position = [handle.position[0] - down.x, handle.position[1] - down.y];
-  const live = ctx.beginLiveEdit();
-  const update = (e: PointerInput) => {
+  return liveDragState(ctx, "select.resizing", (e: PointerInput) => {
     const dx = atLeast(e.x + offset[0] - fixed[0], e.toleranceUm);
     const dy = atLeast(e.y + offset[1] - fixed[1], e.toleranceUm);
     const box = boxFromCorners(fixed, [fixed[0] + dx, fixed[1] + dy]);
-    live.set([withGeometry(shape, rectangleGeometry(box), ctx.stamp.now())]);
-  };
-  return {
-    name: "select.resizing",
-    interacting: true,
-    pointerMove: update,
-    pointerUp(e) {
-      update(e);
-      live.commit();
-      ctx.toIdle();
-    },
-    cancel() {
-      live.cancel();
-    },
-  };
+    return [withGeometry(shape, rectangleGeometry(box), ctx.stamp.now())];
+  });
 }

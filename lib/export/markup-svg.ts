@@ -4,6 +4,7 @@ import type { Affine2x3, Position } from "@/lib/geometry/types";
 import { HALO_COLOUR, KIND_STYLE, PAD_STATE_STYLE } from "@/lib/markup/palette";
 import { shapeLabel } from "@/lib/markup/markup-table";
 import type { AnyShape } from "@/lib/markup/types";
+import { textWidthPx } from "@/lib/fonts/app-fonts";
 import { clip, n2, xmlEscape } from "./svg-text";
 
 /** Sizes of strokes and text in output pixels, scaled with the output's width. */
@@ -55,14 +56,46 @@ export function shapeSvg(shape: AnyShape, m: Affine2x3, style: MarkupStyle): str
   return `<path d="${d}" fill="none" stroke="${HALO_COLOUR}" stroke-width="${n2(sw * 2)}" fill-rule="evenodd"/><path d="${d}" fill="${fill}" stroke="${ks.colour}" stroke-width="${n2(sw)}" fill-rule="evenodd"${dashFor(dash)}/>`;
 }
 
-/** A shape's label beside its centre, with a halo so it reads on any background. */
+/** Opacity of the dark plate under each label. */
+const LABEL_PLATE_OPACITY = 0.62;
+
+/**
+ * A shape's label centred on it, on a dark rounded plate so it reads on any background. A
+ * plate rather than a stroked halo: librsvg strokes text by converting it to outlines, three
+ * times the cost of filling it, and an export may carry thousands of labels.
+ */
 export function labelSvg(shape: AnyShape, m: Affine2x3, style: MarkupStyle): string {
-  const text = shapeLabel(shape);
-  if (!text) return "";
+  const box = labelBox(shape, m, style);
+  if (!box) return "";
+  const f = style.fontPx;
+  const plate = `<rect x="${n2(box.x)}" y="${n2(box.y)}" width="${n2(box.width)}" height="${n2(box.height)}" rx="${n2(f * 0.25)}" fill="#000" fill-opacity="${LABEL_PLATE_OPACITY}"/>`;
+  return `${plate}<text x="${n2(box.x + f * 0.25)}" y="${n2(box.baseline)}" font-size="${n2(f)}" fill="${KIND_STYLE[shape.kind].colour}">${xmlEscape(box.text)}</text>`;
+}
+
+/** Where a shape's label plate goes in output px (null when it has no label). */
+export function labelBox(shape: AnyShape, m: Affine2x3, style: MarkupStyle): { text: string; x: number; y: number; width: number; height: number; baseline: number } | null {
+  const text = clip(shapeLabel(shape), 40);
+  if (!text) return null;
   const [cx, cy] = geometryCentre(shape.geometry);
   const [x, y] = applyAffine(m, cx, cy);
-  const dy = shape.geometry.type === "Point" ? -style.stroke * 4 : style.fontPx * 0.35;
-  return `<text x="${n2(x)}" y="${n2(y + dy)}" font-size="${n2(style.fontPx)}" text-anchor="middle" fill="${KIND_STYLE[shape.kind].colour}" stroke="#000" stroke-opacity="0.7" stroke-width="${n2(style.fontPx / 6)}" paint-order="stroke">${xmlEscape(clip(text, 40))}</text>`;
+  const f = style.fontPx;
+  // Baseline: centred on the shape, or above a point marker.
+  const baseline = shape.geometry.type === "Point" ? y - style.stroke * 4 - f * 0.3 : y + f * 0.35;
+  const width = measured(text, f) + f * 0.5;
+  return { text, x: x - width / 2, y: baseline - f, width, height: f * 1.3, baseline };
+}
+
+/** Label widths, remembered: a label crossing tiles is measured once. */
+const widths = new Map<string, number>();
+function measured(text: string, f: number): number {
+  const key = `${f}|${text}`;
+  let w = widths.get(key);
+  if (w === undefined) {
+    if (widths.size > 50_000) widths.clear();
+    w = textWidthPx(text, f);
+    widths.set(key, w);
+  }
+  return w;
 }
 
 /** A numbered marker for a review thread (filled when open, hollow when resolved). */

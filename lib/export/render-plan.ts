@@ -1,3 +1,4 @@
+import { applyAffine, composeAffine, invertAffine } from "@/lib/geometry/affine";
 import type { Affine2x3 } from "@/lib/geometry/types";
 
 /**
@@ -17,8 +18,12 @@ export type PlanRequest = { readonly region?: DieRegion; readonly widthPx?: numb
 
 export type SourceImage = { readonly width: number; readonly height: number; readonly transform: Affine2x3 };
 
-/** An integer rectangle of source pixels and where (and how large) it lands in the output. */
-export type SourceWindow = {
+/**
+ * An axis-aligned transform (x from a, y from d; either may mirror): an integer rectangle of
+ * source pixels and where (and how large) it lands in the output once resized.
+ */
+export type AxisWindow = {
+  readonly kind: "axis";
   readonly left: number;
   readonly top: number;
   readonly width: number;
@@ -32,6 +37,34 @@ export type SourceWindow = {
   readonly flop: boolean;
   readonly flip: boolean;
 };
+
+/**
+ * A transform that rotates or shears: the source rectangle is first resized by a uniform
+ * factor to about the output scale (so the resampling filters, not the affine interpolator,
+ * do the shrinking), then mapped by a residual affine whose output is placed on the canvas.
+ */
+export type AffineWindow = {
+  readonly kind: "affine";
+  readonly left: number;
+  readonly top: number;
+  readonly width: number;
+  readonly height: number;
+  /** Size of the window after the uniform resize. */
+  readonly resizedWidth: number;
+  readonly resizedHeight: number;
+  /** Resized-window px → output px, linear part [a, b, c, d] (x' = a·x + b·y), as libvips' affine takes it. */
+  readonly matrix: readonly [number, number, number, number];
+  /** Sub-pixel displacement handed to the affine (odx, ody), in [0, 1). */
+  readonly odx: number;
+  readonly ody: number;
+  /** Size of the affine's output and where its top-left pixel lands on the canvas (may be negative). */
+  readonly outWidth: number;
+  readonly outHeight: number;
+  readonly outLeft: number;
+  readonly outTop: number;
+};
+
+export type SourceWindow = AxisWindow | AffineWindow;
 
 export type RenderPlan = {
   readonly region: DieRegion;
@@ -51,12 +84,16 @@ export type PlanResult = { readonly ok: true; readonly plan: RenderPlan } | { re
 
 const ROTATION_TOLERANCE = 1e-9;
 
-/** The die rectangle the micrograph covers, for dies of unknown size. */
+function corners(width: number, height: number): [number, number][] {
+  return [[0, 0], [width, 0], [0, height], [width, height]];
+}
+
+/** The die rectangle the micrograph covers (its bounding box when rotated), for dies of unknown size. */
 export function imageExtentUm(image: SourceImage): DieRegion {
-  const [[a, , tx], [, d, ty]] = image.transform;
-  const xs = [tx, tx + a * image.width];
-  const ys = [ty, ty + d * image.height];
-  return { x: Math.min(...xs), y: Math.min(...ys), width: Math.abs(a * image.width), height: Math.abs(d * image.height) };
+  const pts = corners(image.width, image.height).map(([x, y]) => applyAffine(image.transform, x, y));
+  const xs = pts.map((p) => p[0]);
+  const ys = pts.map((p) => p[1]);
+  return { x: Math.min(...xs), y: Math.min(...ys), width: Math.max(...xs) - Math.min(...xs), height: Math.max(...ys) - Math.min(...ys) };
 }
 
 function outputScale(region: DieRegion, req: PlanRequest, nativeUmPerPx: number): number {
@@ -67,7 +104,7 @@ function outputScale(region: DieRegion, req: PlanRequest, nativeUmPerPx: number)
 }
 
 /** The source window for an axis-aligned transform (x from a, y from d; either may mirror). */
-function sourceWindow(image: SourceImage, region: DieRegion, s: number, W: number, H: number): SourceWindow | null {
+function axisWindow(image: SourceImage, region: DieRegion, W: number, H: number): AxisWindow | null {
   const [[a, , tx], [, d, ty]] = image.transform;
   // Image x (fractional) at the output's left and right edges, and image y at its top and bottom.
   const xl = (region.x - tx) / a;
@@ -89,6 +126,7 @@ function sourceWindow(image: SourceImage, region: DieRegion, s: number, W: numbe
   const outLeft = flop ? (x1 - right) * kx : (left - x0) * kx;
   const outTop = flip ? (y1 - bottom) * ky : (top - y0) * ky;
   return {
+    kind: "axis",
     left,
     top,
     width: right - left,
@@ -102,20 +140,79 @@ function sourceWindow(image: SourceImage, region: DieRegion, s: number, W: numbe
   };
 }
 
+/** Source pixels kept around the exact window so the interpolator has its neighbours. */
+const AFFINE_MARGIN_PX = 3;
+
+/** The source window for a transform that rotates or shears; `toOutput` maps image px → output px. */
+function affineWindow(image: SourceImage, toOutput: Affine2x3, W: number, H: number): AffineWindow | null {
+  const back = invertAffine(toOutput);
+  const pts = corners(W, H).map(([x, y]) => applyAffine(back, x, y));
+  const xs = pts.map((p) => p[0]);
+  const ys = pts.map((p) => p[1]);
+  const left = Math.max(0, Math.floor(Math.min(...xs)) - AFFINE_MARGIN_PX);
+  const top = Math.max(0, Math.floor(Math.min(...ys)) - AFFINE_MARGIN_PX);
+  const right = Math.min(image.width, Math.ceil(Math.max(...xs)) + AFFINE_MARGIN_PX);
+  const bottom = Math.min(image.height, Math.ceil(Math.max(...ys)) + AFFINE_MARGIN_PX);
+  if (right <= left || bottom <= top) return null;
+  const [[a, b, tx], [c, d, ty]] = toOutput;
+  // Shrink first by the output's mean scale; never enlarge here (the affine does that, and says so).
+  const k = Math.min(1, Math.sqrt(Math.abs(a * d - b * c)));
+  const width = right - left;
+  const height = bottom - top;
+  const resizedWidth = Math.max(1, Math.round(width * k));
+  const resizedHeight = Math.max(1, Math.round(height * k));
+  const rx = resizedWidth / width;
+  const ry = resizedHeight / height;
+  // Resized (u, v) → image (left + u / rx, top + v / ry) → output.
+  const m: [number, number, number, number] = [a / rx, b / ry, c / rx, d / ry];
+  const ox = a * left + b * top + tx;
+  const oy = c * left + d * top + ty;
+  // Pixel i covers [i, i + 1): its centre i + ½ lands on output x = m·(i + ½) + o, which is
+  // the centre of output index x − ½. libvips counts in indices (centres at integers).
+  const px = ox + (m[0] + m[1]) / 2 - 0.5;
+  const py = oy + (m[2] + m[3]) / 2 - 0.5;
+  // libvips' affine output is the bounding box of the transformed input rectangle, its corner
+  // rounded to the nearest pixel (vips__transform_set_area); index j of that output is canvas
+  // index j + (p + corner). The integer part places the output, the fraction goes to odx/ody.
+  const box = corners(resizedWidth, resizedHeight);
+  const rx0 = box.map(([u, v]) => m[0] * u + m[1] * v);
+  const ry0 = box.map(([u, v]) => m[2] * u + m[3] * v);
+  const round = (v: number) => Math.floor(v + 0.5);
+  const placeX = px + round(Math.min(...rx0));
+  const placeY = py + round(Math.min(...ry0));
+  const outLeft = Math.floor(placeX);
+  const outTop = Math.floor(placeY);
+  return {
+    kind: "affine",
+    left,
+    top,
+    width,
+    height,
+    resizedWidth,
+    resizedHeight,
+    matrix: m,
+    odx: placeX - outLeft,
+    ody: placeY - outTop,
+    outWidth: round(Math.max(...rx0) - Math.min(...rx0)),
+    outHeight: round(Math.max(...ry0) - Math.min(...ry0)),
+    outLeft,
+    outTop,
+  };
+}
+
 /**
  * Plans an export of `req.region` (die µm; absent = the whole die, or the micrograph's extent
  * when the die has no size) at `umPerPx`, or at `region.width / widthPx`. Refuses outputs over
- * 16,384 px and micrographs whose transform rotates or shears (not yet supported); warns when
- * the output enlarges the source.
+ * 16,384 px; warns when the output enlarges the source. Micrographs whose alignment rotates or
+ * shears them are resampled through their transform, so the export is always in the die frame.
  */
 export function planRender(image: SourceImage, die: { widthUm: number | null; heightUm: number | null }, req: PlanRequest): PlanResult {
   const [[a, b], [c, d]] = image.transform;
-  if (Math.abs(b) > ROTATION_TOLERANCE * Math.abs(a) || Math.abs(c) > ROTATION_TOLERANCE * Math.abs(d)) {
-    return { ok: false, message: "This micrograph's alignment rotates it against the die frame; exports of rotated micrographs are not supported yet. Export the reference micrograph." };
-  }
+  const axisAligned = Math.abs(b) <= ROTATION_TOLERANCE * Math.abs(a) && Math.abs(c) <= ROTATION_TOLERANCE * Math.abs(d) && a !== 0 && d !== 0;
   const region = req.region ?? (die.widthUm && die.heightUm ? { x: 0, y: 0, width: die.widthUm, height: die.heightUm } : imageExtentUm(image));
   if (!(region.width > 0 && region.height > 0)) return { ok: false, message: "The region must have a positive width and height." };
-  const native = Math.sqrt(Math.abs(a * d));
+  const native = Math.sqrt(Math.abs(a * d - b * c));
+  if (!(native > 0)) return { ok: false, message: "This micrograph's transform is degenerate; align it again." };
   const s = outputScale(region, req, native);
   const width = Math.round(region.width / s);
   const height = Math.round(region.height / s);
@@ -123,14 +220,14 @@ export function planRender(image: SourceImage, die: { widthUm: number | null; he
     return { ok: false, message: `The output would be ${width} × ${height} px; at most ${MAX_OUTPUT_PX} px on each side. Choose a coarser scale or a smaller region.` };
   }
   if (width < 1 || height < 1) return { ok: false, message: "The output would be smaller than one pixel; choose a finer scale." };
-  const source = sourceWindow(image, region, s, width, height);
-  const k = s / native;
-  const warnings: string[] = [];
-  if (k < 1 - 1e-9) warnings.push(`The output is enlarged ${(1 / k).toFixed(2)}× beyond the micrograph's resolution (${native.toPrecision(3)} µm/px); it shows no more detail than the source.`);
-  if (!source) warnings.push("The region does not overlap this micrograph; only the markup is drawn.");
   const dieToOutput: Affine2x3 = [
     [1 / s, 0, -region.x / s],
     [0, -1 / s, (region.y + region.height) / s],
   ];
+  const source = axisAligned ? axisWindow(image, region, width, height) : affineWindow(image, composeAffine(dieToOutput, image.transform), width, height);
+  const k = s / native;
+  const warnings: string[] = [];
+  if (k < 1 - 1e-9) warnings.push(`The output is enlarged ${(1 / k).toFixed(2)}× beyond the micrograph's resolution (${native.toPrecision(3)} µm/px); it shows no more detail than the source.`);
+  if (!source) warnings.push("The region does not overlap this micrograph; only the markup is drawn.");
   return { ok: true, plan: { region, umPerPx: s, width, height, dieToOutput, source, sourcePxPerOutputPx: k, warnings } };
 }

@@ -116,3 +116,138 @@ describe("renderAnnotatedPng", () => {
     expect(meta.channels).toBe(3);
   });
 });
+
+// A micrograph aligned at 30° to the die frame, 2 µm/px, y flipped (a reflection-rotation):
+// die = T · px with T = [[2c, 2s, tx], [2s, −2c, ty]], c = cos 30°, s = sin 30°. Its linear part
+// is 2 × a symmetric orthogonal matrix, so the inverse is written by hand: px = ½ · [[c, s], [s, −c]] · (die − t).
+describe("renderAnnotatedPng of a rotated micrograph", () => {
+  const c = Math.cos(Math.PI / 6);
+  const s = Math.sin(Math.PI / 6);
+  // Chosen so the image centre (600, 450) lands on the die centre (1200, 900).
+  const tx = 1200 - (2 * c * 600 + 2 * s * 450);
+  const ty = 900 - (2 * s * 600 - 2 * c * 450);
+  const rotated = [
+    [2 * c, 2 * s, tx],
+    [2 * s, -2 * c, ty],
+  ] as const;
+  const toImage = (x: number, y: number): [number, number] => [0.5 * (c * (x - tx) + s * (y - ty)), 0.5 * (s * (x - tx) - c * (y - ty))];
+  const marked = path.join(dir, "marked.png");
+
+  beforeAll(async () => {
+    // The same ramp, plus a white square over image px [300, 320) × [400, 420): centre (310, 410).
+    const raw = Buffer.alloc(SRC_W * SRC_H * 3);
+    for (let y = 0; y < SRC_H; y++)
+      for (let x = 0; x < SRC_W; x++) {
+        const i = (y * SRC_W + x) * 3;
+        const white = x >= 300 && x < 320 && y >= 400 && y < 420;
+        raw[i] = white ? 255 : Math.round((x / SRC_W) * 120);
+        raw[i + 1] = white ? 255 : Math.round((y / SRC_H) * 120);
+        raw[i + 2] = white ? 255 : 60;
+      }
+    writeFileSync(marked, await sharp(raw, { raw: { width: SRC_W, height: SRC_H, channels: 3 } }).png().toBuffer());
+  });
+
+  function rotatedPlan(req: Parameters<typeof planRender>[2]): RenderPlan {
+    const r = planRender({ width: SRC_W, height: SRC_H, transform: rotated }, die, req);
+    if (!r.ok) throw new Error(r.message);
+    return r.plan;
+  }
+
+  it("places a feature of the micrograph where its transform puts it in the die frame (±1 px)", async () => {
+    // Whole die at 4 µm/px: output X = xµm / 4, Y = (1800 − yµm) / 4.
+    const p = rotatedPlan({ umPerPx: 4 });
+    expect(p.source?.kind).toBe("affine");
+    const { png } = await renderAnnotatedPngBuffer({ ...input(p), original: marked });
+    const img = await rawOf(png);
+    let sx = 0;
+    let sy = 0;
+    let n = 0;
+    for (let y = 0; y < p.height; y++)
+      for (let x = 0; x < p.width; x++) {
+        const [r, g, b] = img.at(x, y);
+        if (r > 200 && g > 200 && b > 200) {
+          sx += x + 0.5;
+          sy += y + 0.5;
+          n++;
+        }
+      }
+    const dieX = 2 * c * 310 + 2 * s * 410 + tx;
+    const dieY = 2 * s * 310 - 2 * c * 410 + ty;
+    expect(n).toBeGreaterThan(10); // 40 × 40 µm → about 10 × 10 output px
+    expect(Math.abs(sx / n - dieX / 4)).toBeLessThanOrEqual(1);
+    expect(Math.abs(sy / n - (1800 - dieY) / 4)).toBeLessThanOrEqual(1);
+  });
+
+  it("samples the micrograph through the inverse transform: ramp values match, background outside", async () => {
+    const p = rotatedPlan({ umPerPx: 4 });
+    const { png } = await renderAnnotatedPngBuffer(input(p));
+    const img = await rawOf(png);
+    let inside = 0;
+    let outside = 0;
+    for (let y = 2; y < p.height; y += 7)
+      for (let x = 2; x < p.width; x += 7) {
+        const [ix, iy] = toImage(4 * (x + 0.5), 1800 - 4 * (y + 0.5));
+        const margin = Math.min(ix, iy, SRC_W - ix, SRC_H - iy);
+        const [r, g, b] = img.at(x, y);
+        if (margin > 4) {
+          // The ramp is linear, so resampling keeps it: red = 120·x/W, green = 120·y/H, blue 60.
+          expect(Math.abs(r - (120 * ix) / SRC_W)).toBeLessThanOrEqual(3);
+          expect(Math.abs(g - (120 * iy) / SRC_H)).toBeLessThanOrEqual(3);
+          expect(Math.abs(b - 60)).toBeLessThanOrEqual(3);
+          inside++;
+        } else if (margin < -4) {
+          expect([r, g, b]).toEqual([40, 44, 48]);
+          outside++;
+        }
+      }
+    expect(inside).toBeGreaterThan(200);
+    expect(outside).toBeGreaterThan(100);
+  });
+
+  it("draws markup in the die frame, unaffected by the micrograph's rotation", async () => {
+    const p = rotatedPlan({ region: { x: 600, y: 200, width: 1000, height: 700 }, umPerPx: 4 });
+    const { png } = await renderAnnotatedPngBuffer(input(p, [pad]));
+    const img = await rawOf(png);
+    const row = Math.round((900 - 500) / 4);
+    const hits = Array.from({ length: p.width }, (_, x) => x).filter((x) => isPadColour(img.at(x, row)));
+    expect(Math.abs(Math.min(...hits) - (800 - 600) / 4)).toBeLessThanOrEqual(2);
+    expect(Math.abs(Math.max(...hits) - (1000 - 600) / 4)).toBeLessThanOrEqual(2);
+  });
+});
+
+describe("renderAnnotatedPngFile over several bands", () => {
+  it("gives the same pixels as the single-pass render, threads and labels included", async () => {
+    // 1200 px wide at 2 µm/px: 900 image rows + footer, two bands of 512 rows.
+    const p = plan({ umPerPx: 2 });
+    const labelled = { ...pad, properties: { ...pad.properties, label: "VDD" } } as AnyShape;
+    const threads = [{ at: [1200, 900] as const, open: true, number: 1 }, { at: [1210, 505] as const, open: false, number: 2 }];
+    const full = { ...input(p, [labelled]), threads, labels: true };
+    const out = path.join(dir, "banded.png");
+    const info = await renderAnnotatedPngFile(full, out);
+    expect(info.height).toBeGreaterThan(512);
+    const { png } = await renderAnnotatedPngBuffer(full);
+    const a = await sharp(out).raw().toBuffer();
+    const b = await sharp(png).raw().toBuffer();
+    expect(a.length).toBe(b.length);
+    let diff = 0;
+    for (let i = 0; i < a.length; i++) diff = Math.max(diff, Math.abs(a[i] - b[i]));
+    expect(diff).toBe(0);
+    // The open thread's marker is filled white at die (1200, 900) → output (600, 450), beside its number.
+    const img = await rawOf(png);
+    const r = (p.width / 90) * 0.75;
+    expect(img.at(Math.round(600 - r * 0.6), 450).every((v) => v > 240)).toBe(true);
+    // The resolved one is hollow: its centre keeps the micrograph's ramp colour (blue 60).
+    const hollow = img.at(Math.round(1210 / 2 + r * 0.5), Math.round((1800 - 505) / 2));
+    expect(Math.abs(hollow[2] - 60)).toBeLessThan(8);
+  });
+
+  it("leaves no intermediate files behind, after success and after a failure", async () => {
+    const { readdirSync, mkdirSync } = await import("node:fs");
+    const sub = path.join(dir, "clean");
+    mkdirSync(sub);
+    await renderAnnotatedPngFile({ ...input(plan({ umPerPx: 2 })), threads: [] }, path.join(sub, "ok.png"));
+    expect(readdirSync(sub)).toEqual(["ok.png"]);
+    await expect(renderAnnotatedPngFile({ ...input(plan({ umPerPx: 2 })), original: path.join(dir, "missing.png") }, path.join(sub, "bad.png"))).rejects.toThrow();
+    expect(readdirSync(sub)).toEqual(["ok.png"]);
+  });
+});

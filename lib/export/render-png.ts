@@ -1,23 +1,22 @@
 import { createReadStream, createWriteStream } from "node:fs";
 import { open, rm, stat } from "node:fs/promises";
+import path from "node:path";
 import { pipeline } from "node:stream/promises";
-import sharp, { type Sharp } from "sharp";
-import { configureSharp, sharpInput } from "@/lib/tiles/limits";
+import sharp, { type OverlayOptions, type Sharp } from "sharp";
 import type { AnyShape, MarkupKind } from "@/lib/markup/types";
-import { applyAffine } from "@/lib/geometry/affine";
-import { boundingBox } from "@/lib/geometry/measure";
-import type { Affine2x3 } from "@/lib/geometry/types";
+import { BACKGROUND, baseLayer, blank, type Scratch } from "./base-layer";
 import { footerSvg, formatScale, type PlacedScaleBar, type TitleBlock } from "./footer-svg";
-import { markupLayerSvg, markupStyle, type ThreadMark } from "./markup-svg";
+import type { ThreadMark } from "./markup-svg";
+import { EXPORT_FONT_FAMILY, markupTiles, type OverlayTile } from "./overlay-tiles";
 import { textChunk } from "./png-text";
 import type { RenderPlan } from "./render-plan";
 
 /**
- * Renders an annotated PNG with sharp in one streaming pipeline: the source window is cut from
- * the original (extract), mirrored if the transform mirrors, resized to the output scale,
- * trimmed and padded onto the output, extended by the footer, and the markup, legend, title
- * block and scale bar composited over it as one SVG. libvips evaluates this on demand in
- * strips, so memory stays near a few output rows whatever the source size.
+ * Renders an annotated PNG with sharp in two stages. Stage one resamples the source window
+ * onto the output grid (base-layer.ts). Stage two extends it by the footer and composites the
+ * markup, rasterised beforehand in small tiles (overlay-tiles.ts), and the footer over it,
+ * streaming the PNG out. Memory stays near the tiles' compressed size plus a few output rows:
+ * the intermediate raster lives in a file beside the output.
  */
 
 export type RenderInput = {
@@ -28,41 +27,11 @@ export type RenderInput = {
   readonly threads: readonly ThreadMark[];
   readonly labels: boolean;
   readonly title: TitleBlock;
+  /** Called with the fraction done (0–1) as the stages finish. */
+  readonly onProgress?: (fraction: number) => void;
 };
 
 export type RenderInfo = { readonly width: number; readonly height: number; readonly imageHeight: number; readonly scaleBar: PlacedScaleBar; readonly kinds: readonly MarkupKind[] };
-
-const BACKGROUND = { r: 40, g: 44, b: 48 };
-
-/** The source window placed on the output canvas (trimmed and padded), or a blank canvas. */
-function imageLayer(input: RenderInput, footer: number): Sharp {
-  const { plan, original } = input;
-  const s = plan.source;
-  const W = plan.width;
-  const H = plan.height;
-  if (!s || !original) {
-    configureSharp();
-    return sharp({ create: { width: W, height: H + footer, channels: 3, background: BACKGROUND } });
-  }
-  let img = sharpInput(original, input.pixelCap).extract({ left: s.left, top: s.top, width: s.width, height: s.height });
-  if (s.flop) img = img.flop();
-  if (s.flip) img = img.flip();
-  img = img.resize(s.outWidth, s.outHeight, { fit: "fill", kernel: "lanczos3" });
-  const cropLeft = Math.max(0, -s.outLeft);
-  const cropTop = Math.max(0, -s.outTop);
-  const placeLeft = Math.max(0, s.outLeft);
-  const placeTop = Math.max(0, s.outTop);
-  const visW = Math.max(1, Math.min(s.outWidth - cropLeft, W - placeLeft));
-  const visH = Math.max(1, Math.min(s.outHeight - cropTop, H - placeTop));
-  if (cropLeft || cropTop || visW !== s.outWidth || visH !== s.outHeight) img = img.extract({ left: cropLeft, top: cropTop, width: visW, height: visH });
-  return img.extend({
-    left: placeLeft,
-    top: placeTop,
-    right: Math.max(0, W - placeLeft - visW),
-    bottom: Math.max(0, H - placeTop - visH) + footer,
-    background: BACKGROUND,
-  });
-}
 
 /** The kinds present among the shapes, in the palette's order, for the legend. */
 function kindsShown(shapes: readonly AnyShape[]): MarkupKind[] {
@@ -70,52 +39,102 @@ function kindsShown(shapes: readonly AnyShape[]): MarkupKind[] {
   return (Object.keys({ pad: 1, wire_bond: 1, block: 1, symmetry_axis: 1, trace: 1, ruler: 1, note: 1, die_outline: 1 }) as MarkupKind[]).filter((k) => present.has(k));
 }
 
-/** Height of one overlay band: libvips renders an SVG tile by tile, each tile drawing every element. */
-const BAND_PX = 512;
+/** SVG rasterisations and bands run this many at a time (one per core). */
+const CONCURRENCY = 2;
 
-/** The output rows [top, bottom] a shape may touch, with room for its stroke and label. */
-function rowSpan(shape: AnyShape, m: Affine2x3, margin: number): [number, number] {
-  const b = boundingBox(shape.geometry);
-  const ys = [applyAffine(m, b.minX, b.minY)[1], applyAffine(m, b.maxX, b.maxY)[1]];
-  return [Math.min(...ys) - margin, Math.max(...ys) + margin];
+/** Rows of output drawn per band, and the height of the markup tiles. */
+export const BAND_ROWS = 512;
+
+/** Runs `job` over `items`, `CONCURRENCY` at a time, keeping the results in order. */
+async function inTurn<T, R>(items: readonly T[], job: (item: T, index: number) => Promise<R>): Promise<R[]> {
+  const out: R[] = new Array(items.length);
+  let next = 0;
+  const worker = async () => {
+    while (next < items.length) {
+      const i = next++;
+      out[i] = await job(items[i], i);
+    }
+  };
+  await Promise.all(Array.from({ length: Math.min(CONCURRENCY, items.length) }, worker));
+  return out;
+}
+
+/** Rasterises one tile to raw RGBA, placed relative to its band's top row. */
+async function rasterise(t: OverlayTile, bandTop: number): Promise<OverlayOptions> {
+  const { data, info } = await sharp(Buffer.from(t.svg), { limitInputPixels: false }).raw().toBuffer({ resolveWithObject: true });
+  return { input: data, raw: { width: info.width, height: info.height, channels: 4 }, left: t.left, top: t.top - bandTop };
+}
+
+/** The footer cut along the band grid: full-width tiles, each shifting the footer into place. */
+function footerTiles(svg: string, width: number, top: number, height: number): OverlayTile[] {
+  const tiles: OverlayTile[] = [];
+  for (let y = top; y < top + height; y = (Math.floor(y / BAND_ROWS) + 1) * BAND_ROWS) {
+    const h = Math.min((Math.floor(y / BAND_ROWS) + 1) * BAND_ROWS, top + height) - y;
+    tiles.push({ svg: `<svg xmlns="http://www.w3.org/2000/svg" width="${width}" height="${h}" font-family="${EXPORT_FONT_FAMILY}"><g transform="translate(0 ${-y})">${svg}</g></svg>`, left: 0, top: y, width, height: h });
+  }
+  return tiles;
+}
+
+type Band = { readonly top: number; readonly height: number; readonly tiles: OverlayTile[] };
+
+/** One band of the output: its rows of the image area (or footer background), markup drawn over. */
+async function drawBand(base: Sharp, band: Band, width: number, imageHeight: number): Promise<Sharp> {
+  const imageRows = Math.max(0, Math.min(band.height, imageHeight - band.top));
+  let img: Sharp;
+  if (imageRows === 0) img = blank(width, band.height);
+  else {
+    img = base.clone();
+    if (band.top !== 0 || imageRows !== imageHeight) img = img.extract({ left: 0, top: band.top, width, height: imageRows });
+    if (imageRows < band.height) img = img.extend({ bottom: band.height - imageRows, background: BACKGROUND });
+  }
+  const overlays = await inTurn(band.tiles, (t) => rasterise(t, band.top));
+  return overlays.length ? img.composite(overlays).removeAlpha() : img;
 }
 
 /**
- * The markup as horizontal bands of SVG, each holding only the shapes that reach into it, so
- * the cost of rasterising grows with the shapes per band rather than shapes × tiles.
+ * Builds the final pipeline. Small renders (scratch in memory) draw everything in one band;
+ * file renders draw bands of BAND_ROWS rows, each written out, then stacked while the PNG is
+ * encoded, so no stage holds more than a band's markup at once.
  */
-function markupBands(input: RenderInput): { input: Buffer; top: number; left: number; limitInputPixels: false }[] {
+async function annotated(input: RenderInput, scratch: Scratch): Promise<{ pipeline: Sharp; info: RenderInfo }> {
   const { plan } = input;
-  const style = markupStyle(plan.width);
-  const margin = style.fontPx * 2 + style.stroke * 4;
-  const spans = input.shapes.map((s) => rowSpan(s, plan.dieToOutput, margin));
-  const bands = [];
-  for (let top = 0; top < plan.height; top += BAND_PX) {
-    const height = Math.min(BAND_PX, plan.height - top);
-    const shapes = input.shapes.filter((_, i) => spans[i][1] >= top && spans[i][0] <= top + height);
-    if (shapes.length === 0 && input.threads.length === 0) continue;
-    const [[a, b, tx], [c, d, ty]] = plan.dieToOutput;
-    const m: Affine2x3 = [[a, b, tx], [c, d, ty - top]];
-    const layer = markupLayerSvg(shapes, m, plan.width, { labels: input.labels, threads: input.threads });
-    const svg = `<svg xmlns="http://www.w3.org/2000/svg" width="${plan.width}" height="${height}" font-family="DejaVu Sans, sans-serif">${layer}</svg>`;
-    bands.push({ input: Buffer.from(svg), top, left: 0, limitInputPixels: false as const });
+  const W = plan.width;
+  const H = plan.height;
+  const kinds = kindsShown(input.shapes);
+  const footer = footerSvg(W, H, plan.umPerPx, input.title, kinds);
+  const total = H + footer.height;
+  const info: RenderInfo = { width: W, height: total, imageHeight: H, scaleBar: footer.scaleBar, kinds };
+  const base = await baseLayer(input.original, input.pixelCap, plan, scratch);
+  input.onProgress?.(0.4);
+  const rows = scratch.dir ? BAND_ROWS : Math.ceil(total / BAND_ROWS) * BAND_ROWS;
+  const tiles = [
+    ...markupTiles(input.shapes, input.threads, plan.dieToOutput, W, H, { labels: input.labels, tileHeight: BAND_ROWS }),
+    ...footerTiles(footer.svg, W, H, footer.height),
+  ];
+  const bands: Band[] = [];
+  for (let top = 0; top < total; top += rows) bands.push({ top, height: Math.min(rows, total - top), tiles: tiles.filter((t) => t.top >= top && t.top < top + rows) });
+  if (bands.length === 1) {
+    const only = await drawBand(base, bands[0], W, H);
+    input.onProgress?.(0.8);
+    return { pipeline: only, info };
   }
-  return bands;
+  let done = 0;
+  const files = await inTurn(bands, async (band, i) => {
+    const file = path.join(scratch.dir!, `${scratch.stem}-band${i}.png`);
+    scratch.files.push(file);
+    // PNG, lightly compressed: read back sequentially with a small buffer, where a strip TIFF
+    // would be held whole by the join below.
+    await (await drawBand(base, band, W, H)).png({ compressionLevel: 1 }).toFile(file);
+    input.onProgress?.(0.4 + (0.45 * ++done) / bands.length);
+    return file;
+  });
+  // Stacked one per row; every cell is as tall as the tallest band, so the short last one is cropped back.
+  const stacked = sharp(files, { join: { across: 1, valign: "top" }, limitInputPixels: false, sequentialRead: true }).extract({ left: 0, top: 0, width: W, height: total });
+  return { pipeline: stacked, info };
 }
 
-/** The sharp pipeline of the whole export, and where its parts were drawn. */
-export function annotatedPipeline(input: RenderInput): { pipeline: Sharp; info: RenderInfo } {
-  const { plan } = input;
-  const kinds = kindsShown(input.shapes);
-  const footer = footerSvg(plan.width, 0, plan.umPerPx, input.title, kinds);
-  const total = plan.height + footer.height;
-  const footerImage = `<svg xmlns="http://www.w3.org/2000/svg" width="${plan.width}" height="${footer.height}" font-family="DejaVu Sans, sans-serif">${footer.svg}</svg>`;
-  const out = imageLayer(input, footer.height)
-    .toColourspace("srgb")
-    .composite([...markupBands(input), { input: Buffer.from(footerImage), top: plan.height, left: 0, limitInputPixels: false }])
-    .removeAlpha();
-  const scaleBar = { ...footer.scaleBar, y: footer.scaleBar.y + plan.height };
-  return { pipeline: out, info: { width: plan.width, height: total, imageHeight: plan.height, scaleBar, kinds } };
+async function cleanUp(scratch: Scratch) {
+  await Promise.all(scratch.files.map((f) => rm(f, { force: true })));
 }
 
 /** The PNG text chunks an export carries (title, scale, software). */
@@ -131,9 +150,9 @@ export function exportTextChunks(title: TitleBlock, umPerPx: number): Record<str
 
 const PNG_OPTIONS = { compressionLevel: 6, adaptiveFiltering: false } as const;
 
-/** Renders into a PNG buffer (small outputs: the report's overview). */
+/** Renders into a PNG buffer, intermediates in memory (small outputs: the report's overview). */
 export async function renderAnnotatedPngBuffer(input: RenderInput): Promise<{ png: Buffer; info: RenderInfo }> {
-  const { pipeline: p, info } = annotatedPipeline(input);
+  const { pipeline: p, info } = await annotated(input, { dir: null, stem: "", files: [] });
   const png = await p.png(PNG_OPTIONS).toBuffer();
   const chunks = Object.entries(exportTextChunks(input.title, input.plan.umPerPx)).map(([k, v]) => textChunk(k, v));
   const ihdrEnd = 8 + 12 + png.readUInt32BE(8);
@@ -145,8 +164,9 @@ export async function renderAnnotatedPngBuffer(input: RenderInput): Promise<{ pn
  * after IHDR while copying to `outFile` (never holding the whole PNG in memory).
  */
 export async function renderAnnotatedPngFile(input: RenderInput, outFile: string, temp = `${outFile}.partial`): Promise<RenderInfo & { bytes: number }> {
-  const { pipeline: p, info } = annotatedPipeline(input);
+  const scratch: Scratch = { dir: path.dirname(outFile), stem: `${path.basename(outFile)}.partial`, files: [] };
   try {
+    const { pipeline: p, info } = await annotated(input, scratch);
     await p.png(PNG_OPTIONS).toFile(temp);
     const handle = await open(temp, "r");
     const head = Buffer.alloc(33);
@@ -158,7 +178,11 @@ export async function renderAnnotatedPngFile(input: RenderInput, outFile: string
     out.write(Buffer.concat([head.subarray(0, ihdrEnd), ...chunks]));
     await pipeline(createReadStream(temp, { start: ihdrEnd }), out);
     return { ...info, bytes: (await stat(outFile)).size };
+  } catch (e) {
+    await rm(outFile, { force: true });
+    throw e;
   } finally {
     await rm(temp, { force: true });
+    await cleanUp(scratch);
   }
 }

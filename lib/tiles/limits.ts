@@ -1,5 +1,6 @@
 import { open } from "node:fs/promises";
 import sharp, { type Metadata, type Sharp, type SharpOptions } from "sharp";
+import { useAppFontsForSvg } from "../fonts/app-fonts";
 import { AppError } from "../server/errors";
 import { MAGIC_BYTES_NEEDED, detectRasterFormat, type RasterFormat } from "./magic-bytes";
 
@@ -33,6 +34,7 @@ let configured = false;
 /** Sets process-wide sharp options once (glibc builds default to 1 thread here; libvips uses 2). */
 export function configureSharp(): void {
   if (configured) return;
+  useAppFontsForSvg();
   sharp.concurrency(2);
   configured = true;
 }

@@ -1,6 +1,8 @@
-import { beforeAll, describe, expect, it } from "vitest";
+import { beforeAll, describe, expect, inject, it } from "vitest";
+import sharp from "sharp";
 import { applyAffine, determinant } from "@/lib/geometry/affine";
 import { demoWorld, EVERYONE, expectedStatus, freshCase } from "./fixtures";
+import { NV24R_LAYOUT } from "@/lib/demo-die/layout";
 import { padPairs, uploadDemoMicrograph, type UploadedDemo } from "../support/demo-micrographs";
 
 // The demo die rendered twice (the seed's bright-field and dark-field settings at 3000 px
@@ -143,4 +145,67 @@ describe("bad alignment input", () => {
     expect(res.status).toBe(200);
     expect(determinant(res.body.transform as [[number, number, number], [number, number, number]])).toBeGreaterThan(0);
   });
+});
+
+describe("exporting the aligned dark field", () => {
+  type ExportDto = { id: string; status: string; error: string | null; result: { width: number; height: number } | null };
+  async function exported(micrographId: string): Promise<{ data: Buffer; width: number; height: number }> {
+    const post = await world.clients.analyst.request<ExportDto>("POST", `/api/dies/${dieId}/exports`, { micrographId, widthPx: 700, kinds: [], region: { x: 0, y: 0, width: NV24R_LAYOUT.dieSizeUm[0], height: NV24R_LAYOUT.dieSizeUm[1] } });
+    expect(post.status).toBe(202);
+    const deadline = Date.now() + 60_000;
+    let dto = post.body;
+    while (dto.status !== "done" && dto.status !== "failed" && Date.now() < deadline) {
+      await new Promise((r) => setTimeout(r, 200));
+      dto = (await world.clients.analyst.get<ExportDto>(`/api/exports/${post.body.id}`)).body;
+    }
+    expect(dto.status, dto.error ?? "").toBe("done");
+    const cookie = (world.clients.analyst as unknown as { cookieHeader(): string }).cookieHeader();
+    const png = Buffer.from(await (await fetch(`${inject("baseUrl")}/api/exports/${post.body.id}/file`, { headers: { cookie } })).arrayBuffer());
+    // The image area only (the footer below it differs between the two).
+    const imageRows = Math.round((700 * NV24R_LAYOUT.dieSizeUm[1]) / NV24R_LAYOUT.dieSizeUm[0]);
+    const { data, info } = await sharp(png).extract({ left: 0, top: 0, width: dto.result!.width, height: imageRows }).greyscale().raw().toBuffer({ resolveWithObject: true });
+    return { data, width: info.width, height: info.height };
+  }
+
+  /** Gradient magnitude (central differences): edges sit where the die's structures are, whatever the lighting. */
+  function edges(img: { data: Buffer; width: number; height: number }): Float64Array {
+    const out = new Float64Array(img.width * img.height);
+    for (let y = 1; y < img.height - 1; y++)
+      for (let x = 1; x < img.width - 1; x++) {
+        const at = (dx: number, dy: number) => img.data[(y + dy) * img.width + x + dx];
+        out[y * img.width + x] = Math.hypot(at(1, 0) - at(-1, 0), at(0, 1) - at(0, -1));
+      }
+    return out;
+  }
+
+  /** Pearson correlation of two edge maps with `b` shifted by (dx, dy), over their common interior. */
+  function correlation(a: Float64Array, b: Float64Array, w: number, h: number, dx: number, dy: number): number {
+    let sa = 0, sb = 0, saa = 0, sbb = 0, sab = 0, n = 0;
+    for (let y = 8; y < h - 8; y++)
+      for (let x = 8; x < w - 8; x++) {
+        const p = a[y * w + x];
+        const q = b[(y + dy) * w + x + dx];
+        sa += p; sb += q; saa += p * p; sbb += q * q; sab += p * q; n++;
+      }
+    return (sab - (sa * sb) / n) / Math.sqrt((saa - (sa * sa) / n) * (sbb - (sb * sb) / n));
+  }
+
+  it("resamples the rotated micrograph into the die frame: its edges line up with the reference's (±1 px)", async () => {
+    const t = (await world.clients.viewer.get<{ transform: number[][] }>(`/api/micrographs/${dark.id}`)).body.transform;
+    expect(Math.abs(t[0][1])).toBeGreaterThan(1e-3); // the stored alignment really rotates it (1.5° in the render)
+    const ref = await exported(bright.id);
+    const turned = await exported(dark.id);
+    expect([turned.width, turned.height]).toEqual([ref.width, ref.height]);
+    const a = edges(ref);
+    const b = edges(turned);
+    let best = { dx: 0, dy: 0, r: -1 };
+    for (let dy = -4; dy <= 4; dy++)
+      for (let dx = -4; dx <= 4; dx++) {
+        const r = correlation(a, b, ref.width, ref.height, dx, dy);
+        if (r > best.r) best = { dx, dy, r };
+      }
+    expect(Math.abs(best.dx)).toBeLessThanOrEqual(1);
+    expect(Math.abs(best.dy)).toBeLessThanOrEqual(1);
+    expect(best.r).toBeGreaterThan(0.3);
+  }, 120_000);
 });

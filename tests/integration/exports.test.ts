@@ -1,4 +1,6 @@
 import { beforeAll, describe, expect, inject, it } from "vitest";
+import fs from "node:fs/promises";
+import path from "node:path";
 import sharp from "sharp";
 import { demoWorld, EVERYONE, freshCase, type Who } from "./fixtures";
 import { uploadForm } from "../support/images";
@@ -130,6 +132,31 @@ describe("annotated PNG export", () => {
     const other = await freshCase(world.clients.owner, world.teamId);
     expect((await world.clients.owner.request("POST", `/api/dies/${other.dieId}/exports`, { micrographId })).status).toBe(404);
     expect((await world.clients.owner.get<unknown[]>(`/api/dies/${dieId}/exports`)).body.length).toBe(before);
+  });
+});
+
+describe("an export whose micrograph can no longer be read", () => {
+  it("ends failed with a reason, serves no file and leaves nothing in the exports folder", async () => {
+    const other = await freshCase(world.clients.owner, world.teamId, "Broken source");
+    const up = await world.clients.analyst.upload<{ id: string }>(`/api/dies/${other.dieId}/micrographs`, uploadForm(source, "ramp.png", { label: "to be damaged", scaleUmPerPx: "1" }));
+    expect(up.status).toBe(202);
+    await waitForStatus(world.clients.analyst, up.body.id, "ready");
+    // The stored original is damaged on disk after tiling (a failing disk, a careless hand).
+    const original = path.join(inject("dataDir"), "originals", other.dieId, `${up.body.id}.png`);
+    await fs.writeFile(original, source.subarray(0, 200));
+    const post = await world.clients.analyst.request<ExportDto>("POST", `/api/dies/${other.dieId}/exports`, { micrographId: up.body.id, widthPx: 300 });
+    expect(post.status).toBe(202);
+    const done = await finished("analyst", post.body.id);
+    expect(done.status).toBe("failed");
+    expect(done.error).toMatch(/^The export failed: /);
+    expect(done.fileName).toBeNull();
+    const { res } = await download("analyst", post.body.id);
+    expect(res.status).toBe(409); // not done: there is no file to serve
+    const left = await fs.readdir(path.join(inject("dataDir"), "exports", other.dieId)).catch(() => [] as string[]);
+    expect(left).toEqual([]);
+    // The server keeps working: a good export right after still renders.
+    const again = await exportAs("analyst", { widthPx: 120 });
+    expect((await finished("analyst", again.body.id)).status).toBe("done");
   });
 });
 

@@ -46,6 +46,16 @@ export async function runExport(db: Database, exportId: string): Promise<void> {
   const file = exportFilePath(row.dieId, row.id);
   await mkdir(path.dirname(file), { recursive: true });
   await setState(db, exportId, { progress: 15 });
+  // Stages report fractions; the row keeps whole percentages, never going back.
+  let shown = 15;
+  let written: Promise<unknown> = Promise.resolve();
+  const onProgress = (fraction: number) => {
+    const pct = Math.min(99, Math.round(15 + fraction * 85));
+    if (pct <= shown) return;
+    shown = pct;
+    // Chained, so no late progress write can land after the final state below.
+    written = written.then(() => setState(db, exportId, { progress: pct })).catch(() => {});
+  };
   const info = await renderAnnotatedPngFile(
     {
       original: micrographPaths(row.dieId, m.id, m.format as keyof typeof EXTENSION).original,
@@ -55,9 +65,11 @@ export async function runExport(db: Database, exportId: string): Promise<void> {
       threads: req.threads ? await loadThreadMarks(db, row.dieId) : [],
       labels: req.labels,
       title,
+      onProgress,
     },
     file,
   );
+  await written;
   const { lengthUm, label, px, x, y } = info.scaleBar;
   const result: ExportResult = { width: info.width, height: info.height, umPerPx: plan.umPerPx, warnings: [...plan.warnings], scaleBar: { lengthUm, label, px, x, y } };
   await setState(db, exportId, {

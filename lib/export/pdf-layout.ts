@@ -1,22 +1,32 @@
-import { PDFDocument, StandardFonts, rgb, type PDFFont, type PDFPage } from "pdf-lib";
+import fontkit from "@pdf-lib/fontkit";
+import { PDFDocument, rgb, type PDFFont, type PDFPage } from "pdf-lib";
+import { appFontBytes } from "@/lib/fonts/app-fonts";
 
 /**
  * A small flowing layout over pdf-lib: headings, paragraphs, tables that break across pages,
  * images scaled to the text width, and page numbers written once the page count is known.
- * Fonts are pdf-lib's standard Helvetica (WinAnsi encoding), so text outside that set is
- * replaced before drawing.
+ * Text is set in the app's own face (DejaVu Sans, regular and bold), embedded as subsets, so
+ * µ, Ω, ±, ° and Greek print as typed; characters the face lacks become "?".
  */
 
 export const A4: [number, number] = [595.28, 841.89];
 const MARGIN = 50;
 const LINE = 1.35;
 
-// WinAnsi (PDF 32000-1:2008, Annex D.2) covers ASCII, Latin-1 and a few punctuation marks.
-const WIN_ANSI_EXTRA = "€‚ƒ„…†‡ˆ‰Š‹ŒŽ‘’“”•–—˜™š›œžŸ";
+/** Text as `font` can draw it on one line: line breaks become spaces, missing glyphs "?". */
+export function printable(text: string, font: PDFFont): string {
+  const known = charactersOf(font);
+  return [...text.replace(/[\t\r\n]+/g, " ")].map((c) => (known.has(c.codePointAt(0)!) ? c : "?")).join("");
+}
 
-/** Text as the standard fonts can encode it: other characters become "?". */
-export function winAnsi(text: string): string {
-  return [...text.replace(/[\t\r\n]+/g, " ")].map((c) => (/[\x20-\x7e\xa0-\xff]/.test(c) || WIN_ANSI_EXTRA.includes(c) ? c : "?")).join("");
+const characterSets = new WeakMap<PDFFont, Set<number>>();
+function charactersOf(font: PDFFont): Set<number> {
+  let set = characterSets.get(font);
+  if (!set) {
+    set = new Set(font.getCharacterSet());
+    characterSets.set(font, set);
+  }
+  return set;
 }
 
 export type Column = { readonly header: string; readonly width: number; readonly align?: "left" | "right" };
@@ -32,10 +42,13 @@ export class PdfWriter {
 
   static async create(title: string): Promise<PdfWriter> {
     const doc = await PDFDocument.create();
-    doc.setTitle(winAnsi(title));
+    doc.registerFontkit(fontkit);
+    doc.setTitle(title);
     doc.setCreator("Kerfline");
     doc.setProducer("Kerfline (pdf-lib)");
-    const w = new PdfWriter(doc, await doc.embedFont(StandardFonts.Helvetica), await doc.embedFont(StandardFonts.HelveticaBold));
+    const regular = await doc.embedFont(appFontBytes("regular"), { subset: true });
+    const bold = await doc.embedFont(appFontBytes("bold"), { subset: true });
+    const w = new PdfWriter(doc, regular, bold);
     w.newPage();
     return w;
   }
@@ -61,7 +74,7 @@ export class PdfWriter {
 
   /** Lines of at most the text width at this size (greedy word wrap). */
   wrap(text: string, size: number, font = this.font, width = this.width): string[] {
-    const words = winAnsi(text).split(" ");
+    const words = printable(text, font).split(" ");
     const lines: string[] = [];
     let line = "";
     for (const word of words) {
@@ -97,7 +110,7 @@ export class PdfWriter {
     for (const [k, v] of rows) {
       const lines = this.wrap(v || "—", size, this.font, this.width - 150);
       this.ensure(size * LINE * lines.length);
-      this.page.drawText(winAnsi(k), { x: MARGIN, y: this.y - size * LINE, size, font: this.bold });
+      this.page.drawText(printable(k, this.bold), { x: MARGIN, y: this.y - size * LINE, size, font: this.bold });
       lines.forEach((l, i) => this.page.drawText(l, { x: MARGIN + 150, y: this.y - size * LINE * (i + 1), size, font: this.font }));
       this.y -= size * LINE * lines.length + 2;
     }
@@ -109,7 +122,7 @@ export class PdfWriter {
     this.y -= size * LINE;
     let x = MARGIN;
     columns.forEach((c, i) => {
-      let cell = winAnsi(cells[i] ?? "");
+      let cell = printable(cells[i] ?? "", font);
       while (cell.length > 1 && font.widthOfTextAtSize(cell, size) > c.width - 4) cell = `${cell.slice(0, -2)}…`;
       const w = font.widthOfTextAtSize(cell, size);
       this.page.drawText(cell, { x: c.align === "right" ? x + c.width - 4 - w : x, y: this.y, size, font });
@@ -150,7 +163,7 @@ export class PdfWriter {
   numberPages(footer: string): void {
     const pages = this.doc.getPages();
     pages.forEach((p, i) => {
-      const label = winAnsi(`${footer} · page ${i + 1} of ${pages.length}`);
+      const label = printable(`${footer} · page ${i + 1} of ${pages.length}`, this.font);
       const w = this.font.widthOfTextAtSize(label, 8);
       p.drawText(label, { x: A4[0] - MARGIN - w, y: MARGIN / 2, size: 8, font: this.font, color: rgb(0.4, 0.4, 0.45) });
     });

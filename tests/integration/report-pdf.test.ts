@@ -30,6 +30,12 @@ beforeAll(async () => {
     { kind: "ruler", geometry: { type: "LineString", coordinates: [[0, 100], [1000, 100]] }, properties: { label: "die width" } },
   ];
   expect((await world.clients.analyst.request("POST", `/api/dies/${dieId}/markup`, shapes)).status).toBe(201);
+  // Review: one open thread, one resolved, and the die submitted for review.
+  const open = await world.clients.reviewer.request<{ id: string }>("POST", `/api/dies/${dieId}/threads`, { region: rect(400, 400, 50, 50), body: "Is the bandgap trimmed? Ω ± 5 %" });
+  expect(open.status).toBe(201);
+  const closed = await world.clients.reviewer.request<{ id: string }>("POST", `/api/dies/${dieId}/threads`, { region: rect(100, 100, 50, 50), body: "Pad pitch checked" });
+  expect((await world.clients.reviewer.request("POST", `/api/threads/${closed.body.id}/resolve`, {})).status).toBe(200);
+  expect((await world.clients.analyst.request("POST", `/api/dies/${dieId}/review`, { action: "submit", message: "ready for a look" })).status).toBe(200);
 });
 
 async function fetchPdf(who: Who) {
@@ -47,6 +53,7 @@ type PdfPage = {
   getTextContent: () => Promise<{ items: { str?: string }[] }>;
   getOperatorList: () => Promise<{ fnArray: number[]; argsArray: unknown[][] }>;
   objs: { get: (id: string, cb: (img: { width: number; height: number }) => void) => void };
+  commonObjs: { get: (id: string) => { name: string; missingFile: boolean } };
 };
 let pdfjs: PdfJs | null = null;
 // A variable specifier, so type-checking does not need the package before it is installed.
@@ -95,6 +102,32 @@ describe("PDF die report", () => {
     expect(all).toContain(`page ${doc.numPages} of ${doc.numPages}`);
     expect(all).toContain("Contents");
     expect(images).toBeGreaterThanOrEqual(1);
+    // Review history and both threads, with symbols outside Latin-1 kept as typed.
+    expect(all).toContain("ready for a look");
+    expect(all).toContain("Is the bandgap trimmed? Ω ± 5 %");
+    expect(all).toContain("Pad pitch checked");
+    expect(all).toMatch(/resolved/);
+    expect(all).toMatch(/[µμ]m/); // pdfjs reports MICRO SIGN as its compatibility form, GREEK MU
+  });
+
+  it.skipIf(!pdfjs)("embeds the app's own typeface in every font it uses", async () => {
+    const { body } = await fetchPdf("owner");
+    const doc = await pdfjs!.getDocument({ data: body, useSystemFonts: false }).promise;
+    const fonts = new Map<string, { name: string; missingFile: boolean }>();
+    for (let n = 1; n <= doc.numPages; n++) {
+      const page = await doc.getPage(n);
+      const ops = await page.getOperatorList();
+      for (let i = 0; i < ops.fnArray.length; i++) {
+        if (ops.fnArray[i] !== pdfjs!.OPS.setFont) continue;
+        const id = ops.argsArray[i][0] as string;
+        fonts.set(id, page.commonObjs.get(id));
+      }
+    }
+    expect(fonts.size).toBeGreaterThanOrEqual(2); // regular and bold
+    for (const f of fonts.values()) {
+      expect(f.name).toMatch(/DejaVuSans/);
+      expect(f.missingFile).toBe(false);
+    }
   });
 
   for (const who of EVERYONE) {

@@ -1,4 +1,4 @@
-import { readFileSync } from "node:fs";
+import { existsSync, readFileSync } from "node:fs";
 import path from "node:path";
 import fontkit from "@pdf-lib/fontkit";
 
@@ -26,7 +26,9 @@ export function appFontPath(face: AppFontFace): string {
  * FONTCONFIG_FILE set by the operator wins.
  */
 export function useAppFontsForSvg(): void {
-  process.env.FONTCONFIG_FILE ??= path.join(/*turbopackIgnore: true*/ process.cwd(), "lib", "fonts", "fonts.conf");
+  const conf = path.join(/*turbopackIgnore: true*/ process.cwd(), "lib", "fonts", "fonts.conf");
+  // Started from elsewhere, keep the system's configuration rather than point at nothing.
+  if (process.env.FONTCONFIG_FILE === undefined && existsSync(conf)) process.env.FONTCONFIG_FILE = conf;
 }
 
 const bytes = new Map<AppFontFace, Buffer>();

@@ -7,7 +7,7 @@ import { AlignmentPanel } from "./alignment-panel";
 import { sourceOf } from "./micrograph-source-of";
 import { PairMarkers, type Marker } from "./pair-markers";
 import { useAlignmentSession } from "./use-alignment-session";
-import { usePointPicker } from "./use-point-picker";
+import { usePointPicker } from "@/components/viewer";
 
 /**
  * The split view for aligning a micrograph: the new one on the left, an aligned one on the

@@ -1,10 +1,10 @@
 "use client";
 
 import { useEffect, useState } from "react";
-import type OpenSeadragon from "openseadragon";
 import { Button } from "@/components/ui/button";
 import { CalibrationForm } from "./calibration-form";
 import { CalibrationMarks } from "./calibration-marks";
+import { usePointPicker } from "./use-point-picker";
 import type { ViewerApi } from "./viewer-api";
 
 /** A two-point calibration in full-resolution image px and the true length between them. */
@@ -26,51 +26,26 @@ export function CalibrationTool({ api, active, ...rest }: Props) {
   return active && api ? <ActiveCalibration api={api} {...rest} /> : null;
 }
 
-function clientPoint(e: OpenSeadragon.CanvasClickEvent, element: HTMLElement): [number, number] {
-  const o = e.originalEvent;
-  if (o instanceof MouseEvent) {
-    const r = element.getBoundingClientRect();
-    return [o.clientX - r.left, o.clientY - r.top];
-  }
-  return [e.position.x, e.position.y];
-}
-
-/** Takes over OpenSeadragon's clicks (no click-to-zoom) while keeping drag-to-pan and wheel-zoom. */
-function useCanvasPicks(api: ViewerApi, onPick: (p: [number, number]) => void, onCancel: () => void) {
+/**
+ * Escape ends the calibration. Listened for in the capture phase: the markup editor takes its
+ * keys there and stops them, which would otherwise keep Escape from ever reaching us.
+ */
+function useEscape(onCancel: () => void) {
   useEffect(() => {
-    const viewer = api.viewer;
-    const click = (e: OpenSeadragon.CanvasClickEvent) => {
-      e.preventDefaultAction = true;
-      if (!e.quick) return; // the end of a drag is a pan, not a pick
-      const [sx, sy] = clientPoint(e, viewer.element);
-      const p = api.screenToImage(sx, sy);
-      if (Number.isFinite(p.x) && Number.isFinite(p.y)) onPick([p.x, p.y]);
-    };
-    const dblClick = (e: OpenSeadragon.CanvasDoubleClickEvent) => {
-      e.preventDefaultAction = true;
-    };
     const key = (e: KeyboardEvent) => {
       if (e.key === "Escape") onCancel();
     };
-    viewer.addHandler("canvas-click", click);
-    viewer.addHandler("canvas-double-click", dblClick);
-    window.addEventListener("keydown", key);
-    const cursor = viewer.canvas.style.cursor;
-    viewer.canvas.style.cursor = "crosshair";
-    return () => {
-      viewer.removeHandler("canvas-click", click);
-      viewer.removeHandler("canvas-double-click", dblClick);
-      window.removeEventListener("keydown", key);
-      viewer.canvas.style.cursor = cursor;
-    };
-  }, [api, onPick, onCancel]);
+    window.addEventListener("keydown", key, true);
+    return () => window.removeEventListener("keydown", key, true);
+  }, [onCancel]);
 }
 
 function ActiveCalibration({ api, onCalibrate, onCancel }: Omit<Props, "api" | "active"> & { api: ViewerApi }) {
   const [points, setPoints] = useState<[number, number][]>([]);
   // A third pick starts over, so a misplaced pair is fixed by clicking again.
   const [pick] = useState(() => (p: [number, number]) => setPoints((prev) => (prev.length >= 2 ? [p] : [...prev, p])));
-  useCanvasPicks(api, pick, onCancel);
+  usePointPicker(api, true, pick);
+  useEscape(onCancel);
   const [p1, p2] = points;
   const distancePx = p1 && p2 ? Math.hypot(p2[0] - p1[0], p2[1] - p1[1]) : 0;
 

@@ -10,3 +10,4 @@ export { CalibrationTool, type Calibration } from "./calibration-tool";
 export { parseKnownLength, type LengthParse } from "./known-length";
 export { useViewVersion } from "./use-view-version";
 export { MAX_SCREEN_PX_PER_IMAGE_PX } from "./use-osd-viewer";
+export { usePointPicker } from "./use-point-picker";

@@ -79,6 +79,43 @@ test("the analyst uploads a micrograph, sees both progress bars, zooms, and the 
   await expect(page.getByTestId("cursor-readout")).toBeVisible();
 });
 
+// Two-point calibration on the micrograph the test above uploaded (0.5 µm/px): two clicks on
+// the image, a known length typed, and the list shows the scale that length implies.
+test("the analyst recalibrates a micrograph from two clicks and a known length; Esc cancels", async ({ page }) => {
+  await signInAs(page, "analyst");
+  await page.getByRole("link", { name: "NV-24R receiver teardown" }).click();
+  await page.getByRole("link", { name: "NV-24R die A" }).click();
+  await page.getByRole("tab", { name: "Die & micrographs" }).click();
+  const item = page.getByRole("list", { name: "Micrographs" }).getByRole("button", { name: /E2E upload 6000 px/ });
+  await item.click();
+  const viewer = page.getByRole("application", { name: "Micrograph viewer" });
+  await expect(viewer).toBeVisible();
+  await page.getByRole("button", { name: "Fit die" }).click();
+  await page.waitForTimeout(1000);
+
+  await page.getByRole("button", { name: "Recalibrate scale" }).click();
+  await expect(page.getByTestId("calibration-tool")).toBeVisible();
+  await page.keyboard.press("Escape");
+  await expect(page.getByTestId("calibration-tool")).toHaveCount(0);
+
+  await page.getByRole("button", { name: "Recalibrate scale" }).click();
+  await expect(page.getByText("Click one end of a feature of known length.")).toBeVisible();
+  const box = (await viewer.boundingBox())!;
+  await page.mouse.click(box.x + box.width * 0.3, box.y + box.height * 0.5);
+  await expect(page.getByText("Click the other end.")).toBeVisible();
+  await page.mouse.click(box.x + box.width * 0.6, box.y + box.height * 0.5);
+  const form = page.getByRole("form", { name: "Two-point calibration" });
+  await expect(form).toBeVisible();
+  const distancePx = Number((await form.getByText(/ px$/).textContent())!.replace(" px", ""));
+  // A click is a click: 30 % of the viewer's width at "fit" is about 30 % of the image's 6000 px.
+  expect(distancePx).toBeGreaterThan(100);
+  // Say the feature is 0.8 µm per image px long: the scale becomes 0.8 µm/px.
+  await form.getByLabel("Known length (µm)").fill((distancePx * 0.8).toFixed(1));
+  await form.getByRole("button", { name: "Set scale" }).click();
+  await expect(page.getByTestId("calibration-tool")).toHaveCount(0);
+  await expect(item).toContainText(/0\.8\d{3} µm\/px/);
+});
+
 test("the seeded demo micrographs are listed with illumination and scale, and a viewer sees no upload button", async ({ page }) => {
   await signInAs(page, "viewer");
   await page.getByRole("link", { name: "NV-24R receiver teardown" }).click();

@@ -2,7 +2,7 @@
 
 import { useEffect, useRef } from "react";
 import type OpenSeadragon from "openseadragon";
-import type { ViewerApi } from "@/components/viewer";
+import type { ViewerApi } from "./viewer-api";
 
 /** CSS px of a click relative to the viewer element (OpenSeadragon's position is the canvas'). */
 function clientPoint(e: OpenSeadragon.CanvasClickEvent, element: HTMLElement): [number, number] {

@@ -53,7 +53,7 @@ export function blank(W: number, H: number): Sharp {
 }
 
 /** The source window as 8-bit sRGB without alpha, whatever the micrograph's format. */
-function window(original: string, pixelCap: number, w: { left: number; top: number; width: number; height: number }): Sharp {
+function sourceWindow(original: string, pixelCap: number, w: { left: number; top: number; width: number; height: number }): Sharp {
   return sharpInput(original, pixelCap).extract({ left: w.left, top: w.top, width: w.width, height: w.height }).flatten({ background: BACKGROUND }).toColourspace("srgb");
 }
 
@@ -64,14 +64,14 @@ export async function baseLayer(original: string | null, pixelCap: number, plan:
   const H = plan.height;
   if (!s || !original) return blank(W, H);
   if (s.kind === "axis") {
-    let img = window(original, pixelCap, s);
+    let img = sourceWindow(original, pixelCap, s);
     if (s.flop) img = img.flop();
     if (s.flip) img = img.flip();
     img = img.resize(s.outWidth, s.outHeight, { fit: "fill", kernel: "lanczos3" });
     return materialise(place(img, s, W, H), scratch, "image");
   }
   // Rotated or sheared: shrink with the resampling filters first, then the small residual affine.
-  let img = window(original, pixelCap, s);
+  let img = sourceWindow(original, pixelCap, s);
   if (s.resizedWidth !== s.width || s.resizedHeight !== s.height) img = img.resize(s.resizedWidth, s.resizedHeight, { fit: "fill", kernel: "lanczos3" });
   const resized = await materialise(img, scratch, "window");
   // sharp crops and pads before its affine step, so the turned image is written out before placing it.

@@ -1,3 +1,4 @@
+import { APP_FONT_FAMILY } from "@/lib/fonts/app-fonts";
 import { applyAffine } from "@/lib/geometry/affine";
 import { boundingBox } from "@/lib/geometry/measure";
 import type { Affine2x3 } from "@/lib/geometry/types";
@@ -16,8 +17,8 @@ export type OverlayTile = { readonly svg: string; readonly left: number; readonl
 export const TILE_WIDTH = 1024;
 export const TILE_HEIGHT = 512;
 
-/** SVG text of the export is set in the face the app ships (fonts/), by name. */
-export const EXPORT_FONT_FAMILY = "DejaVu Sans, sans-serif";
+/** SVG text of the export asks for the face the app ships (lib/fonts), by name. */
+export const EXPORT_FONT_FAMILY = `${APP_FONT_FAMILY}, sans-serif`;
 
 type Box = readonly [number, number, number, number];
 

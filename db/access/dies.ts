@@ -57,6 +57,20 @@ export async function loadDie(db: Db, actor: Actor, dieId: string, action: TeamA
   return { row: found.die, teamId: found.teamId, role, dto: toDto(found.die, { title: found.caseTitle, teamId: found.teamId }, found.analystName, role) };
 }
 
+/**
+ * Authorizes `action` on the die a child row (shape, micrograph, thread, export) belongs to. A
+ * missing row, a missing die and a die outside the caller's teams all answer the same 404,
+ * named after the child, so nothing tells them apart.
+ */
+export async function loadDieOf<T extends { dieId: string }>(db: Db, actor: Actor, row: T | undefined, action: TeamAction, what: string) {
+  if (!row) throw new NotFoundError(what);
+  try {
+    return { row, die: await loadDie(db, actor, row.dieId, action) };
+  } catch (e) {
+    throw e instanceof NotFoundError ? new NotFoundError(what) : e;
+  }
+}
+
 /** One die as the caller may see it. */
 export async function getDie(db: Db, actor: Actor, dieId: string): Promise<DieDto> {
   return (await loadDie(db, actor, dieId, "read")).dto;

@@ -2,7 +2,7 @@ import "server-only";
 import { and, asc, eq, inArray, sql } from "drizzle-orm";
 import { auditEvents, markup, users, type MarkupRow } from "../schema";
 import { type Actor, type Db } from "./context";
-import { loadDie, type DieDto } from "./dies";
+import { loadDie, loadDieOf, type DieDto } from "./dies";
 import { recordAudit, snapshot } from "./audit";
 import { reframeToOutline } from "./die-frame";
 import type { PolygonGeometry } from "@/lib/geometry/types";
@@ -33,10 +33,7 @@ const refuse = (f: InputFailure) => new BadRequestError(f.message, f.issues);
 /** Loads a shape and checks the caller may do `action` on its die (404 outside the team). */
 async function loadShape(db: Db, actor: Actor, id: string, action: TeamAction) {
   const [row] = await db.select().from(markup).where(eq(markup.id, id));
-  if (!row) throw new NotFoundError("That shape");
-  const die = await loadDie(db, actor, row.dieId, action).catch((e) => {
-    throw e instanceof NotFoundError ? new NotFoundError("That shape") : e;
-  });
+  const { die } = await loadDieOf(db, actor, row, action, "That shape");
   return { row, die };
 }
 

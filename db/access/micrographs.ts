@@ -2,9 +2,9 @@ import "server-only";
 import { and, asc, eq, sql } from "drizzle-orm";
 import { jobs, micrographs, type MicrographRow } from "../schema";
 import { type Actor, type Db } from "./context";
-import { loadDie } from "./dies";
+import { loadDie, loadDieOf } from "./dies";
 import { recordAudit } from "./audit";
-import { BadRequestError, NotFoundError } from "@/lib/server/errors";
+import { BadRequestError } from "@/lib/server/errors";
 import { frameFromScale } from "@/lib/geometry/affine";
 import { scaleFromCalibration } from "@/lib/micrographs/scale";
 import type { MicrographPatch } from "@/lib/validation/micrographs";
@@ -73,10 +73,7 @@ function toDto(r: MicrographRow, role: TeamRole): MicrographDto {
 /** Loads a micrograph and checks the caller may do `action` on its die (404 outside the team). */
 export async function loadMicrograph(db: Db, actor: Actor, id: string, action: TeamAction) {
   const [row] = await db.select().from(micrographs).where(eq(micrographs.id, id));
-  if (!row) throw new NotFoundError("That micrograph");
-  const die = await loadDie(db, actor, row.dieId, action).catch((e) => {
-    throw e instanceof NotFoundError ? new NotFoundError("That micrograph") : e;
-  });
+  const { die } = await loadDieOf(db, actor, row, action, "That micrograph");
   return { row, die, dto: toDto(row, die.role) };
 }
 

@@ -2,10 +2,10 @@ import "server-only";
 import { and, asc, eq, inArray } from "drizzle-orm";
 import { commentMentions, comments, markup, threads, users, type ThreadRow } from "../schema";
 import { type Actor, type Db } from "./context";
-import { loadDie } from "./dies";
+import { loadDie, loadDieOf } from "./dies";
 import { recordAudit } from "./audit";
 import { insertComment } from "./comments";
-import { BadRequestError, ConflictError, NotFoundError } from "@/lib/server/errors";
+import { BadRequestError, ConflictError } from "@/lib/server/errors";
 import { geometryCentre } from "@/lib/geometry/measure";
 import { dieBounds, firstPositionOutside, describeBounds } from "@/lib/markup/die-bounds";
 import type { Geometry } from "@/lib/geometry/types";
@@ -45,10 +45,7 @@ export type ThreadDto = {
 /** Loads a thread and checks the caller may do `action` on its die (404 outside the team). */
 export async function loadThread(db: Db, actor: Actor, threadId: string, action: TeamAction) {
   const [row] = await db.select().from(threads).where(eq(threads.id, threadId));
-  if (!row) throw new NotFoundError("That thread");
-  const die = await loadDie(db, actor, row.dieId, action).catch((e) => {
-    throw e instanceof NotFoundError ? new NotFoundError("That thread") : e;
-  });
+  const { die } = await loadDieOf(db, actor, row, action, "That thread");
   return { row, die };
 }
 

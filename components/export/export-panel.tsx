@@ -1,11 +1,12 @@
 "use client";
 
-import { useState } from "react";
+import { useEffect, useState } from "react";
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { apiFetch } from "@/lib/client/api";
 import type { DieDto } from "@/db/access/dies";
 import type { MicrographDto } from "@/db/access/micrographs";
 import type { ExportDto } from "@/db/access/exports";
+import type { ExportPreviewDto } from "@/db/access/export-preview";
 import type { ViewerApi } from "@/components/viewer";
 import { Button } from "@/components/ui/button";
 import { MARKUP_KINDS, type MarkupKind } from "@/lib/markup/types";
@@ -52,20 +53,25 @@ export function ExportPanel({ die, micrographs, api, shownId }: { die: DieDto; m
   });
   const active = list.data?.find((e) => e.id === activeId);
 
+  /** The request body the form describes right now (the current view is read when asked). */
+  const requestBody = () => {
+    const region = mode === "view" ? currentViewRegion(api, micrograph) : mode === "typed" ? typed : null;
+    if (mode === "view" && !region) throw new Error("Open the micrograph in the viewer to export the current view.");
+    return {
+      micrographId,
+      ...(region ? { region: round(region) } : {}),
+      ...(sizeBy === "width" ? { widthPx } : { umPerPx }),
+      kinds: [...kinds],
+      labels,
+      threads,
+    };
+  };
+  // Redrawn when any field changes; the current view is re-read by "Refresh preview".
+  const [viewRead, setViewRead] = useState(0);
+  const formKey = JSON.stringify([micrographId, mode, typed, sizeBy, widthPx, umPerPx, [...kinds], labels, threads, viewRead]);
+
   const start = useMutation({
-    mutationFn: () => {
-      const region = mode === "view" ? currentViewRegion(api, micrograph) : mode === "typed" ? typed : null;
-      if (mode === "view" && !region) throw new Error("Open the micrograph in the viewer to export the current view.");
-      const body = {
-        micrographId,
-        ...(region ? { region: round(region) } : {}),
-        ...(sizeBy === "width" ? { widthPx } : { umPerPx }),
-        kinds: [...kinds],
-        labels,
-        threads,
-      };
-      return apiFetch<ExportDto>(`/api/dies/${die.id}/exports`, { method: "POST", body });
-    },
+    mutationFn: () => apiFetch<ExportDto>(`/api/dies/${die.id}/exports`, { method: "POST", body: requestBody() }),
     onSuccess: (e) => {
       setError("");
       setActiveId(e.id);
@@ -144,6 +150,7 @@ export function ExportPanel({ die, micrographs, api, shownId }: { die: DieDto; m
                 <input type="checkbox" checked={threads} onChange={(e) => setThreads(e.target.checked)} /> Review threads
               </label>
             </div>
+            <ExportPreview dieId={die.id} formKey={formKey} body={requestBody} onRefresh={() => setViewRead((n) => n + 1)} />
             <Button type="submit" variant="primary" disabled={start.isPending}>
               Render PNG
             </Button>
@@ -164,6 +171,57 @@ export function ExportPanel({ die, micrographs, api, shownId }: { die: DieDto; m
       <RecentExports list={list.data ?? []} />
       {(die.yourRole === "owner" || die.yourRole === "analyst") && <ImportGeojson dieId={die.id} />}
     </div>
+  );
+}
+
+/** The last value after it has stopped changing for `ms`. */
+function useSettled<T>(value: T, ms: number): T {
+  const [settled, setSettled] = useState(value);
+  useEffect(() => {
+    const t = setTimeout(() => setSettled(value), ms);
+    return () => clearTimeout(t);
+  }, [value, ms]);
+  return settled;
+}
+
+/** A small rendering of what "Render PNG" would produce, its final size, and any warning or refusal. */
+function ExportPreview({ dieId, formKey, body, onRefresh }: { dieId: string; formKey: string; body: () => unknown; onRefresh: () => void }) {
+  const key = useSettled(formKey, 400);
+  const preview = useQuery({
+    queryKey: ["export-preview", dieId, key],
+    queryFn: () => apiFetch<ExportPreviewDto>(`/api/dies/${dieId}/exports/preview`, { method: "POST", body: body() }),
+    retry: false,
+    staleTime: Infinity,
+    placeholderData: (previous) => previous,
+  });
+  const p = preview.data;
+  return (
+    <figure aria-label="Export preview" aria-busy={preview.isFetching} className="space-y-1 rounded border border-ink-800 bg-ink-950 p-2 text-xs">
+      {p ? (
+        <img src={`data:image/png;base64,${p.png}`} alt="Preview of the annotated PNG" width={p.previewWidth} height={p.previewHeight} className={`h-auto w-full ${preview.isFetching ? "opacity-60" : ""}`} />
+      ) : (
+        <div className="flex h-32 items-center justify-center text-ink-500">{preview.isError ? "No preview" : "Rendering preview…"}</div>
+      )}
+      <figcaption className="flex items-center justify-between gap-2">
+        <span data-testid="export-preview-size">
+          {p ? `${p.width} × ${p.height} px at ${p.umPerPx.toPrecision(3)} µm/px` : ""}
+          {preview.isFetching && p ? " · updating…" : ""}
+        </span>
+        <button type="button" className="underline" onClick={onRefresh}>
+          Refresh preview
+        </button>
+      </figcaption>
+      {preview.isError && (
+        <p role="alert" className="text-red-300">
+          {(preview.error as Error).message}
+        </p>
+      )}
+      {!preview.isError && p?.warnings.map((w) => (
+        <p key={w} className="text-amber-300">
+          {w}
+        </p>
+      ))}
+    </figure>
   );
 }
 

@@ -2,7 +2,7 @@ import "server-only";
 import { desc, eq } from "drizzle-orm";
 import { exports as exportsTable, jobs, users, type MicrographRow } from "../schema";
 import { type Actor, type Db } from "./context";
-import { loadDie } from "./dies";
+import { loadDie, loadDieOf } from "./dies";
 import { loadDieMicrograph, sourceImageOf } from "./export-sources";
 import { BadRequestError, ConflictError, NotFoundError } from "@/lib/server/errors";
 import { planRender } from "@/lib/export/render-plan";
@@ -60,7 +60,7 @@ function toDto(row: ExportRow, createdByName: string | null): ExportDto {
 }
 
 /** Checks a request can be rendered before a job is queued (so bad ones answer 400 at once). */
-function checkRenderable(m: MicrographRow | null, die: { widthUm: number | null; heightUm: number | null }, req: ExportRequest): string[] {
+export function checkRenderable(m: MicrographRow | null, die: { widthUm: number | null; heightUm: number | null }, req: ExportRequest): string[] {
   if (!m) throw new NotFoundError("That micrograph");
   if (m.status === "failed" || !m.format) throw new ConflictError("That micrograph failed to process; upload it again before exporting.");
   const image = sourceImageOf(m);
@@ -89,11 +89,8 @@ export async function createExport(db: Db, actor: Actor, dieId: string, req: Exp
 /** Loads an export and checks the caller may see its die (404 outside the team). */
 export async function loadExport(db: Db, actor: Actor, id: string) {
   const [found] = await db.select({ row: exportsTable, name: users.name }).from(exportsTable).leftJoin(users, eq(users.id, exportsTable.createdBy)).where(eq(exportsTable.id, id));
-  if (!found) throw new NotFoundError("That export");
-  await loadDie(db, actor, found.row.dieId, "export").catch((e) => {
-    throw e instanceof NotFoundError ? new NotFoundError("That export") : e;
-  });
-  return { row: found.row, dto: toDto(found.row, found.name) };
+  const { row } = await loadDieOf(db, actor, found?.row, "export", "That export");
+  return { row, dto: toDto(row, found?.name ?? null) };
 }
 
 /** A die's most recent exports (newest first), for downloading again. */

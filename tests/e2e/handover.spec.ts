@@ -35,6 +35,16 @@ test.describe.serial("hand-over exports", () => {
     await page.getByLabel("Region width (µm)").fill("1200");
     await page.getByLabel("Region height (µm)").fill("900");
     await page.getByLabel("Output width (px)").fill("900");
+    // The preview follows the form: final size by hand, 1200 µm over 900 px and 900 µm tall → 675 px.
+    const preview = page.getByRole("figure", { name: "Export preview" });
+    await expect(preview.getByTestId("export-preview-size")).toHaveText(/^900 × 675 px at 1\.33 µm\/px/, { timeout: 20_000 });
+    const img = preview.getByRole("img", { name: "Preview of the annotated PNG" });
+    await expect.poll(() => img.evaluate((el) => (el as HTMLImageElement).naturalWidth)).toBe(640);
+    // A refused size shows the server's reason in the preview before anything is queued.
+    await page.getByLabel("Output width (px)").fill("20000");
+    await expect(preview.getByRole("alert")).toContainText("at most 16384");
+    await page.getByLabel("Output width (px)").fill("900");
+    await expect(preview.getByRole("alert")).toHaveCount(0);
     const { name } = await renderAndDownload(page);
     expect(name).toMatch(/^NV-24R-receiver-teardown-NV-24R-die-A-.+-\d{4}-\d{2}-\d{2}\.png$/);
 

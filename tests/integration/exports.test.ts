@@ -135,6 +135,46 @@ describe("annotated PNG export", () => {
   });
 });
 
+describe("export preview", () => {
+  type Preview = { width: number; height: number; umPerPx: number; warnings: string[]; png: string; previewWidth: number; previewHeight: number; error?: string };
+  const preview = (who: Who, body: Record<string, unknown>, die = dieId) => world.clients[who].request<Preview>("POST", `/api/dies/${die}/exports/preview`, { micrographId, ...body });
+
+  it("states the final size and scale and returns a small PNG of the same region, storing nothing", async () => {
+    const before = (await world.clients.viewer.get<unknown[]>(`/api/dies/${dieId}/exports`)).body.length;
+    const res = await preview("viewer", { region: { x: 200, y: 100, width: 400, height: 300 }, widthPx: 2000 });
+    expect(res.status, res.body.error).toBe(200);
+    // 400 µm over 2000 px = 0.2 µm/px; 300 µm tall → 1500 px (by hand).
+    expect([res.body.width, res.body.height, res.body.umPerPx]).toEqual([2000, 1500, 0.2]);
+    expect(res.body.warnings.join(" ")).toMatch(/enlarged 5\.00×/);
+    const png = Buffer.from(res.body.png, "base64");
+    const meta = await sharp(png).metadata();
+    expect(meta.format).toBe("png");
+    expect(meta.width).toBe(640);
+    expect([res.body.previewWidth, res.body.previewHeight]).toEqual([meta.width, meta.height]);
+    // The image area matches the same region of the upload, resized independently (480 rows of 640 px).
+    const ours = await sharp(png).extract({ left: 0, top: 0, width: 640, height: 480 }).raw().toBuffer();
+    const ref = await sharp(source).extract({ left: 200, top: 400, width: 400, height: 300 }).resize(640, 480).raw().toBuffer();
+    let diff = 0;
+    for (let i = 0; i < ref.length; i++) diff += Math.abs(ref[i] - ours[i]);
+    expect(diff / ref.length).toBeLessThan(3);
+    expect((await world.clients.viewer.get<unknown[]>(`/api/dies/${dieId}/exports`)).body.length).toBe(before);
+  });
+
+  it("answers the same 400s as creating the export, and 404 outside the team", async () => {
+    for (const [body, message] of [
+      [{ widthPx: 20_000 }, /widthPx: must be at most 16384/],
+      [{ umPerPx: 0.01 }, /at most 16384 px/],
+      [{ kinds: ["via"] }, /must be one of/],
+    ] as const) {
+      const res = await preview("analyst", body);
+      expect(res.status, JSON.stringify(body)).toBe(400);
+      expect(res.body.error).toMatch(message);
+    }
+    expect((await preview("outsider", { widthPx: 100 })).status).toBe(404);
+    expect((await preview("anonymous", { widthPx: 100 })).status).toBe(401);
+  });
+});
+
 describe("an export whose micrograph can no longer be read", () => {
   it("ends failed with a reason, serves no file and leaves nothing in the exports folder", async () => {
     const other = await freshCase(world.clients.owner, world.teamId, "Broken source");

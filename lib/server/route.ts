@@ -4,6 +4,7 @@ import { AppError, BadRequestError, PayloadTooLargeError } from "./errors";
 import { requireActor } from "./session";
 import { database, type Database } from "@/db/client";
 import type { Actor } from "@/db/access/context";
+import { assertPathMember } from "@/db/access/path-scope";
 
 /** JSON bodies above this are refused with 413 before parsing. */
 export const MAX_JSON_BYTES = 1024 * 1024;
@@ -63,9 +64,10 @@ export function errorResponse(e: unknown): Response {
 }
 
 /**
- * The one wrapper for JSON route handlers: session (401), path params, query and body parsed
- * with zod (400/413/415), the handler's domain call, and errors mapped to status codes.
- * Authorization itself happens in the data-access layer the handler calls.
+ * The one wrapper for JSON route handlers: session (401), path params and query parsed with
+ * zod (400), membership of what the path names (404) before a body is read, the body parsed
+ * (400/413/415), the handler's domain call, and errors mapped to status codes. The specific
+ * right (403) is checked in the data-access layer the handler calls.
  */
 export function apiRoute<
   P extends z.ZodType = z.ZodType<Record<string, never>>,
@@ -81,13 +83,15 @@ export function apiRoute<
       const url = new URL(req.url);
       const query = opts.query ? opts.query.safeParse(Object.fromEntries(url.searchParams)) : { success: true as const, data: {} };
       if (!query.success) throw zodFailure(query.error, "query");
+      const db = await database();
       let body: unknown = undefined;
       if (opts.body) {
+        // Who may touch what the path names comes before what the body says (404 for outsiders).
+        if (opts.signedIn !== false) await assertPathMember(db, actor, params.data as Record<string, unknown>);
         const parsed = opts.body.safeParse(await readJson(req, opts.maxBodyBytes ?? MAX_JSON_BYTES));
         if (!parsed.success) throw zodFailure(parsed.error, "body");
         body = parsed.data;
       }
-      const db = await database();
       const result = await handler({ actor, db, params: params.data, body, query: query.data, req } as Ctx<z.infer<P>, z.infer<B>, z.infer<Q>>);
       return result instanceof Response ? result : Response.json(result);
     } catch (e) {

@@ -1,11 +1,11 @@
 import "server-only";
 import sharp from "sharp";
 import { eq } from "drizzle-orm";
-import { users, type MicrographRow } from "../schema";
+import { users } from "../schema";
 import { type Actor, type Db } from "./context";
 import { loadDie } from "./dies";
 import { checkRenderable } from "./exports";
-import { loadDieMicrograph, loadDieSources, loadThreadMarks, shapesOfKinds, sourceImageOf, titleBlockFor } from "./export-sources";
+import { copySize, loadDieMicrograph, loadDieSources, loadThreadMarks, shapesOfKinds, sourceImageOf, titleBlockFor, type RenderFiles } from "./export-sources";
 import { NotFoundError } from "@/lib/server/errors";
 import { planRender } from "@/lib/export/render-plan";
 import { previewPlan } from "@/lib/export/preview-plan";
@@ -25,20 +25,13 @@ export type ExportPreviewDto = {
   previewHeight: number;
 };
 
-export type PreviewFiles = { original(m: MicrographRow): string | null; copy(m: MicrographRow): string | null; pixelCap: number };
-
-async function copySize(file: string | null): Promise<{ width: number; height: number } | null> {
-  if (!file) return null;
-  const meta = await sharp(file).metadata().catch(() => null);
-  return meta?.width && meta.height ? { width: meta.width, height: meta.height } : null;
-}
 
 /**
  * Checks an export request exactly as creating it would (same rights, same 400/409 answers),
  * then renders a small copy of the result, read from the micrograph's downscaled preview when
  * that is sharp enough. Writes nothing.
  */
-export async function previewExport(db: Db, actor: Actor, dieId: string, req: ExportRequest, files: PreviewFiles): Promise<ExportPreviewDto> {
+export async function previewExport(db: Db, actor: Actor, dieId: string, req: ExportRequest, files: RenderFiles): Promise<ExportPreviewDto> {
   const { row: die } = await loadDie(db, actor, dieId, "export");
   const m = await loadDieMicrograph(db, dieId, req.micrographId);
   const warnings = checkRenderable(m, die, req);

@@ -1,4 +1,5 @@
 import "server-only";
+import sharp from "sharp";
 import { and, asc, eq } from "drizzle-orm";
 import { cases, dies, markup, micrographs, threads, users, type MicrographRow } from "../schema";
 import type { Db } from "./context";
@@ -82,4 +83,14 @@ export function titleBlockFor(src: DieSources, m: MicrographRow, umPerPx: number
 export function sourceImageOf(m: MicrographRow): { width: number; height: number; transform: Affine2x3 } | null {
   if (!m.transform || !m.width || !m.height) return null;
   return { width: m.width, height: m.height, transform: m.transform };
+}
+
+/** Where a render finds a micrograph's pixels: the original, the tiler's downscaled copy, and the pixel cap. */
+export type RenderFiles = { original(m: MicrographRow): string | null; copy(m: MicrographRow): string | null; pixelCap: number };
+
+/** Size of the downscaled copy, or null while it does not exist (tiling not done yet). */
+export async function copySize(file: string | null): Promise<{ width: number; height: number } | null> {
+  if (!file) return null;
+  const meta = await sharp(file).metadata().catch(() => null);
+  return meta?.width && meta.height ? { width: meta.width, height: meta.height } : null;
 }

@@ -3,7 +3,7 @@ import { asc, eq, inArray, sql } from "drizzle-orm";
 import { comments, micrographs, reviewEvents, threads, users, type MicrographRow } from "../schema";
 import { type Actor, type Db } from "./context";
 import { loadDie } from "./dies";
-import { loadDieSources, sourceImageOf, titleBlockFor, type DieSources } from "./export-sources";
+import { copySize, loadDieSources, sourceImageOf, titleBlockFor, type DieSources, type RenderFiles } from "./export-sources";
 import { NotFoundError } from "@/lib/server/errors";
 import { polygonArea, polylineLength } from "@/lib/geometry/measure";
 import { padTableFromMarkup } from "@/lib/markup/pad-table-from-markup";
@@ -11,6 +11,7 @@ import { shapeLabel } from "@/lib/markup/markup-table";
 import { KIND_STYLE } from "@/lib/markup/palette";
 import { planRender } from "@/lib/export/render-plan";
 import { renderAnnotatedPngBuffer } from "@/lib/export/render-png";
+import { previewPlan } from "@/lib/export/preview-plan";
 import type { ReportData } from "@/lib/export/report-pdf";
 import { ILLUMINATION_LABELS } from "@/lib/validation/micrographs";
 
@@ -26,13 +27,17 @@ async function namesOf(db: Db, ids: (string | null)[]): Promise<Map<string, stri
   return new Map(rows.map((r) => [r.id, r.name]));
 }
 
-async function overview(src: DieSources, ms: MicrographRow[], author: string, original: (m: MicrographRow) => string | null, pixelCap: number): Promise<ReportData["overview"]> {
+async function overview(src: DieSources, ms: MicrographRow[], author: string, files: RenderFiles): Promise<ReportData["overview"]> {
   const m = ms.find((x) => x.isReference && x.status !== "failed" && sourceImageOf(x)) ?? ms.find((x) => x.status !== "failed" && sourceImageOf(x));
   if (!m) return null;
-  const planned = planRender(sourceImageOf(m)!, src.die, { widthPx: OVERVIEW_WIDTH_PX });
+  const image = sourceImageOf(m)!;
+  const planned = planRender(image, src.die, { widthPx: OVERVIEW_WIDTH_PX });
   if (!planned.ok) return null;
-  const title = titleBlockFor(src, m, planned.plan.umPerPx, author);
-  const { png, info } = await renderAnnotatedPngBuffer({ original: original(m), pixelCap, plan: planned.plan, shapes: src.shapes, threads: [], labels: true, title });
+  // The tiler's downscaled copy is enough for a page-wide overview, and far quicker to read than the original.
+  const copyFile = files.copy(m);
+  const { plan, fromCopy } = previewPlan(image, await copySize(copyFile), planned.plan, OVERVIEW_WIDTH_PX);
+  const title = titleBlockFor(src, m, plan.umPerPx, author);
+  const { png, info } = await renderAnnotatedPngBuffer({ original: fromCopy ? copyFile : files.original(m), pixelCap: files.pixelCap, plan, shapes: src.shapes, threads: [], labels: true, title });
   return { png, caption: `${m.label} (${ILLUMINATION_LABELS[m.illumination]}), whole die at ${planned.plan.umPerPx.toPrecision(3)} µm/px; scale bar ${info.scaleBar.label}.${planned.plan.warnings.length ? ` ${planned.plan.warnings.join(" ")}` : ""}` };
 }
 
@@ -56,7 +61,7 @@ async function reviewParts(db: Db, dieId: string): Promise<Pick<ReportData, "rev
  * Gathers the die report (any member may export): case and die data, an overview rendered by
  * the PNG exporter, pad table, blocks, measurements, review history and threads, micrographs.
  */
-export async function loadReport(db: Db, actor: Actor, dieId: string, files: { original: (m: MicrographRow) => string | null; pixelCap: number }): Promise<ReportData> {
+export async function loadReport(db: Db, actor: Actor, dieId: string, files: RenderFiles): Promise<ReportData> {
   await loadDie(db, actor, dieId, "export");
   const src = await loadDieSources(db, dieId);
   if (!src) throw new NotFoundError("That die");
@@ -69,7 +74,7 @@ export async function loadReport(db: Db, actor: Actor, dieId: string, files: { o
     generatedBy: me,
     caseInfo: src.caseRow,
     die: { name: src.die.name, widthUm: src.die.widthUm, heightUm: src.die.heightUm, analyst: src.die.analystName ?? "—", reviewStatus: src.die.reviewStatus.replace(/_/g, " "), notes: src.die.notes },
-    overview: await overview(src, ms, me, files.original, files.pixelCap),
+    overview: await overview(src, ms, me, files),
     padTable: pads.ok ? pads.table : { unavailable: pads.message },
     blocks: src.shapes.flatMap((s) => (s.kind === "block" ? [{ name: s.properties.name, function: s.properties.function, areaUm2: polygonArea(s.geometry) }] : [])),
     measurements: lines.map((s) => ({

@@ -39,6 +39,13 @@ describe("previewPlan", () => {
     expect(p.plan.region).toEqual({ x: 1000, y: 1000, width: 100, height: 80 });
   });
 
+  it("takes a wider limit for the report's overview, still from the copy while it has the pixels", () => {
+    const p = previewPlan(original, { width: 2048, height: 1536 }, full(), 1600);
+    expect([p.plan.width, p.fromCopy]).toEqual([1600, true]);
+    // Wider than the copy: the original is read.
+    expect(previewPlan(original, { width: 2048, height: 1536 }, full(), 4000).fromCopy).toBe(false);
+  });
+
   it("uses the original when there is no copy yet", () => {
     expect(previewPlan(original, null, full()).fromCopy).toBe(false);
   });

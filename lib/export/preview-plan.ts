@@ -20,12 +20,12 @@ export function downscaledSource(original: SourceImage, width: number, height: n
 }
 
 /**
- * A small plan of the same region as `full` (at most PREVIEW_WIDTH_PX wide), read from the
- * downscaled copy when that copy still has at least one pixel per output pixel there, else
- * from the original. Says which it chose.
+ * A plan of the same region as `full`, at most `maxWidth` px wide, read from the downscaled
+ * copy when that copy still has at least one pixel per output pixel there, else from the
+ * original. Says which it chose.
  */
-export function previewPlan(original: SourceImage, copy: { width: number; height: number } | null, full: RenderPlan): { plan: RenderPlan; fromCopy: boolean } {
-  const req: PlanRequest = { region: full.region, widthPx: Math.min(PREVIEW_WIDTH_PX, full.width) };
+export function previewPlan(original: SourceImage, copy: { width: number; height: number } | null, full: RenderPlan, maxWidth = PREVIEW_WIDTH_PX): { plan: RenderPlan; fromCopy: boolean } {
+  const req: PlanRequest = { region: full.region, widthPx: Math.min(maxWidth, full.width) };
   const die = { widthUm: null, heightUm: null };
   if (copy) {
     const planned = planRender(downscaledSource(original, copy.width, copy.height), die, req);

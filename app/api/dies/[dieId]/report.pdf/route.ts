@@ -13,6 +13,7 @@ const params = z.object({ dieId: uuidSchema });
 export const GET = apiRoute({ params }, async ({ db, actor, params }) => {
   const data = await loadReport(db, actor, params.dieId, {
     original: (m) => (m.format ? micrographPaths(m.dieId, m.id, m.format as keyof typeof EXTENSION).original : null),
+    copy: (m) => micrographPaths(m.dieId, m.id).preview,
     pixelCap: env().KERFLINE_MAX_PIXELS,
   });
   const pdf = await buildReportPdf(data);

@@ -5,9 +5,8 @@ import { users } from "../schema";
 import { type Actor, type Db } from "./context";
 import { loadDie } from "./dies";
 import { checkRenderable } from "./exports";
-import { copySize, loadDieMicrograph, loadDieSources, loadThreadMarks, shapesOfKinds, sourceImageOf, titleBlockFor, type RenderFiles } from "./export-sources";
+import { copySize, loadDieMicrograph, loadDieSources, loadThreadMarks, shapesOfKinds, titleBlockFor, type RenderFiles } from "./export-sources";
 import { NotFoundError } from "@/lib/server/errors";
-import { planRender } from "@/lib/export/render-plan";
 import { previewPlan } from "@/lib/export/preview-plan";
 import { renderAnnotatedPngBuffer } from "@/lib/export/render-png";
 import type { ExportRequest } from "@/lib/validation/exports";
@@ -33,16 +32,13 @@ export type ExportPreviewDto = {
  */
 export async function previewExport(db: Db, actor: Actor, dieId: string, req: ExportRequest, files: RenderFiles): Promise<ExportPreviewDto> {
   const { row: die } = await loadDie(db, actor, dieId, "export");
-  const m = await loadDieMicrograph(db, dieId, req.micrographId);
-  const warnings = checkRenderable(m, die, req);
+  // Same checks and answers as creating the export; the plan is the full-size one.
+  const { m, image, plan: full } = checkRenderable(await loadDieMicrograph(db, dieId, req.micrographId), die, req);
   const src = await loadDieSources(db, dieId);
-  const image = m && sourceImageOf(m);
-  if (!src || !m || !image) throw new NotFoundError("That micrograph");
-  const full = planRender(image, src.die, req);
-  if (!full.ok) throw new Error(full.message); // checkRenderable has refused these already
+  if (!src) throw new NotFoundError("That die");
   const copyFile = files.copy(m);
   const copy = await copySize(copyFile);
-  const { plan, fromCopy } = previewPlan(image, copy, full.plan);
+  const { plan, fromCopy } = previewPlan(image, copy, full);
   const [me] = await db.select({ name: users.name }).from(users).where(eq(users.id, actor.userId));
   const { png } = await renderAnnotatedPngBuffer({
     original: fromCopy ? copyFile : files.original(m),
@@ -51,8 +47,8 @@ export async function previewExport(db: Db, actor: Actor, dieId: string, req: Ex
     shapes: shapesOfKinds(src.shapes, req.kinds),
     threads: req.threads ? await loadThreadMarks(db, dieId) : [],
     labels: req.labels,
-    title: titleBlockFor(src, m, full.plan.umPerPx, me?.name ?? "unknown"),
+    title: titleBlockFor(src, m, full.umPerPx, me?.name ?? "unknown"),
   });
   const { width, height } = await sharp(png).metadata();
-  return { width: full.plan.width, height: full.plan.height, umPerPx: full.plan.umPerPx, warnings, png: png.toString("base64"), previewWidth: width ?? plan.width, previewHeight: height ?? plan.height };
+  return { width: full.width, height: full.height, umPerPx: full.umPerPx, warnings: [...full.warnings], png: png.toString("base64"), previewWidth: width ?? plan.width, previewHeight: height ?? plan.height };
 }

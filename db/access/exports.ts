@@ -5,7 +5,7 @@ import { type Actor, type Db } from "./context";
 import { loadDie, loadDieOf } from "./dies";
 import { loadDieMicrograph, sourceImageOf } from "./export-sources";
 import { BadRequestError, ConflictError, NotFoundError } from "@/lib/server/errors";
-import { planRender } from "@/lib/export/render-plan";
+import { planRender, type RenderPlan, type SourceImage } from "@/lib/export/render-plan";
 import type { ExportRequest } from "@/lib/validation/exports";
 
 type ExportRow = typeof exportsTable.$inferSelect;
@@ -59,15 +59,18 @@ function toDto(row: ExportRow, createdByName: string | null): ExportDto {
   };
 }
 
-/** Checks a request can be rendered before a job is queued (so bad ones answer 400 at once). */
-export function checkRenderable(m: MicrographRow | null, die: { widthUm: number | null; heightUm: number | null }, req: ExportRequest): string[] {
+/**
+ * Checks a request can be rendered before a job is queued (so bad ones answer 400 at once),
+ * and returns what it resolved: the micrograph, its place in the die frame and the plan.
+ */
+export function checkRenderable(m: MicrographRow | null, die: { widthUm: number | null; heightUm: number | null }, req: ExportRequest): { m: MicrographRow; image: SourceImage; plan: RenderPlan } {
   if (!m) throw new NotFoundError("That micrograph");
   if (m.status === "failed" || !m.format) throw new ConflictError("That micrograph failed to process; upload it again before exporting.");
   const image = sourceImageOf(m);
   if (!image) throw new ConflictError("That micrograph is not in the die frame yet: set its scale or align it to the reference, then export.");
-  const plan = planRender(image, die, req);
-  if (!plan.ok) throw new BadRequestError(plan.message);
-  return [...plan.plan.warnings];
+  const planned = planRender(image, die, req);
+  if (!planned.ok) throw new BadRequestError(planned.message);
+  return { m, image, plan: planned.plan };
 }
 
 /**
@@ -77,7 +80,7 @@ export function checkRenderable(m: MicrographRow | null, die: { widthUm: number 
 export async function createExport(db: Db, actor: Actor, dieId: string, req: ExportRequest): Promise<ExportDto> {
   return db.transaction(async (tx) => {
     const { row: die } = await loadDie(tx, actor, dieId, "export");
-    const warnings = checkRenderable(await loadDieMicrograph(tx, dieId, req.micrographId), die, req);
+    const warnings = [...checkRenderable(await loadDieMicrograph(tx, dieId, req.micrographId), die, req).plan.warnings];
     const params: ExportParams = { request: req, warnings };
     const [row] = await tx.insert(exportsTable).values({ dieId, micrographId: req.micrographId, kind: "annotated_png", params, createdBy: actor.userId }).returning();
     await tx.insert(jobs).values({ kind: "export", subjectId: row.id });

@@ -22,7 +22,6 @@ export async function materialise(p: Sharp, scratch: Scratch, tag: string): Prom
     const { data, info } = await p.raw().toBuffer({ resolveWithObject: true });
     return sharp(data, { raw: { width: info.width, height: info.height, channels: info.channels }, limitInputPixels: false });
   }
-  // The ".v" suffix selects libvips' own format: a header and the raw pixels, memory-mapped on read.
   // An uncompressed tiled TIFF: random access through a small tile cache, read with read(2).
   // (libvips' own .v format would be memory-mapped, and every page read would count as ours.)
   const file = path.join(scratch.dir, `${scratch.stem}-${tag}.tif`);

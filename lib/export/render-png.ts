@@ -13,10 +13,10 @@ import type { RenderPlan } from "./render-plan";
 
 /**
  * Renders an annotated PNG with sharp in two stages. Stage one resamples the source window
- * onto the output grid (base-layer.ts). Stage two extends it by the footer and composites the
- * markup, rasterised beforehand in small tiles (overlay-tiles.ts), and the footer over it,
- * streaming the PNG out. Memory stays near the tiles' compressed size plus a few output rows:
- * the intermediate raster lives in a file beside the output.
+ * onto the output grid (base-layer.ts). Stage two draws bands of rows: each band's image rows
+ * with its markup and footer tiles (overlay-tiles.ts) composited over them; the bands are then
+ * stacked while the PNG streams out. Memory stays near two bands' tiles plus a few output
+ * rows: the intermediate rasters live in files beside the output.
  */
 
 export type RenderInput = {

@@ -37,10 +37,20 @@ export async function authenticate(db: Db, email: string, password: string, now 
     return { ok: false, reason: "locked", retryInMinutes: Math.max(1, Math.ceil((unlockAt - now.getTime()) / 60_000)) };
   }
   const user = await findUserByEmail(db, key);
-  const ok = !!user?.passwordHash && (await bcrypt.compare(password, user.passwordHash));
+  // An unknown e-mail is compared against a dummy hash of the same cost, so the answer takes
+  // as long as for a real account and its timing does not reveal which e-mails exist.
+  const hash = user?.passwordHash ?? (await dummyHash());
+  const matches = await bcrypt.compare(password, hash);
+  const ok = !!user?.passwordHash && matches;
   await db.insert(signInAttempts).values({ email: key, succeeded: ok, at: now });
   if (!ok || !user) return { ok: false, reason: "invalid" };
   return { ok: true, user: { id: user.id, email: user.email, name: user.name } };
+}
+
+let dummy: Promise<string> | null = null;
+function dummyHash(): Promise<string> {
+  dummy ??= hashPassword(`unknown-account-${Math.random()}`);
+  return dummy;
 }
 
 /** bcrypt hash for a new password (cost 10: about 70 ms here). */

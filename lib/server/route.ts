@@ -28,10 +28,18 @@ export function zodFailure(error: z.ZodError, where: string): BadRequestError {
   return new BadRequestError(`Invalid ${where}: ${summary}`, issues);
 }
 
+// JSON bodies: application/json (RFC 8259) and GeoJSON's registered type application/geo+json
+// (RFC 7946 §12), compared on the media type alone so parameters such as charset pass.
+const JSON_MEDIA_TYPES = new Set(["application/json", "application/geo+json"]);
+
+function isJsonMediaType(header: string | null): boolean {
+  const mediaType = (header ?? "").split(";")[0].trim().toLowerCase();
+  return JSON_MEDIA_TYPES.has(mediaType);
+}
+
 async function readJson(req: Request, limit: number): Promise<unknown> {
-  const type = req.headers.get("content-type") ?? "";
-  if (!type.toLowerCase().startsWith("application/json")) {
-    throw new AppError(415, "Send the request body as JSON (Content-Type: application/json).");
+  if (!isJsonMediaType(req.headers.get("content-type"))) {
+    throw new AppError(415, "Send the request body as JSON (Content-Type: application/json or application/geo+json).");
   }
   const declared = Number(req.headers.get("content-length") ?? "0");
   if (declared > limit) throw new PayloadTooLargeError(`The request body is larger than ${limit} bytes.`);

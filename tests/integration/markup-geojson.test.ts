@@ -123,6 +123,25 @@ describe("a bad import adds nothing", () => {
   }
 });
 
+// RFC 7946 §12 registers application/geo+json as GeoJSON's media type; plain JSON is accepted too.
+describe("import media types", () => {
+  for (const type of ["application/geo+json", "application/geo+json; charset=utf-8", "application/json"]) {
+    it(`accepts Content-Type: ${type}`, async () => {
+      const { dieId } = await freshCase(world.clients.owner, world.teamId);
+      const res = await world.clients.owner.request("POST", `/api/dies/${dieId}/markup/import`, JSON.stringify(fc(feature())), { "content-type": type });
+      expect(res.status).toBe(201);
+      expect(await countOf(dieId)).toBe(1);
+    });
+  }
+  it("refuses another media type with 415 and imports nothing", async () => {
+    const { dieId } = await freshCase(world.clients.owner, world.teamId);
+    const res = await world.clients.owner.request<{ error: string }>("POST", `/api/dies/${dieId}/markup/import`, JSON.stringify(fc(feature())), { "content-type": "application/jsonl" });
+    expect(res.status).toBe(415);
+    expect(res.body.error).toMatch(/application\/geo\+json/);
+    expect(await countOf(dieId)).toBe(0);
+  });
+});
+
 describe("GeoJSON routes for every role", () => {
   for (const who of EVERYONE) {
     const read = expectedStatus(who, "read", 200);

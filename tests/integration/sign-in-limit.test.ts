@@ -28,3 +28,24 @@ describe("sign-in attempt limit", () => {
     expect((await other.get("/api/me")).status).toBe(200);
   });
 });
+
+// Timing as an oracle (OWASP Authentication Cheat Sheet, "authentication responses" — common
+// practice): an unknown e-mail must take about as long as a wrong password for a real account.
+// Before the dummy-hash comparison the ratio here was about 0.1 (10 ms vs 99 ms).
+describe("sign-in timing", () => {
+  async function medianMs(email: string): Promise<number> {
+    const times: number[] = [];
+    for (let i = 0; i < 5; i++) {
+      const c = new ApiClient(server.url);
+      const t0 = performance.now();
+      await c.signIn(email, "wrong-password");
+      times.push(performance.now() - t0);
+    }
+    return times.sort((a, b) => a - b)[2];
+  }
+  it("does not reveal which e-mails have accounts", async () => {
+    const unknown = await medianMs("nobody-here@fjordlight.test");
+    const known = await medianMs(DEMO_EMAILS.analyst);
+    expect(unknown / known).toBeGreaterThan(0.5);
+  });
+});

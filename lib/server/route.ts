@@ -5,6 +5,7 @@ import { requireActor } from "./session";
 import { database, type Database } from "@/db/client";
 import type { Actor } from "@/db/access/context";
 import { assertPathMember } from "@/db/access/path-scope";
+import { findUnsafeText } from "@/lib/validation/unsafe-text";
 
 /** JSON bodies above this are refused with 413 before parsing. */
 export const MAX_JSON_BYTES = 1024 * 1024;
@@ -57,11 +58,19 @@ async function readJson(req: Request, limit: number): Promise<unknown> {
     chunks.push(value);
   }
   const text = Buffer.concat(chunks).toString("utf8");
+  let parsed: unknown;
   try {
-    return JSON.parse(text);
+    parsed = JSON.parse(text);
   } catch {
     throw new BadRequestError("The request body is not valid JSON.");
   }
+  // Checked before any schema so every text field of every route is covered the same way.
+  const unsafe = findUnsafeText(parsed);
+  if (unsafe) {
+    const field = unsafe.path || "body";
+    throw new BadRequestError(`Invalid request body: ${field} ${unsafe.problem}.`, [{ path: unsafe.path, message: unsafe.problem }]);
+  }
+  return parsed;
 }
 
 /** Maps any thrown error to a JSON response; unknown errors become 500 without internals. */

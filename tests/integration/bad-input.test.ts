@@ -37,6 +37,21 @@ describe("POST /api/teams/{teamId}/cases refuses bad input", () => {
     });
   }
 
+  // PostgreSQL text refuses U+0000, and a lone surrogate is not Unicode text (Unicode §3.9 D76):
+  // both were a 500 before; now a 400 naming the field, nothing written.
+  for (const [name, raw, field] of [
+    ["a NUL in the title", '{"title":"die\\u0000one","partMarking":"TP-1","package":"DIP-8","sampleId":"S-1","notes":""}', "title"],
+    ["a lone surrogate in the notes", '{"title":"die one","partMarking":"TP-1","package":"DIP-8","sampleId":"S-1","notes":"x\\ud800"}', "notes"],
+  ] as const) {
+    it(`answers 400 for ${name} and writes no row`, async () => {
+      const before = await countCases();
+      const res = await world.clients.owner.request<{ error: string }>("POST", `/api/teams/${world.teamId}/cases`, raw);
+      expect(res.status).toBe(400);
+      expect(res.body.error).toContain(field);
+      expect(await countCases()).toBe(before);
+    });
+  }
+
   it("answers 415 when the body is not sent as JSON", async () => {
     const before = await countCases();
     const res = await world.clients.owner.request<{ error: string }>("POST", `/api/teams/${world.teamId}/cases`, "title=x", { "content-type": "text/plain" });

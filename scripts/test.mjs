@@ -1,9 +1,14 @@
-// `npm test`: every test tier, in order, then one summary line.
-//   1. type check   2. production build (if stale)   3. vitest: unit + integration (PGlite)
-//   4. the integration suite again on a PostgreSQL 15 server   5. Playwright e2e in Chromium
-import { spawnSync } from "node:child_process";
+// `npm test`: every test tier, then each tier's time and one summary line.
+//   1. type check ∥ production build (if stale)
+//   2. vitest: unit + integration on PGlite ∥ the integration suite on a PostgreSQL 15 server
+//   3. Playwright e2e in Chromium (alone: it measures the UI's timing, not the machine's)
+// Tiers in one step run side by side: each starts its own server on a free port and spends
+// much of its time waiting on it, so two of them share two cores well. Output lines of a
+// tier that runs beside another carry its name.
+import { spawn } from "node:child_process";
 import fs from "node:fs";
 import path from "node:path";
+import readline from "node:readline";
 
 const ROOT = path.resolve(import.meta.dirname, "..");
 const RESULTS = path.join(ROOT, "test-results");
@@ -12,10 +17,23 @@ const node = process.execPath;
 const bin = (p) => path.join(ROOT, "node_modules", p);
 const env = { ...process.env, NEXT_TELEMETRY_DISABLED: "1" };
 
-function run(label, cmd, args, extraEnv = {}) {
-  console.log(`\n[kerfline test] ${label}`);
-  const r = spawnSync(cmd, args, { cwd: ROOT, stdio: "inherit", env: { ...env, ...extraEnv } });
-  return r.status === 0;
+/** Runs one tier; resolves to { ok, seconds }. */
+function run(tier, prefixed) {
+  const started = Date.now();
+  console.log(`\n[kerfline test] ${tier.label}`);
+  const child = spawn(node, tier.args, { cwd: ROOT, env: { ...env, ...tier.env }, stdio: prefixed ? ["ignore", "pipe", "pipe"] : "inherit" });
+  if (prefixed) {
+    for (const stream of [child.stdout, child.stderr]) {
+      readline.createInterface({ input: stream }).on("line", (line) => console.log(`[${tier.short}] ${line}`));
+    }
+  }
+  return new Promise((resolve) => {
+    child.on("close", (code) => resolve({ tier, ok: code === 0, seconds: (Date.now() - started) / 1000 }));
+  });
+}
+
+async function step(...tiers) {
+  return Promise.all(tiers.map((t) => run(t, tiers.length > 1)));
 }
 
 function vitestCounts(file) {
@@ -36,36 +54,34 @@ function playwrightCounts(file) {
   }
 }
 
-const results = [];
-let ok = run("type check (tsc --noEmit)", node, [bin("typescript/bin/tsc"), "--noEmit"]);
-if (!ok) results.push({ passed: 0, failed: 1, skipped: 0 });
-ok = run("production build", node, [path.join(ROOT, "scripts/build-if-stale.mjs")]) && ok;
-
 const vitestJson = path.join(RESULTS, "vitest.json");
-fs.rmSync(vitestJson, { force: true });
-run("unit and integration tests (vitest, PGlite)", node, [bin("vitest/vitest.mjs"), "run", "--reporter=default", "--reporter=json", `--outputFile.json=${vitestJson}`]);
-results.push(vitestCounts(vitestJson));
-
 const pgJson = path.join(RESULTS, "vitest-postgres.json");
-fs.rmSync(pgJson, { force: true });
-run("integration tests on PostgreSQL 15 (DATABASE_URL)", node, [
-  path.join(ROOT, "scripts/with-postgres.mjs"),
-  node,
-  bin("vitest/vitest.mjs"),
-  "run",
-  "--project",
-  "integration",
-  "--reporter=default",
-  "--reporter=json",
-  `--outputFile.json=${pgJson}`,
-]);
-results.push(vitestCounts(pgJson));
-
 const e2eJson = path.join(RESULTS, "e2e.json");
-fs.rmSync(e2eJson, { force: true });
-run("end-to-end tests (Playwright, Debian Chromium)", node, [bin("@playwright/test/cli.js"), "test"]);
-results.push(playwrightCounts(e2eJson));
+for (const f of [vitestJson, pgJson, e2eJson]) fs.rmSync(f, { force: true });
 
-const total = results.reduce((a, r) => ({ passed: a.passed + r.passed, failed: a.failed + r.failed, skipped: a.skipped + r.skipped }), { passed: 0, failed: 0, skipped: 0 });
+const vitest = (json) => [bin("vitest/vitest.mjs"), "run", "--reporter=default", "--reporter=json", `--outputFile.json=${json}`];
+const TIERS = {
+  types: { label: "type check (tsc --noEmit)", short: "types", args: [bin("typescript/bin/tsc"), "--noEmit"] },
+  build: { label: "production build", short: "build", args: [path.join(ROOT, "scripts/build-if-stale.mjs")] },
+  pglite: { label: "unit and integration tests (vitest, PGlite)", short: "pglite", args: vitest(vitestJson) },
+  postgres: {
+    label: "integration tests on PostgreSQL 15 (DATABASE_URL)",
+    short: "postgres",
+    args: [path.join(ROOT, "scripts/with-postgres.mjs"), node, ...vitest(pgJson), "--project", "integration"],
+  },
+  e2e: { label: "end-to-end tests (Playwright, Debian Chromium)", short: "e2e", args: [bin("@playwright/test/cli.js"), "test"] },
+};
+
+const started = Date.now();
+const done = [];
+done.push(...(await step(TIERS.types, TIERS.build)));
+done.push(...(await step(TIERS.pglite, TIERS.postgres)));
+done.push(...(await step(TIERS.e2e)));
+
+const counts = [done[0].ok ? null : { passed: 0, failed: 1, skipped: 0 }, done[1].ok ? null : { passed: 0, failed: 1, skipped: 0 }, vitestCounts(vitestJson), vitestCounts(pgJson), playwrightCounts(e2eJson)].filter(Boolean);
+const total = counts.reduce((a, r) => ({ passed: a.passed + r.passed, failed: a.failed + r.failed, skipped: a.skipped + r.skipped }), { passed: 0, failed: 0, skipped: 0 });
+console.log("\n[kerfline test] time per tier (tiers of one step ran side by side)");
+for (const d of done) console.log(`  ${d.tier.label.padEnd(52)} ${d.seconds.toFixed(0).padStart(5)} s  ${d.ok ? "ok" : "FAILED"}`);
+console.log(`  ${"whole run".padEnd(52)} ${((Date.now() - started) / 1000).toFixed(0).padStart(5)} s`);
 console.log(`\ntests: ${total.passed} passed, ${total.failed} failed, ${total.skipped} skipped`);
 process.exit(total.failed > 0 || total.passed === 0 ? 1 : 0);

@@ -41,7 +41,7 @@ import { MicrographsManager } from "@/components/compare/micrographs-manager";
 import type { WorkMode } from "@/components/compare/work-mode";
 
 /** The die bench: a top bar with the die's identity, the work area, and a side panel. */
-export function DieBench({ initial, userId }: { initial: DieDto; userId: string }) {
+export function DieBench({ initial, userId, linkedThreadId = null }: { initial: DieDto; userId: string; linkedThreadId?: string | null }) {
   const router = useRouter();
   const qc = useQueryClient();
   const [dialog, setDialog] = useState<null | "edit" | "delete" | "upload">(null);
@@ -60,7 +60,7 @@ export function DieBench({ initial, userId }: { initial: DieDto; userId: string 
   const state = useEditorState(editor);
   const ws = useMarkupWorkspace(editor, state, api, (compareTop ?? shown)?.transform ?? null, die.teamId, die.id);
   const symmetry = useSymmetryView(state?.shapeList);
-  const review = useReviewBench(die.id, state, api, shown?.transform ?? null, ws.pick);
+  const review = useReviewBench(die.id, linkedThreadId, state, api, shown?.transform ?? null, ws.pick);
   const drawers = useMemo(() => [...symmetry.drawers, review.drawer], [symmetry.drawers, review.drawer]);
   const update = useMutation({
     mutationFn: (body: unknown) => apiFetch<DieDto>(`/api/dies/${die.id}`, { method: "PATCH", body }),

@@ -9,12 +9,6 @@ import type { EditorState } from "@/components/annotate/editor/types";
 import { threadPinsDrawer } from "./thread-pins";
 import { useThreads } from "./use-threads";
 
-/** The thread named in the page's address (`?thread=`), read once. */
-function threadInAddress(): string | null {
-  if (typeof window === "undefined") return null;
-  return new URLSearchParams(window.location.search).get("thread");
-}
-
 /** Animates the viewer to a die-µm box with room around it. */
 export function flyToDieBox(api: ViewerApi, transform: Affine2x3, b: BoundingBox) {
   const inv = invertAffine(transform);
@@ -44,13 +38,14 @@ export function viewBoxUm(api: ViewerApi, transform: Affine2x3): BoundingBox {
  * Review state of the die bench: the threads, which one is open, its pins on the canvas, and
  * selecting a thread (flies to its anchor and selects its shape when the shape still exists).
  */
-export function useReviewBench(dieId: string, state: EditorState | null, api: ViewerApi | null, transform: Affine2x3 | null, pick: (id: string) => void) {
+export function useReviewBench(dieId: string, linkedThreadId: string | null, state: EditorState | null, api: ViewerApi | null, transform: Affine2x3 | null, pick: (id: string) => void) {
   const threads = useThreads(dieId);
-  const [selectedId, setSelectedId] = useState<string | null>(() => threadInAddress());
+  const [selectedId, setSelectedId] = useState<string | null>(linkedThreadId);
   const list = useMemo(() => threads.threads.data ?? [], [threads.threads.data]);
   const drawer = useMemo(() => threadPinsDrawer(list, selectedId), [list, selectedId]);
 
-  const select = useCallback(
+  const linked = useRef(linkedThreadId);
+  const show = useCallback(
     (id: string | null) => {
       setSelectedId(id);
       const t = list.find((x) => x.id === id);
@@ -61,18 +56,30 @@ export function useReviewBench(dieId: string, state: EditorState | null, api: Vi
     [list, state, api, transform, pick],
   );
 
+  // A choice of the user's own (back to the list, another thread) cancels the deep link's
+  // pending jump, which would otherwise reopen the linked thread after the click.
+  const select = useCallback(
+    (id: string | null) => {
+      linked.current = null;
+      show(id);
+    },
+    [show],
+  );
+
   // A deep link opens the die zoomed to its thread once the viewer, the markup and the threads are in.
-  const linked = useRef(threadInAddress());
   useEffect(() => {
     const id = linked.current;
     if (!id || !api || !transform || !state || !list.some((t) => t.id === id)) return;
-    linked.current = null;
-    // Let the viewer settle on its first view before flying.
-    const timer = setTimeout(() => select(id), 300);
+    // Let the viewer settle on its first view before flying; cleared if the user chooses first.
+    const timer = setTimeout(() => {
+      if (linked.current !== id) return;
+      linked.current = null;
+      show(id);
+    }, 300);
     return () => clearTimeout(timer);
-  }, [api, transform, state, list, select]);
+  }, [api, transform, state, list, show]);
 
-  return { threads, list, selectedId, select, drawer, linkedAtStart: threadInAddress() !== null };
+  return { threads, list, selectedId, select, drawer, linkedAtStart: linkedThreadId !== null };
 }
 
 export type ReviewBench = ReturnType<typeof useReviewBench>;

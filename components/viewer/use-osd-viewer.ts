@@ -5,6 +5,7 @@ import type OpenSeadragon from "openseadragon";
 import { loadOpenSeadragon } from "./load-openseadragon";
 import { sourceKey, tileSpecFor, type MicrographSource } from "./micrograph-source";
 import { createViewerApi, type ImageSizeGetter, type OsdNamespace, type ViewerApi } from "./viewer-api";
+import { markViewIdle } from "./view-idle-marker";
 
 /** Deepest zoom, in screen px per full-resolution image px: far enough to see single pixels. */
 export const MAX_SCREEN_PX_PER_IMAGE_PX = 8;
@@ -108,6 +109,7 @@ export function useOsdViewer(host: RefObject<HTMLDivElement | null>, source: Mic
         const getSize: ImageSizeGetter = () => sizeRef.current;
         viewer = new ns.Viewer(viewerOptions(host.current));
         watchOpen(viewer, getSize, setStatus);
+        markViewIdle(viewer);
         setOsd(() => ns);
         setApi(createViewerApi(ns, viewer, getSize));
       },

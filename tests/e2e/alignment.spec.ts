@@ -1,6 +1,6 @@
 import { expect, test, type Locator, type Page } from "@playwright/test";
 import sharp from "sharp";
-import { signInAs } from "./helpers";
+import { signInAs, waitForStillView } from "./helpers";
 import { NV24R_LAYOUT, padByLabel } from "../../lib/demo-die/layout";
 import { demoMicrographOptions } from "../../lib/demo-die/render";
 import { placeDie, pxPerUmForWidth, type Placement } from "../../lib/demo-die/placement";
@@ -47,7 +47,7 @@ test.describe.serial("aligning and comparing the demo micrographs", () => {
     const right = page.getByTestId("align-right").getByRole("application", { name: "Micrograph viewer" });
     await expect(left).toBeVisible();
     await expect(right).toBeVisible();
-    await page.waitForTimeout(2000);
+    await waitForStillView(page);
 
     for (const [i, label] of PADS.entries()) {
       const c = padByLabel(NV24R_LAYOUT, label).centreUm;
@@ -82,11 +82,11 @@ test.describe.serial("aligning and comparing the demo micrographs", () => {
     // (its scrub mark is offset along x only) for y.
     await expect(page.getByTestId("compare-view")).toHaveAttribute("data-mode", "blend");
     const top = page.getByTestId("compare-top").getByRole("application", { name: "Micrograph viewer" });
-    await page.waitForTimeout(2500);
+    await waitForStillView(page);
     const opacity = page.getByLabel("Blend opacity");
     const shot = async (value: string) => {
       await opacity.fill(value);
-      await page.waitForTimeout(600);
+      await waitForStillView(page);
       return pixels(page);
     };
     const darkOnly = await shot("100");
@@ -133,7 +133,7 @@ test.describe.serial("aligning and comparing the demo micrographs", () => {
     await page.mouse.down();
     await page.mouse.move(xPad.x, xPad.y - 150, { steps: 8 });
     await page.mouse.up();
-    await page.waitForTimeout(800);
+    await waitForStillView(page);
     const swiped = await pixels(page);
     for (const dy of [-4, 0, 4]) {
       swiped(xPad.x - 4, xPad.y + dy).forEach((v, c) => expect(Math.abs(v - darkOnly(xPad.x - 4, xPad.y + dy)[c])).toBeLessThan(12));
@@ -151,7 +151,7 @@ test.describe.serial("aligning and comparing the demo micrographs", () => {
     const viewer = page.getByRole("application", { name: "Micrograph viewer" });
     await expect(page.getByTestId("markup-overlay")).toBeVisible();
     await page.getByRole("button", { name: "Fit die" }).click();
-    await page.waitForTimeout(1500);
+    await waitForStillView(page);
     // Draw a pad over VB2 on the bright field (its layout rectangle, placed by the ground truth).
     const vb2 = padByLabel(NV24R_LAYOUT, "VB2");
     const [cx, cy] = vb2.centreUm;
@@ -174,9 +174,9 @@ test.describe.serial("aligning and comparing the demo micrographs", () => {
     // Switch to the dark field: the same die-frame pad is drawn through its (aligned) transform
     // and must land on the dark-field image's own VB2 pad (ground truth), within the alignment's error.
     await page.getByRole("list", { name: "Micrographs" }).getByRole("button", { name: /dark field/ }).click();
-    await page.waitForTimeout(1500);
+    await waitForStillView(page);
     await page.getByRole("button", { name: "Fit die" }).click();
-    await page.waitForTimeout(1500);
+    await waitForStillView(page);
     const overlay = page.getByTestId("markup-overlay");
     const m = JSON.parse((await overlay.getAttribute("data-die-to-screen"))!) as [[number, number, number], [number, number, number]];
     const o = (await overlay.boundingBox())!;

@@ -14,3 +14,18 @@ export async function signInAs(page: Page, who: "owner" | "analyst" | "reviewer"
   await signIn(page, `${who}@fjordlight.test`);
   await expect(page.getByRole("heading", { name: "Cases" })).toBeVisible();
 }
+
+/**
+ * Waits until every micrograph viewer on the page has stopped moving and has the tiles for its
+ * view (`data-view-idle`, kept by the viewer), seen twice 300 ms apart so that an animation
+ * the last action starts on the next frame is not missed.
+ */
+export async function waitForStillView(page: Page, timeout = 30_000) {
+  const idle = async () =>
+    page.locator("[data-view-idle]").evaluateAll((els) => els.length > 0 && els.every((e) => (e as HTMLElement).dataset.viewIdle === "true"));
+  await expect(async () => {
+    expect(await idle()).toBe(true);
+    await page.waitForTimeout(300);
+    expect(await idle()).toBe(true);
+  }).toPass({ timeout, intervals: [100, 200, 300] });
+}

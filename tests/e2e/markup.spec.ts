@@ -1,5 +1,5 @@
 import { expect, test, type Page } from "@playwright/test";
-import { signInAs } from "./helpers";
+import { signInAs, waitForStillView } from "./helpers";
 import { NV24R_LAYOUT, padByLabel } from "../../lib/demo-die/layout";
 import { demoMicrographOptions } from "../../lib/demo-die/render";
 import { placeDie, pxPerUmForWidth } from "../../lib/demo-die/placement";
@@ -15,7 +15,7 @@ async function openDie(page: Page, who: "analyst" | "reviewer") {
   await page.getByRole("link", { name: "NV-24R die A" }).click();
   await expect(page.getByTestId("markup-overlay")).toBeVisible();
   await page.getByRole("button", { name: "Fit die" }).click();
-  await page.waitForTimeout(1200);
+  await waitForStillView(page);
 }
 
 /**
@@ -153,7 +153,7 @@ test.describe.serial("markup on the demo die", () => {
     for (const [steps, total] of [[5, 5], [1, 6]] as const) {
       await viewer.focus();
       for (let i = 0; i < steps; i++) await page.keyboard.press("+");
-      await page.waitForTimeout(2500);
+      await waitForStillView(page);
       const k = 1.5 ** total;
       got = await at();
       // Only points inside the view are checked; VB3 may leave it at high zoom, so check the

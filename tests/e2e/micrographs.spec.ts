@@ -2,7 +2,7 @@ import { expect, test } from "@playwright/test";
 import fs from "node:fs";
 import os from "node:os";
 import path from "node:path";
-import { signInAs } from "./helpers";
+import { signInAs, waitForStillView } from "./helpers";
 import { demoMicrographOptions, renderDemoMicrograph } from "../../lib/demo-die/render";
 
 // The analyst uploads a rendered demo micrograph through the form, watches the upload and
@@ -45,7 +45,7 @@ test("the analyst uploads a micrograph, sees both progress bars, zooms, and the 
   const bar = page.getByTestId("scale-bar");
   await expect(bar).toHaveAttribute("data-scale-set", "true");
   await page.getByRole("button", { name: "Fit die" }).click();
-  await page.waitForTimeout(1500);
+  await waitForStillView(page);
 
   // Independent of the viewer's own numbers: at "fit", the whole image fills the viewer's
   // limiting dimension, so µm per screen px = image extent in µm / viewer extent in px.
@@ -65,7 +65,7 @@ test("the analyst uploads a micrograph, sees both progress bars, zooms, and the 
   // Zoom in three steps of 1.5 with the keyboard: 3.375× finer.
   await viewer.focus();
   for (let i = 0; i < 3; i++) await page.keyboard.press("+");
-  await page.waitForTimeout(2000);
+  await waitForStillView(page);
   s = await read();
   const expected = fitUmPerPx / 1.5 ** 3;
   expect(Math.abs(s.umPerScreenPx / expected - 1)).toBeLessThan(0.01);
@@ -91,7 +91,7 @@ test("the analyst recalibrates a micrograph from two clicks and a known length; 
   const viewer = page.getByRole("application", { name: "Micrograph viewer" });
   await expect(viewer).toBeVisible();
   await page.getByRole("button", { name: "Fit die" }).click();
-  await page.waitForTimeout(1000);
+  await waitForStillView(page);
 
   await page.getByRole("button", { name: "Recalibrate scale" }).click();
   await expect(page.getByTestId("calibration-tool")).toBeVisible();

@@ -1,5 +1,5 @@
 import { expect, test, type Browser, type Page } from "@playwright/test";
-import { signInAs } from "./helpers";
+import { signInAs, waitForStillView } from "./helpers";
 import { NV24R_LAYOUT, padByLabel } from "../../lib/demo-die/layout";
 import { demoMicrographOptions } from "../../lib/demo-die/render";
 import { placeDie, pxPerUmForWidth } from "../../lib/demo-die/placement";
@@ -63,7 +63,7 @@ test.describe.serial("review of the demo die", () => {
     const reviewer = await as(browser, "reviewer");
     await openDemoDie(reviewer);
     await reviewer.getByRole("button", { name: "Fit die" }).click();
-    await reviewer.waitForTimeout(1200);
+    await waitForStillView(reviewer);
     const at = await fitScreen(reviewer, PAD.centreUm);
     await reviewer.mouse.click(at.x, at.y);
     await reviewer.getByRole("tab", { name: "Review" }).click();

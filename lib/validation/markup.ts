@@ -163,3 +163,11 @@ export const markupDeleteQuerySchema = z.strictObject({
 
 /** `?padOne=<pad id>` on the pad table routes: the pad to number 1. */
 export const padTableQuerySchema = z.strictObject({ padOne: uuidSchema.optional() });
+
+/** `POST /api/dies/{dieId}/frame/restore`: the frame to go back to after a re-framing (undo). */
+export const frameRestoreSchema = z.strictObject({
+  originUm: position,
+  widthUm: positiveUm(UNKNOWN_DIE_LIMIT_UM).nullable(),
+  heightUm: positiveUm(UNKNOWN_DIE_LIMIT_UM).nullable(),
+  outline: polygonSchema("must be a Polygon").nullable(),
+});

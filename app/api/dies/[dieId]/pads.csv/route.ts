@@ -21,7 +21,9 @@ export const GET = apiRoute({ params, query: padTableQuerySchema }, async ({ db,
   const { die, shapes } = await listMarkup(db, actor, params.dieId, "export");
   const r = padTableFromMarkup(shapes, die, { padOneId: query.padOne });
   if (!r.ok) throw r.reason === "bad_request" ? new BadRequestError(r.message) : new ConflictError(r.message);
-  return new Response(padTableCsv(r.table, { decimals: umDecimals(await referenceScale(db, params.dieId)) }), {
+  // µm to the decimals the reference micrograph's scale resolves; without one, the CSV's own 3.
+  const scale = await referenceScale(db, params.dieId);
+  return new Response(padTableCsv(r.table, scale === null ? {} : { decimals: umDecimals(scale) }), {
     headers: {
       "Content-Type": "text/csv; charset=utf-8",
       "Content-Disposition": attachmentDisposition(`${die.name} pad table.csv`),

@@ -13,8 +13,9 @@ beforeAll(async () => {
   ({ dieId } = await freshCase(world.clients.owner, world.teamId, "Export decimals"));
   const up = await world.clients.analyst.upload(`/api/dies/${dieId}/micrographs`, uploadForm(await makeJpeg(400, 300), "bf.jpg", { label: "bright field", scaleUmPerPx: "0.5" }));
   expect(up.status).toBe(202);
-  const noisy = 26.999981;
-  const ring = [[noisy, noisy], [noisy + 80.000004, noisy], [noisy + 80.000004, noisy + 79.99997], [noisy, noisy + 79.99997], [noisy, noisy]];
+  // x carries 0.04 µm more than a 0.5 µm pixel resolves, y the float noise.
+  const [x0, y0] = [27.039981, 26.999981];
+  const ring = [[x0, y0], [x0 + 80.000004, y0], [x0 + 80.000004, y0 + 79.99997], [x0, y0 + 79.99997], [x0, y0]];
   const res = await world.clients.analyst.request("POST", `/api/dies/${dieId}/markup`, { kind: "pad", geometry: { type: "Polygon", coordinates: [ring] }, properties: { label: "VCC", net: "VCC", state: "unbonded" } });
   expect(res.status).toBe(201);
 });
@@ -24,7 +25,8 @@ describe("µm in exports", () => {
     const csv = await world.clients.viewer.request<string>("GET", `/api/dies/${dieId}/pads.csv`);
     expect(csv.status).toBe(200);
     const [rec] = parse(csv.body, { columns: true, record_delimiter: "\r\n" }) as Record<string, string>[];
-    // Centre worked by hand: 26.999981 + 40.000002 = 66.999983 → 67.0; size 80.000004 → 80.0.
+    // Centre worked by hand: x 27.039981 + 40.000002 = 67.039983 → 67.0 (3 decimals gave 67.04),
+    // y 26.999981 + 39.999985 = 66.999966 → 67.0; sizes 80.000004 and 79.99997 → 80.0.
     expect({ x: rec.x_um, y: rec.y_um, w: rec.width_um, h: rec.height_um }).toEqual({ x: "67", y: "67", w: "80", h: "80" });
   });
 

@@ -136,15 +136,38 @@ test.describe.serial("markup on the demo die", () => {
     await openDie(page, "analyst");
     const shots = "test-results/markup-shots";
     const inspector = page.getByRole("region", { name: "Inspector" });
-    const vcc2 = padByLabel(NV24R_LAYOUT, "VCC2");
-    const seeded = (await markup(page)).find((s) => s.kind === "pad" && s.properties.label === "VCC2")!;
+    const vee2 = padByLabel(NV24R_LAYOUT, "VEE2");
+    const [px, py] = vee2.centreUm;
+    const known = new Set((await markup(page)).map((s) => s.id));
+    // A pad over the VEE2 pad of the image and a wire bond pulled from its centre off the bottom edge.
+    await page.keyboard.press("p");
+    const a0 = await fitScreen(page, [px - vee2.sizeUm[0] / 2, py + vee2.sizeUm[1] / 2]);
+    const b0 = await fitScreen(page, [px + vee2.sizeUm[0] / 2, py - vee2.sizeUm[1] / 2]);
+    await page.mouse.move(a0.x, a0.y);
+    await page.mouse.down();
+    await page.mouse.move(b0.x, b0.y, { steps: 6 });
+    await page.mouse.up();
+    const tools = page.getByRole("toolbar", { name: "Markup tools" });
+    await tools.getByRole("button", { name: /^Wire bond/ }).click();
+    const centre = await fitScreen(page, vee2.centreUm);
+    const below = await fitScreen(page, [px, py - 250]);
+    await page.mouse.move(centre.x, centre.y);
+    await page.mouse.down();
+    await page.mouse.move(below.x, below.y, { steps: 6 });
+    await page.mouse.up();
+    await expect(page.getByTestId("save-state")).toHaveAttribute("data-status", "saved");
+    const drawn = (await markup(page)).filter((s) => !known.has(s.id));
+    expect(drawn.map((s) => s.kind).sort()).toEqual(["pad", "wire_bond"]);
+    createdIds.push(...drawn.map((s) => s.id));
+    const seeded = drawn.find((s) => s.kind === "pad")!;
+    const padLabel = String(seeded.properties.label);
+    await page.keyboard.press("Escape");
 
-    // The seeded VCC2 pad carries a wire bond whose foot sits on the pad's centre. Before, a click
-    // there selected the bond and a drag moved it onto the neighbouring pad.
-    const centre = await fitScreen(page, vcc2.centreUm);
+    // The bond's foot sits on the pad's centre. Before, a click there selected the bond and a drag
+    // moved it onto the neighbouring pad.
     await page.mouse.click(centre.x, centre.y);
     await expect(inspector.getByRole("heading")).toHaveText("Pad");
-    await expect(inspector.getByLabel("Label")).toHaveValue("VCC2");
+    await expect(inspector.getByLabel("Label")).toHaveValue(padLabel);
     await expect(inspector.getByTestId("inspector-pad-state")).toContainText("bonded: a wire bond is attached");
     await page.screenshot({ path: `${shots}/1-pad-selected.png` });
     // A second click at the same spot takes the next shape of the stack: the bond.
@@ -197,7 +220,6 @@ test.describe.serial("markup on the demo die", () => {
     await expect(details).toContainText(/Width\s*23\d\d\.\d µm/);
     const moved = (await markup(page)).find((s) => s.id === seeded.id)!;
     expect(moved.geometry.coordinates).not.toEqual(seeded.geometry.coordinates);
-    const tools = page.getByRole("toolbar", { name: "Markup tools" });
     await expect(tools.getByRole("button", { name: "Undo" })).toBeEnabled();
     await tools.getByRole("button", { name: "Undo" }).click();
     await expect(details).toContainText(/Width\s*2400\.0 µm/);
@@ -207,7 +229,7 @@ test.describe.serial("markup on the demo die", () => {
     flat(back.geometry.coordinates).forEach((v, i) => expect(Math.abs(v - flat(seeded.geometry.coordinates)[i])).toBeLessThan(1e-6));
     expect((await markup(page)).some((s) => s.kind === "die_outline")).toBe(false);
     await page.getByRole("tab", { name: "Pad table" }).click();
-    await expect(page.getByRole("region", { name: "Pad table" }).getByRole("button", { name: "VCC2" })).toBeVisible();
+    await expect(page.getByRole("region", { name: "Pad table" }).getByRole("button", { name: padLabel })).toBeVisible();
     await page.screenshot({ path: `${shots}/5-pad-table.png` });
   });
 

@@ -31,9 +31,10 @@ describe("µm in exports", () => {
   });
 
   it("writes GeoJSON coordinates at the scale's decimals", async () => {
-    const res = await world.clients.viewer.request<string>("GET", `/api/dies/${dieId}/markup.geojson`);
+    type Fc = { features: { geometry: { coordinates: number[][][] } }[] };
+    const res = await world.clients.viewer.request<Fc | string>("GET", `/api/dies/${dieId}/markup.geojson`);
     expect(res.status).toBe(200);
-    const fc = JSON.parse(res.body) as { features: { geometry: { coordinates: number[][][] } }[] };
+    const fc = (typeof res.body === "string" ? JSON.parse(res.body) : res.body) as Fc;
     expect(fc.features[0].geometry.coordinates[0]).toEqual([[27, 27], [107, 27], [107, 107], [27, 107], [27, 27]]);
   });
 });

@@ -2,17 +2,20 @@
 
 import { useEffect, useState } from "react";
 import { polylineLength, polygonArea, boundingBox } from "@/lib/geometry/measure";
-import { PAD_STATES, type AnyShape } from "@/lib/markup/types";
+import { PAD_STATES, type AnyShape, type PadProperties } from "@/lib/markup/types";
+import { bondedPadIds, isPadStateByHand, shownPadState } from "@/lib/markup/pad-state";
+import { dieFrameOf, isOutsideDie } from "@/lib/markup/outside-die";
+import { formatUm } from "@/lib/units/format-um";
 import type { Editor } from "./editor/types";
 import { KIND_STYLE } from "./palette";
 import { formatLength } from "./render/draw-interaction";
 
-type FieldDef = { key: string; label: string; type?: "number" | "text" | "textarea" | "state" | "side" };
+type FieldDef = { key: string; label: string; type?: "number" | "text" | "textarea" | "padState" | "side" };
 const FIELDS: Record<AnyShape["kind"], FieldDef[]> = {
   pad: [
     { key: "label", label: "Label" },
     { key: "net", label: "Net" },
-    { key: "state", label: "State", type: "state" },
+    { key: "state", label: "State", type: "padState" },
     { key: "side", label: "Side", type: "side" },
   ],
   wire_bond: [
@@ -49,8 +52,9 @@ function Field({ def, shape, editor, readOnly }: { def: FieldDef; shape: AnyShap
   };
   const common = "w-full rounded-md border border-ink-700 bg-ink-950 px-2 py-1 text-sm";
   let control: React.ReactNode;
-  if (def.type === "state" || def.type === "side") {
-    const options = def.type === "state" ? PAD_STATES : (["", "N", "E", "S", "W"] as const);
+  if (def.type === "padState") return <PadStateField shape={shape} editor={editor} readOnly={readOnly} />;
+  if (def.type === "side") {
+    const options = ["", "N", "E", "S", "W"] as const;
     control = (
       <select id={id} disabled={readOnly} value={value} onChange={(e) => { setValue(e.target.value); commit(e.target.value); }} className={common}>
         {options.map((o) => (
@@ -86,16 +90,74 @@ function Field({ def, shape, editor, readOnly }: { def: FieldDef; shape: AnyShap
   );
 }
 
-function Measures({ shape }: { shape: AnyShape }) {
+/**
+ * A pad's state: by default it follows the pad's wire bonds (bonded with one, unbonded without);
+ * choosing a state sets it by hand. Probed is only ever chosen by hand.
+ */
+function PadStateField({ shape, editor, readOnly }: { shape: AnyShape; editor: Editor; readOnly: boolean }) {
+  if (shape.kind !== "pad") return null;
+  const p = shape.properties as PadProperties;
+  const byHand = isPadStateByHand(p);
+  const shown = shownPadState(shape, bondedPadIds(editor.getState().shapeList));
+  const derived = bondedPadIds(editor.getState().shapeList).has(shape.id) ? "bonded" : "unbonded";
+  const value = byHand ? p.state : "auto";
+  const onChange = (v: string) => {
+    if (readOnly || v === value) return;
+    if (v === "auto") editor.updateProperties(shape.id, { stateByHand: false });
+    else editor.updateProperties(shape.id, { state: v, stateByHand: true });
+  };
+  return (
+    <div className="flex flex-col gap-1">
+      <label htmlFor="inspector-state" className="text-xs text-ink-300">
+        State
+      </label>
+      <select id="inspector-state" disabled={readOnly} value={value} onChange={(e) => onChange(e.target.value)} className="w-full rounded-md border border-ink-700 bg-ink-950 px-2 py-1 text-sm">
+        <option value="auto">from its wire bonds ({derived})</option>
+        {PAD_STATES.map((o) => (
+          <option key={o} value={o}>
+            {o} (set by hand)
+          </option>
+        ))}
+      </select>
+      <p className="text-[11px] text-ink-400" data-testid="inspector-pad-state">
+        Shown as {shown}
+        {byHand ? ", set by hand" : `: ${derived === "bonded" ? "a wire bond is attached" : "no wire bond is attached"}`}.
+      </p>
+    </div>
+  );
+}
+
+/** A warning for a shape that belongs on the die but lies off it; a pad can still be numbered. */
+function OutsideDie({ shape, editor, canEdit, die }: { shape: AnyShape; editor: Editor; canEdit: boolean; die: DieSize | null }) {
+  const frame = dieFrameOf(editor.getState().shapeList, die);
+  if (!isOutsideDie(shape, frame)) return null;
+  const included = shape.kind === "pad" && (shape.properties as PadProperties).numberOutside === true;
+  return (
+    <div role="alert" className="flex flex-col gap-1 rounded border border-kerf-500/60 bg-ink-950 px-2 py-1.5 text-xs text-kerf-300">
+      <p>This {shape.kind === "pad" ? "pad" : "shape"} lies outside the die outline.{shape.kind === "pad" && !included ? " It is left out of the pad numbering." : ""}</p>
+      {shape.kind === "pad" && (
+        <label className="flex items-center gap-2 text-ink-200">
+          <input type="checkbox" disabled={!canEdit} checked={included} onChange={(e) => editor.updateProperties(shape.id, { numberOutside: e.target.checked })} className="accent-kerf-500" />
+          Include in the pad numbering
+        </label>
+      )}
+    </div>
+  );
+}
+
+type DieSize = { readonly widthUm: number | null; readonly heightUm: number | null };
+
+function Measures({ shape, umPerPx }: { shape: AnyShape; umPerPx: number | null }) {
   const g = shape.geometry;
   const b = boundingBox(g);
+  const um = (v: number) => formatUm(v, umPerPx);
   const rows: [string, string][] = [];
-  if (g.type === "LineString") rows.push(["Length", formatLength(polylineLength(g.coordinates))]);
+  if (g.type === "LineString") rows.push(["Length", formatLength(polylineLength(g.coordinates), umPerPx)]);
   if (g.type === "Polygon") {
-    rows.push(["Size", `${(b.maxX - b.minX).toFixed(1)} × ${(b.maxY - b.minY).toFixed(1)} µm`]);
+    rows.push(["Size", `${um(b.maxX - b.minX)} × ${um(b.maxY - b.minY)} µm`]);
     rows.push(["Area", `${polygonArea(g).toFixed(0)} µm²`]);
   }
-  rows.push(["Centre", `${((b.minX + b.maxX) / 2).toFixed(1)}, ${((b.minY + b.maxY) / 2).toFixed(1)} µm`]);
+  rows.push(["Centre", `${um((b.minX + b.maxX) / 2)}, ${um((b.minY + b.maxY) / 2)} µm`]);
   return (
     <dl className="grid grid-cols-[auto_1fr] gap-x-3 gap-y-1 text-xs" data-testid="inspector-measures">
       {rows.map(([k, v]) => (
@@ -130,7 +192,7 @@ function PadOne({ editor, shape, canEdit }: { editor: Editor; shape: AnyShape; c
   );
 }
 
-export function Inspector({ editor, selected, canEdit }: { editor: Editor; selected: AnyShape[]; canEdit: boolean }) {
+export function Inspector({ editor, selected, canEdit, die = null, umPerPx = null }: { editor: Editor; selected: AnyShape[]; canEdit: boolean; die?: DieSize | null; umPerPx?: number | null }) {
   if (selected.length === 0) return <p className="text-sm text-ink-400">Select a shape to see and edit its properties.</p>;
   if (selected.length > 1) return <p className="text-sm text-ink-300">{selected.length} shapes selected. Drag to move them, Delete to remove them.</p>;
   const shape = selected[0];
@@ -144,7 +206,8 @@ export function Inspector({ editor, selected, canEdit }: { editor: Editor; selec
         <Field key={`${shape.id}-${def.key}`} def={def} shape={shape} editor={editor} readOnly={!canEdit} />
       ))}
       {shape.kind === "pad" && <PadOne editor={editor} shape={shape} canEdit={canEdit} />}
-      <Measures shape={shape} />
+      <OutsideDie shape={shape} editor={editor} canEdit={canEdit} die={die} />
+      <Measures shape={shape} umPerPx={umPerPx} />
     </section>
   );
 }

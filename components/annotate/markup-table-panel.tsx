@@ -9,7 +9,7 @@ import type { Editor } from "./editor/types";
 import { KIND_STYLE } from "./palette";
 
 const LABEL_KEY: Record<MarkupKind, string> = { pad: "label", wire_bond: "label", block: "name", symmetry_axis: "name", trace: "label", ruler: "label", note: "text", die_outline: "label" };
-const n1 = (v: number | null) => (v === null ? "" : v.toFixed(1));
+import { formatUm } from "@/lib/units/format-um";
 
 function RenameCell({ row, editor, canEdit }: { row: MarkupTableRow; editor: Editor; canEdit: boolean }) {
   const [value, setValue] = useState(row.label);
@@ -27,7 +27,8 @@ function RenameCell({ row, editor, canEdit }: { row: MarkupTableRow; editor: Edi
 }
 
 /** Every shape of the die with its size, length or area; filter by kind, sort, rename in place. */
-export function MarkupTablePanel({ dieId, shapes, authors, editor, canEdit, onPick }: { dieId: string; shapes: readonly AnyShape[]; authors: Record<string, string>; editor: Editor; canEdit: boolean; onPick: (id: string) => void }) {
+export function MarkupTablePanel({ dieId, shapes, authors, editor, canEdit, onPick, umPerPx = null }: { dieId: string; shapes: readonly AnyShape[]; authors: Record<string, string>; editor: Editor; canEdit: boolean; onPick: (id: string) => void; umPerPx?: number | null }) {
+  const n1 = useMemo(() => (v: number | null) => (v === null ? "" : formatUm(v, umPerPx)), [umPerPx]);
   const [kind, setKind] = useState<MarkupKind | "">("");
   const rows = useMemo(() => markupTableRows(shapes, authors).filter((r) => !kind || r.kind === kind), [shapes, authors, kind]);
   const columns = useMemo<ColumnDef<MarkupTableRow, unknown>[]>(
@@ -42,12 +43,12 @@ export function MarkupTablePanel({ dieId, shapes, authors, editor, canEdit, onPi
         ),
       },
       { accessorKey: "label", header: "Label", cell: (c) => <RenameCell key={`${c.row.original.id}-${c.row.original.label}`} row={c.row.original} editor={editor} canEdit={canEdit} /> },
-      { id: "size", header: "Size / length", accessorFn: (r) => r.lengthUm ?? r.areaUm2 ?? 0, cell: (c) => (c.row.original.lengthUm !== null ? `${n1(c.row.original.lengthUm)} µm` : c.row.original.areaUm2 !== null ? `${c.row.original.widthUm.toFixed(1)} × ${c.row.original.heightUm.toFixed(1)} µm` : "") },
+      { id: "size", header: "Size / length", accessorFn: (r) => r.lengthUm ?? r.areaUm2 ?? 0, cell: (c) => (c.row.original.lengthUm !== null ? `${n1(c.row.original.lengthUm)} µm` : c.row.original.areaUm2 !== null ? `${n1(c.row.original.widthUm)} × ${n1(c.row.original.heightUm)} µm` : "") },
       { accessorKey: "estimates", header: "Estimates", cell: (c) => <span className="whitespace-nowrap tabular-nums">{c.getValue() as string}</span> },
       { accessorKey: "author", header: "Author" },
       { accessorKey: "updatedAt", header: "Updated", cell: (c) => new Date(c.getValue() as string).toLocaleString() },
     ],
-    [editor, canEdit, onPick],
+    [editor, canEdit, onPick, n1],
   );
   return (
     <section aria-label="Markup table" className="flex flex-col gap-2">

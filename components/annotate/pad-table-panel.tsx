@@ -6,14 +6,14 @@ import type { ColumnDef } from "@tanstack/react-table";
 import type { PadRow, PadTable } from "@/lib/pads/types";
 import { apiFetch } from "@/lib/client/api";
 import { DataTable } from "@/components/ui/data-table";
-
-const num = (v: number | null) => (v === null ? "—" : v.toFixed(1));
+import { formatUm } from "@/lib/units/format-um";
 
 /**
  * The pad table: pads numbered counter-clockwise from pad 1 with side, centre, size and pitch;
  * a click on a row selects the pad and flies the viewer to it.
  */
-export function PadTablePanel({ dieId, selection, onPick }: { dieId: string; selection: ReadonlySet<string>; onPick: (padId: string) => void }) {
+export function PadTablePanel({ dieId, selection, onPick, umPerPx = null }: { dieId: string; selection: ReadonlySet<string>; onPick: (padId: string) => void; umPerPx?: number | null }) {
+  const num = useMemo(() => (v: number | null) => (v === null ? "—" : formatUm(v, umPerPx)), [umPerPx]);
   const pads = useQuery({ queryKey: ["pads", dieId], queryFn: () => apiFetch<PadTable & { outlineSource: string }>(`/api/dies/${dieId}/pads`), retry: false });
   const columns = useMemo<ColumnDef<PadRow, unknown>[]>(
     () => [
@@ -34,7 +34,7 @@ export function PadTablePanel({ dieId, selection, onPick }: { dieId: string; sel
       { accessorKey: "yUm", header: "y µm", cell: (c) => num(c.getValue() as number) },
       { accessorKey: "pitchUm", header: "Pitch µm", cell: (c) => num(c.getValue() as number | null) },
     ],
-    [onPick, selection],
+    [onPick, selection, num],
   );
   if (pads.isPending) return <p className="text-sm text-ink-400">Loading the pad table…</p>;
   if (pads.isError) return <p className="text-sm text-ink-400" role="status">{pads.error.message}</p>;
@@ -51,6 +51,21 @@ export function PadTablePanel({ dieId, selection, onPick }: { dieId: string; sel
       </div>
       {t.summary.probedNotBonded.length > 0 && (
         <p className="text-xs text-ink-300">Probed, not bonded: {t.summary.probedNotBonded.map((p) => p.label || `#${p.number}`).join(", ")}</p>
+      )}
+      {t.outsideDie.length > 0 && (
+        <p role="alert" className="text-xs text-kerf-300" data-testid="pads-outside-die">
+          Outside the die outline, not numbered:{" "}
+          {t.outsideDie.map((p, i) => (
+            <span key={p.id}>
+              {i > 0 && ", "}
+              <button type="button" onClick={() => onPick(p.id)} className="underline">
+                {p.label || "(no label)"}
+              </button>{" "}
+              ({num(p.xUm)}, {num(p.yUm)} µm)
+            </span>
+          ))}
+          . Select one and tick “Include in the pad numbering” to number it.
+        </p>
       )}
       <DataTable data={[...t.rows]} columns={columns} filterLabel="Filter pads" empty="No pads marked yet. Draw them with the Pad tool (P)." />
     </section>

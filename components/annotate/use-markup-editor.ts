@@ -6,33 +6,72 @@ import type { AnyShape } from "@/lib/markup/types";
 import { apiFetch } from "@/lib/client/api";
 import { createEditor } from "./editor/editor";
 import type { Editor, EditorState } from "./editor/types";
+import { frameUndoFor, type FrameUndo } from "./frame-undo";
 import { persistEntry } from "./persist-changes";
 
 export type SaveState = { status: "idle" | "saving" | "saved" | "failed"; message?: string };
+
+type DieSize = { readonly widthUm: number | null; readonly heightUm: number | null };
 
 /**
  * Loads a die's markup, runs the editor on it and persists every committed change in order.
  * Changes show at once (optimistic); if the server refuses one, the markup is reloaded from
  * the server (rolling the refused change back) and the reason is shown.
+ *
+ * A die outline re-frames the die on the server (everything moves), so the editor is reloaded
+ * afterwards; the reloaded editor is handed one undo step beyond its history that puts the
+ * earlier frame back through `POST /api/dies/{dieId}/frame/restore`.
  */
-export function useMarkupEditor(dieId: string, canEdit: boolean, userId: string | null) {
+export function useMarkupEditor(dieId: string, canEdit: boolean, userId: string | null, die: DieSize) {
   const qc = useQueryClient();
   const [editor, setEditor] = useState<Editor | null>(null);
   const [save, setSave] = useState<SaveState>({ status: "idle" });
   const [loadError, setLoadError] = useState<string | null>(null);
   const [generation, setGeneration] = useState(0);
   const queue = useRef<Promise<void>>(Promise.resolve());
+  const dieRef = useRef(die);
+  const frameUndo = useRef<FrameUndo | null>(null);
+  useEffect(() => {
+    dieRef.current = die;
+  }, [die]);
 
   useEffect(() => {
     let cancelled = false;
     let unsubscribe = () => {};
+    const reloadFrame = async () => {
+      await Promise.all([qc.invalidateQueries({ queryKey: ["micrographs", dieId] }), qc.invalidateQueries({ queryKey: ["die", dieId] }), qc.invalidateQueries({ queryKey: ["pads", dieId] })]);
+      setGeneration((g) => g + 1);
+    };
+    const restoreFrame = (undo: FrameUndo) => {
+      setSave({ status: "saving" });
+      queue.current = queue.current.then(async () => {
+        try {
+          await apiFetch(`/api/dies/${dieId}/frame/restore`, { method: "POST", body: undo });
+          setSave({ status: "saved" });
+        } catch (e) {
+          setSave({ status: "failed", message: `${(e as Error).message} The markup was reloaded from the server.` });
+        }
+        await reloadFrame();
+      });
+    };
     apiFetch<AnyShape[]>(`/api/dies/${dieId}/markup`)
       .then((shapes) => {
         if (cancelled) return;
         const versions = new Map(shapes.map((s) => [s.id, s.version]));
-        const ed = createEditor({ shapes, canEdit, userId, newId: () => crypto.randomUUID(), now: () => new Date().toISOString() });
+        const undo = frameUndo.current;
+        frameUndo.current = null;
+        const ed = createEditor({
+          shapes,
+          canEdit,
+          userId,
+          die: dieRef.current,
+          newId: () => crypto.randomUUID(),
+          now: () => new Date().toISOString(),
+          undoBeyondHistory: undo ? () => restoreFrame(undo) : undefined,
+        });
         unsubscribe = ed.onCommit((entry) => {
           setSave({ status: "saving" });
+          const reframe = frameUndoFor(entry, dieRef.current);
           queue.current = queue.current.then(async () => {
             try {
               const { saved } = await persistEntry(dieId, entry, versions);
@@ -40,9 +79,9 @@ export function useMarkupEditor(dieId: string, canEdit: boolean, userId: string 
               setSave({ status: "saved" });
               void qc.invalidateQueries({ queryKey: ["pads", dieId] });
               // A die outline re-frames the die on the server (origin, size): reload what moved.
-              if (entry.some((c) => (c.after ?? c.before)?.kind === "die_outline")) {
-                await Promise.all([qc.invalidateQueries({ queryKey: ["micrographs", dieId] }), qc.invalidateQueries({ queryKey: ["die", dieId] })]);
-                setGeneration((g) => g + 1);
+              if (reframe) {
+                frameUndo.current = reframe;
+                await reloadFrame();
               }
             } catch (e) {
               setSave({ status: "failed", message: `${(e as Error).message} The markup was reloaded from the server.` });

@@ -28,6 +28,7 @@ import { HelpSheet } from "@/components/annotate/help-sheet";
 import { PadTablePanel } from "@/components/annotate/pad-table-panel";
 import { MarkupTablePanel } from "@/components/annotate/markup-table-panel";
 import { useEditorState, useMarkupEditor } from "@/components/annotate/use-markup-editor";
+import { EditorNotice, ReframeDialog } from "@/components/annotate/reframe-dialog";
 import { useMarkupWorkspace } from "@/components/annotate/markup-workspace";
 import { useReviewBench } from "@/components/review/use-review-bench";
 import { ReviewPanel } from "@/components/review/review-panel";
@@ -56,7 +57,10 @@ export function DieBench({ initial, userId, linkedThreadId = null }: { initial: 
   const die = useQuery({ queryKey: ["die", initial.id], queryFn: () => apiFetch<DieDto>(`/api/dies/${initial.id}`), initialData: initial }).data;
   const editable = can(die.yourRole, "edit");
   const [api, setApi] = useState<ViewerApi | null>(null);
-  const { editor, save, loadError } = useMarkupEditor(die.id, editable, userId);
+  const dieSize = useMemo(() => ({ widthUm: die.widthUm, heightUm: die.heightUm }), [die.widthUm, die.heightUm]);
+  const { editor, save, loadError } = useMarkupEditor(die.id, editable, userId, dieSize);
+  // µm shown to people get the decimals the reference micrograph's scale resolves.
+  const umPerPx = (list.find((m) => m.isReference) ?? shown)?.scaleUmPerPx ?? null;
   const state = useEditorState(editor);
   const ws = useMarkupWorkspace(editor, state, api, (compareTop ?? shown)?.transform ?? null, die.teamId, die.id);
   const symmetry = useSymmetryView(state?.shapeList);
@@ -124,6 +128,7 @@ export function DieBench({ initial, userId, linkedThreadId = null }: { initial: 
             </p>
           )}
           {loadError && <p role="alert" className="absolute left-3 top-3 text-sm text-danger-400">{loadError}</p>}
+          {editor && state && <EditorNotice editor={editor} state={state} />}
         </section>
         <aside aria-label="Die panel" className="flex w-96 shrink-0 flex-col border-l border-ink-800 bg-ink-900">
           <SideTabs
@@ -134,7 +139,7 @@ export function DieBench({ initial, userId, linkedThreadId = null }: { initial: 
                 label: "Inspect",
                 content: (
                   <div className="flex flex-col gap-5">
-                    {editor && state ? <Inspector editor={editor} selected={[...state.selection].map((id) => state.shapes.get(id)!).filter(Boolean)} canEdit={editable} /> : <p className="text-sm text-ink-400">Loading markup…</p>}
+                    {editor && state ? <Inspector editor={editor} selected={[...state.selection].map((id) => state.shapes.get(id)!).filter(Boolean)} canEdit={editable} die={dieSize} umPerPx={umPerPx} /> : <p className="text-sm text-ink-400">Loading markup…</p>}
                     <Legend hidden={ws.hiddenKinds} onToggle={ws.toggleKind} counts={ws.counts} hiddenReview={ws.hiddenReview} onToggleReview={ws.toggleReview} />
                     <label className="flex items-center gap-2 text-xs text-ink-300">
                       <input type="checkbox" checked={ws.labels} onChange={(e) => ws.setLabels(e.target.checked)} className="accent-kerf-500" /> Show labels
@@ -142,11 +147,11 @@ export function DieBench({ initial, userId, linkedThreadId = null }: { initial: 
                   </div>
                 ),
               },
-              { id: "pads", label: "Pad table", content: <PadTablePanel dieId={die.id} selection={state?.selection ?? new Set()} onPick={ws.pick} /> },
+              { id: "pads", label: "Pad table", content: <PadTablePanel dieId={die.id} selection={state?.selection ?? new Set()} onPick={ws.pick} umPerPx={umPerPx} /> },
               {
                 id: "markup",
                 label: "Markup",
-                content: editor && state ? <MarkupTablePanel dieId={die.id} shapes={state.shapeList} authors={ws.authors} editor={editor} canEdit={editable} onPick={ws.pick} /> : null,
+                content: editor && state ? <MarkupTablePanel dieId={die.id} shapes={state.shapeList} authors={ws.authors} editor={editor} canEdit={editable} onPick={ws.pick} umPerPx={umPerPx} /> : null,
               },
               {
                 id: "estimates",
@@ -154,7 +159,7 @@ export function DieBench({ initial, userId, linkedThreadId = null }: { initial: 
                 content: editor && state ? <EstimatesPanel selected={[...state.selection].map((id) => state.shapes.get(id)!).filter(Boolean)} editor={editor} canEdit={editable} /> : null,
               },
               { id: "symmetry", label: "Symmetry", content: state ? <SymmetryPanel view={symmetry} shapes={state.shapeList} onPick={ws.pick} /> : null },
-              { id: "summary", label: "Summary", content: state ? <DieSummaryPanel die={die} shapes={state.shapeList} onPick={ws.pick} /> : null },
+              { id: "summary", label: "Summary", content: state ? <DieSummaryPanel die={die} shapes={state.shapeList} onPick={ws.pick} umPerPx={umPerPx} /> : null },
               {
                 id: "review",
                 label: "Review",
@@ -166,7 +171,7 @@ export function DieBench({ initial, userId, linkedThreadId = null }: { initial: 
                 label: "Die & micrographs",
                 content: (
                   <div className="flex flex-col gap-5">
-                    <DieDetails die={die} />
+                    <DieDetails die={die} umPerPx={umPerPx} />
                     <section aria-label="Micrographs" className="flex flex-col gap-2">
                       <div className="flex items-center justify-between">
                         <h2 className="text-sm font-semibold">Micrographs</h2>
@@ -187,6 +192,7 @@ export function DieBench({ initial, userId, linkedThreadId = null }: { initial: 
         </aside>
       </div>
       {editor && state && <HelpSheet open={state.helpVisible} onClose={() => editor.setHelpVisible(false)} />}
+      {editor && state && <ReframeDialog editor={editor} state={state} die={dieSize} umPerPx={umPerPx} />}
       <Dialog open={dialog === "upload"} onClose={() => setDialog(null)} title="Upload a micrograph">
         <UploadMicrograph
           dieId={die.id}

@@ -1,18 +1,19 @@
 import type { DieDto } from "@/db/access/dies";
+import { formatUm } from "@/lib/units/format-um";
 
 /** The die's size, analyst and notes, in the side panel. */
-export function DieDetails({ die }: { die: DieDto }) {
+export function DieDetails({ die, umPerPx = null }: { die: DieDto; umPerPx?: number | null }) {
   return (
     <section aria-label="Die details">
       <h2 className="text-base font-semibold">{die.name}</h2>
       <dl className="mt-3 grid grid-cols-2 gap-3 text-sm">
         <div>
           <dt className="text-xs uppercase text-ink-400">Width</dt>
-          <dd>{die.widthUm ? `${die.widthUm} µm` : "not known"}</dd>
+          <dd>{die.widthUm ? `${formatUm(die.widthUm, umPerPx)} µm` : "not known"}</dd>
         </div>
         <div>
           <dt className="text-xs uppercase text-ink-400">Height</dt>
-          <dd>{die.heightUm ? `${die.heightUm} µm` : "not known"}</dd>
+          <dd>{die.heightUm ? `${formatUm(die.heightUm, umPerPx)} µm` : "not known"}</dd>
         </div>
         <div className="col-span-2">
           <dt className="text-xs uppercase text-ink-400">Analyst</dt>

@@ -10,6 +10,7 @@ import { waferEstimate, YIELD_MODELS, type YieldModel } from "@/lib/estimates";
 import { dieSize, padDensity, padStateCounts, savedEstimateRows } from "@/lib/layout-reading/die-summary";
 import { summariseSavedEstimate, threeFigures } from "@/lib/layout-reading/saved-estimates";
 import { apiFetch } from "@/lib/client/api";
+import { formatUm } from "@/lib/units/format-um";
 import { KIND_STYLE } from "@/components/annotate/palette";
 import { runEstimate } from "./estimate-result";
 import { NumberInput, parseNumber, SelectInput } from "./fields";
@@ -80,7 +81,7 @@ function WaferEconomics({ widthUm, heightUm }: { widthUm: number; heightUm: numb
 }
 
 /** The die in one panel: size, pads and their density and pitch, states, wafer economics, saved estimates. */
-export function DieSummaryPanel({ die, shapes, onPick }: { die: DieDto; shapes: readonly AnyShape[]; onPick: (id: string) => void }) {
+export function DieSummaryPanel({ die, shapes, onPick, umPerPx = null }: { die: DieDto; shapes: readonly AnyShape[]; onPick: (id: string) => void; umPerPx?: number | null }) {
   const pads = useQuery({ queryKey: ["pads", die.id], queryFn: () => apiFetch<PadTable & { outlineSource: string }>(`/api/dies/${die.id}/pads`), retry: false });
   const size = dieSize(shapes, die);
   const counts = padStateCounts(shapes);
@@ -92,7 +93,7 @@ export function DieSummaryPanel({ die, shapes, onPick }: { die: DieDto; shapes: 
       <dl className="grid grid-cols-[1fr_auto] gap-x-3 gap-y-1 text-sm">
         {size && density ? (
           <>
-            <Row label="Die size" value={`${(size.widthUm / 1000).toFixed(3)} × ${(size.heightUm / 1000).toFixed(3)} mm`} testId="summary-size" />
+            <Row label="Die size" value={`${formatUm(size.widthUm, umPerPx)} × ${formatUm(size.heightUm, umPerPx)} µm`} testId="summary-size" />
             <Row label="Area" value={`${density.areaMm2.toFixed(3)} mm²`} testId="summary-area" />
           </>
         ) : (
@@ -105,7 +106,7 @@ export function DieSummaryPanel({ die, shapes, onPick }: { die: DieDto; shapes: 
             <Row label="Pads per mm²" value={density.padsPerMm2.toFixed(2)} />
           </>
         )}
-        <Row label="Smallest pad pitch" value={typeof minPitch === "number" ? `${minPitch.toFixed(1)} µm` : pads.isPending ? "…" : "—"} testId="summary-min-pitch" />
+        <Row label="Smallest pad pitch" value={typeof minPitch === "number" ? `${formatUm(minPitch, umPerPx)} µm` : pads.isPending ? "…" : "—"} testId="summary-min-pitch" />
         <Row label="Bonded / probed / unbonded" value={`${counts.bonded} / ${counts.probed} / ${counts.unbonded}`} testId="summary-states" />
       </dl>
       {size && <p className="-mt-3 text-[11px] text-ink-400">Size {SOURCE_TEXT[size.source]}.</p>}

@@ -1,5 +1,6 @@
 import { PdfWriter, type Column } from "./pdf-layout";
 import type { PadTable } from "@/lib/pads";
+import { formatUm } from "@/lib/units/format-um";
 
 /** Everything the die report shows, gathered by the data-access layer. */
 export type ReportData = {
@@ -25,7 +26,8 @@ export type ReportData = {
   }[];
 };
 
-const um = (v: number | null | undefined, digits = 1) => (v === null || v === undefined ? "—" : v.toFixed(digits));
+/** µm through the one formatter, at `digits` decimals (0.1 µm: what an optical micrograph resolves at best). */
+const um = (v: number | null | undefined, digits = 1) => (v === null || v === undefined ? "—" : formatUm(v, 10 ** -digits));
 
 type Section = { title: string; draw: (w: PdfWriter) => Promise<void> | void };
 
@@ -72,7 +74,7 @@ function sections(d: ReportData): Section[] {
 function padSection(w: PdfWriter, t: ReportData["padTable"]) {
   if ("unavailable" in t) return w.text(t.unavailable);
   const s = t.summary.padsPerSide;
-  w.text(`${t.rows.length} pads (N ${s.N}, E ${s.E}, S ${s.S}, W ${s.W}); smallest pitch ${t.summary.minPitchUm === null ? "—" : `${t.summary.minPitchUm.toFixed(1)} µm`}. Numbered counter-clockwise from pad 1; positions from the die's lower-left corner.`, 9);
+  w.text(`${t.rows.length} pads (N ${s.N}, E ${s.E}, S ${s.S}, W ${s.W}); smallest pitch ${t.summary.minPitchUm === null ? "—" : `${um(t.summary.minPitchUm)} µm`}. Numbered counter-clockwise from pad 1; positions from the die's lower-left corner.`, 9);
   const cols: Column[] = [
     { header: "No.", width: 30, align: "right" },
     { header: "Label", width: 90 },

@@ -1,5 +1,6 @@
 import { describe, it, expect } from "vitest";
 import type { Position } from "../geometry/types";
+import type { AnyShape } from "../markup/types";
 import { NV24R_LAYOUT } from "../demo-die/layout";
 import { dieSize, padDensity, padStateCounts, savedEstimateRows } from "./die-summary";
 import { rectRing, shapeOf } from "./test-shapes";
@@ -40,13 +41,27 @@ describe("padDensity", () => {
 });
 
 describe("padStateCounts", () => {
-  it("counts the demo die's pads by state", () => {
-    const pads = NV24R_LAYOUT.pads.map((p) => {
+  const demoPads = () =>
+    NV24R_LAYOUT.pads.map((p) => {
       const [x, y] = p.centreUm;
       return shapeOf("pad", { type: "Polygon", coordinates: [rectRing(x - 40, y - 40, x + 40, y + 40)] }, { label: p.label, net: p.net, state: p.state });
     });
+  const bondsFor = (pads: AnyShape[]) =>
+    NV24R_LAYOUT.wireBonds.map((b) => shapeOf("wire_bond", { type: "LineString", coordinates: [b.fromUm, b.toUm] }, { diameterUm: 25, padId: pads.find((p) => p.properties.label === b.pad)!.id }));
+
+  it("counts the demo die's pads by state, bonded ones from their wire bonds", () => {
+    const pads = demoPads();
     // Counted by hand from the layout's pad lists: probed G5, VB1S, VB2S; open NC1; the other 18 bonded.
-    expect(padStateCounts(pads)).toEqual({ total: 22, bonded: 18, probed: 3, unbonded: 1 });
+    expect(padStateCounts([...pads, ...bondsFor(pads)])).toEqual({ total: 22, bonded: 18, probed: 3, unbonded: 1 });
+  });
+
+  it("does not count a pad stored as bonded but carrying no wire bond as bonded", () => {
+    // The fault seen: new pads were stored "bonded", so a die without a single bond read 18 bonded.
+    const pads = demoPads();
+    expect(padStateCounts(pads)).toEqual({ total: 22, bonded: 0, probed: 3, unbonded: 19 });
+    // A state chosen by hand is kept whatever the bonds say.
+    const byHand = pads.map((p) => ({ ...p, properties: { ...p.properties, stateByHand: true } }) as AnyShape);
+    expect(padStateCounts(byHand)).toEqual({ total: 22, bonded: 18, probed: 3, unbonded: 1 });
   });
 });
 

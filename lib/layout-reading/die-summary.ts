@@ -5,6 +5,7 @@
 import { boundingBox } from "../geometry/measure";
 import type { AnyShape, MarkupKind, SavedEstimate } from "../markup/types";
 import { dieFrameFromOutline } from "../pads/die-frame";
+import { bondedPadIds, shownPadState } from "../markup/pad-state";
 import { savedEstimatesOf } from "./saved-estimates";
 
 export type DieSize = {
@@ -50,14 +51,18 @@ export function padDensity(padCount: number, widthUm: number, heightUm: number):
 
 export type PadStateCounts = { readonly total: number; readonly bonded: number; readonly probed: number; readonly unbonded: number };
 
-/** Pads counted by state (a pad with an unknown state counts only in the total). */
+/**
+ * Pads counted by their shown state (from the wire bonds unless set by hand; a pad with an
+ * unknown stored state counts only in the total).
+ */
 export function padStateCounts(shapes: readonly AnyShape[]): PadStateCounts {
   const c = { total: 0, bonded: 0, probed: 0, unbonded: 0 };
+  const bonded = bondedPadIds(shapes);
   for (const s of shapes) {
     if (s.kind !== "pad") continue;
     c.total++;
     const st = s.properties.state;
-    if (st === "bonded" || st === "probed" || st === "unbonded") c[st]++;
+    if (st === "bonded" || st === "probed" || st === "unbonded") c[shownPadState(s, bonded)]++;
   }
   return c;
 }

@@ -55,4 +55,32 @@ describe("padTableFromMarkup", () => {
     const two = [pad("a", 60, 1400, { isPadOne: true }), pad("b", 60, 1000, { isPadOne: true })];
     expect(padTableFromMarkup(two, DIE)).toMatchObject({ ok: false, reason: "conflict", message: /more than one pad/ });
   });
+
+  it("shows each pad's state from its wire bonds unless set by hand; probed stays as chosen", () => {
+    const bond = (id: string, padId: string): AnyShape =>
+      ({ id, kind: "wire_bond", geometry: { type: "LineString", coordinates: [[60, 1400], [-300, 1400]] }, properties: { diameterUm: 25, padId }, version: 1, createdBy: null, updatedAt: T }) as AnyShape;
+    const mixed = [
+      pad("w1", 60, 1400), // stored bonded, has a bond: bonded
+      pad("s1", 1200, 60), // stored bonded, no bond: unbonded (the fault: it read bonded)
+      pad("e1", 2340, 800, { state: "probed" }), // probed is always by hand
+      pad("n1", 1200, 1540, { state: "unbonded", stateByHand: true }), // by hand, even with a bond
+      bond("b1", "w1"),
+      bond("b2", "n1"),
+    ];
+    const r = padTableFromMarkup(mixed, DIE);
+    if (!r.ok) throw new Error(r.message);
+    expect(r.table.rows.map((row) => [row.id, row.state])).toEqual([["w1", "bonded"], ["s1", "unbonded"], ["e1", "probed"], ["n1", "unbonded"]]);
+  });
+
+  it("keeps a pad outside the die out of the numbering unless it is asked for", () => {
+    // A pad centred at (-200, 1500): left of the die's left edge x = 0. Before, it took pad 1.
+    const stray = pad("x1", -200, 1500);
+    const r = padTableFromMarkup([...shapes, stray], DIE);
+    if (!r.ok) throw new Error(r.message);
+    expect(r.table.rows.map((row) => [row.number, row.id])).toEqual([[1, "w1"], [2, "s1"], [3, "e1"], [4, "n1"]]);
+    expect(r.table.outsideDie).toEqual([{ id: "x1", label: "X1", xUm: -200, yUm: 1500 }]);
+    const asked = padTableFromMarkup([...shapes, pad("x1", -200, 1500, { numberOutside: true })], DIE);
+    expect(asked.ok && asked.table.rows.map((row) => row.id)).toEqual(["x1", "w1", "s1", "e1", "n1"]);
+    expect(asked.ok && asked.table.outsideDie).toEqual([]);
+  });
 });

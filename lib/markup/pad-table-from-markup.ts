@@ -1,5 +1,6 @@
 import { buildPadTable, PadTableInputError, type PadInput, type PadTable } from "@/lib/pads";
 import type { PolygonGeometry } from "@/lib/geometry/types";
+import { bondedPadIds, shownPadState } from "./pad-state";
 import type { AnyShape, Shape } from "./types";
 
 /** Where the die outline of a pad table came from. */
@@ -15,14 +16,15 @@ export function dieRectangle(widthUm: number, heightUm: number): PolygonGeometry
   return { type: "Polygon", coordinates: [[[0, 0], [widthUm, 0], [widthUm, heightUm], [0, heightUm], [0, 0]]] };
 }
 
-function toPadInput(shape: Shape<"pad">): PadInput {
+function toPadInput(shape: Shape<"pad">, bonded: ReadonlySet<string>): PadInput {
   const p = shape.properties;
-  return { id: shape.id, geometry: shape.geometry, properties: { label: p.label, net: p.net, state: p.state, isPadOne: p.isPadOne } };
+  return { id: shape.id, geometry: shape.geometry, properties: { label: p.label, net: p.net, state: shownPadState(shape, bonded), isPadOne: p.isPadOne, numberOutside: p.numberOutside } };
 }
 
 /**
  * The pad table of a die from its markup: its pads, numbered around its drawn die outline, or
- * around the rectangle of its recorded size when no outline is drawn.
+ * around the rectangle of its recorded size when no outline is drawn. States are the shown ones
+ * (from the wire bonds unless set by hand); pads off the die are listed apart, unnumbered.
  * @param options.padOneId the pad to number 1 (else a pad flagged isPadOne, else the topmost on the left edge)
  */
 export function padTableFromMarkup(
@@ -30,7 +32,8 @@ export function padTableFromMarkup(
   die: { readonly widthUm: number | null; readonly heightUm: number | null },
   options: { readonly padOneId?: string } = {},
 ): PadTableResult {
-  const pads = shapes.filter((s): s is Shape<"pad"> => s.kind === "pad").map(toPadInput);
+  const bonded = bondedPadIds(shapes);
+  const pads = shapes.filter((s): s is Shape<"pad"> => s.kind === "pad").map((s) => toPadInput(s, bonded));
   if (options.padOneId !== undefined && !pads.some((p) => p.id === options.padOneId)) {
     return { ok: false, reason: "bad_request", message: `Pad 1 must be one of the die's pads; ${options.padOneId} is not.` };
   }

@@ -13,7 +13,18 @@ export type PadState = (typeof PAD_STATES)[number];
 /** Bumped when the stored shape of markup changes, so old exports can be read. */
 export const MARKUP_SCHEMA_VERSION = 1;
 
-export type PadProperties = { label: string; net: string; state: PadState; side?: "N" | "E" | "S" | "W" | ""; isPadOne?: boolean };
+export type PadProperties = {
+  label: string;
+  net: string;
+  /** The stored state; what is shown follows the pad's wire bonds unless `stateByHand` (see pad-state.ts). */
+  state: PadState;
+  /** True when the analyst chose the state; false or absent: it follows the wire bonds. */
+  stateByHand?: boolean;
+  side?: "N" | "E" | "S" | "W" | "";
+  isPadOne?: boolean;
+  /** Numbered in the pad table even though its centre lies outside the die outline. */
+  numberOutside?: boolean;
+};
 export type WireBondProperties = { label?: string; diameterUm: number; padId?: string | null };
 export type BlockProperties = { name: string; function: string };
 export type SymmetryAxisProperties = { name?: string; label?: string };

@@ -6,6 +6,8 @@ import { alongSide, nearestSide, perimeterPosition, SIDES_CCW } from "./perimete
 import type { PadInput, PadRow, PadSide, PadTable, PadTableOptions } from "./types";
 
 const STATES = new Set(["bonded", "probed", "unbonded"]);
+/** Slack at the die edge, in µm: a pad centred exactly on the outline is on the die. */
+const EDGE_SLACK_UM = 1e-6;
 
 type Placed = {
   readonly pad: PadInput;
@@ -101,7 +103,12 @@ export function buildPadTable(pads: readonly PadInput[], dieOutline: PolygonGeom
   pads.forEach(checkPad);
   const ids = new Set(pads.map((p) => p.id));
   if (ids.size !== pads.length) throw new PadTableInputError("pad ids must be unique");
-  const ordered = pads.map((p) => place(p, frame)).sort(byPerimeter);
+  const placed = pads.map((p) => place(p, frame));
+  // A pad whose centre is off the die (a slip of the pointer, a pad of the package) would take
+  // a place in the perimeter order and renumber the table: it is listed apart unless asked for.
+  const off = (p: Placed) => !p.pad.properties.numberOutside && (p.x < -EDGE_SLACK_UM || p.y < -EDGE_SLACK_UM || p.x > frame.widthUm + EDGE_SLACK_UM || p.y > frame.heightUm + EDGE_SLACK_UM);
+  const ordered = placed.filter((p) => !off(p)).sort(byPerimeter);
+  const outsideDie = placed.filter(off).map((p) => ({ id: p.pad.id, label: p.pad.properties.label, xUm: p.x, yUm: p.y }));
   const start = padOneIndex(ordered, options);
   const numbered = [...ordered.slice(start), ...ordered.slice(0, start)];
   const pitch = pitches(ordered);
@@ -125,6 +132,7 @@ export function buildPadTable(pads: readonly PadInput[], dieOutline: PolygonGeom
   return {
     die: { widthUm: frame.widthUm, heightUm: frame.heightUm, rotationDeg: frame.rotationDeg },
     rows,
+    outsideDie,
     summary: summarise(rows),
   };
 }

@@ -15,6 +15,8 @@ export type PadInput = {
     readonly state: PadState;
     /** Set on the pad the analyst chose as pad 1 (overridden by the padOneId option). */
     readonly isPadOne?: boolean;
+    /** Numbered even though its centre lies outside the die outline (the analyst said so). */
+    readonly numberOutside?: boolean;
   };
 };
 
@@ -47,6 +49,8 @@ export type PadRow = {
 export type PadTable = {
   readonly die: { readonly widthUm: number; readonly heightUm: number; readonly rotationDeg: number };
   readonly rows: readonly PadRow[];
+  /** Pads whose centre lies outside the die outline, left out of the numbering (centre in outline axes). */
+  readonly outsideDie: readonly { readonly id: string; readonly label: string; readonly xUm: number; readonly yUm: number }[];
   readonly summary: {
     readonly padsPerSide: Readonly<Record<PadSide, number>>;
     /** Smallest pitch on any side; null when no side has two pads. */

@@ -105,7 +105,9 @@ const PROPERTIES = {
     net: label.default(""),
     state: z.enum(PAD_STATES, `must be one of ${PAD_STATES.join(", ")}`).default("unbonded"),
     side: z.enum(["N", "E", "S", "W", ""], "must be one of N, E, S, W or empty").optional(),
+    stateByHand: z.boolean("must be true or false").optional(),
     isPadOne: z.boolean("must be true or false").optional(),
+    numberOutside: z.boolean("must be true or false").optional(),
     estimates,
   }),
   wire_bond: z.strictObject({ label: label.optional(), diameterUm: positiveUm(1000).default(25), padId: uuidSchema.nullable().optional(), estimates }),
@@ -161,3 +163,11 @@ export const markupDeleteQuerySchema = z.strictObject({
 
 /** `?padOne=<pad id>` on the pad table routes: the pad to number 1. */
 export const padTableQuerySchema = z.strictObject({ padOne: uuidSchema.optional() });
+
+/** `POST /api/dies/{dieId}/frame/restore`: the frame to go back to after a re-framing (undo). */
+export const frameRestoreSchema = z.strictObject({
+  originUm: position,
+  widthUm: positiveUm(UNKNOWN_DIE_LIMIT_UM).nullable(),
+  heightUm: positiveUm(UNKNOWN_DIE_LIMIT_UM).nullable(),
+  outline: polygonSchema("must be a Polygon").nullable(),
+});

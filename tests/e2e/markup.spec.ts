@@ -132,6 +132,107 @@ test.describe.serial("markup on the demo die", () => {
     createdIds = shapes.map((s) => s.id);
   });
 
+  test("a click on a pad selects the pad over its bond, a pad off the die is flagged, and a re-framing is confirmed and undone", async ({ page }) => {
+    await openDie(page, "analyst");
+    const shots = "test-results/markup-shots";
+    const inspector = page.getByRole("region", { name: "Inspector" });
+    const vee2 = padByLabel(NV24R_LAYOUT, "VEE2");
+    const [px, py] = vee2.centreUm;
+    const known = new Set((await markup(page)).map((s) => s.id));
+    // A pad over the VEE2 pad of the image and a wire bond pulled from its centre off the bottom edge.
+    await page.keyboard.press("p");
+    const a0 = await fitScreen(page, [px - vee2.sizeUm[0] / 2, py + vee2.sizeUm[1] / 2]);
+    const b0 = await fitScreen(page, [px + vee2.sizeUm[0] / 2, py - vee2.sizeUm[1] / 2]);
+    await page.mouse.move(a0.x, a0.y);
+    await page.mouse.down();
+    await page.mouse.move(b0.x, b0.y, { steps: 6 });
+    await page.mouse.up();
+    const tools = page.getByRole("toolbar", { name: "Markup tools" });
+    await tools.getByRole("button", { name: /^Wire bond/ }).click();
+    const centre = await fitScreen(page, vee2.centreUm);
+    const below = await fitScreen(page, [px, py - 250]);
+    await page.mouse.move(centre.x, centre.y);
+    await page.mouse.down();
+    await page.mouse.move(below.x, below.y, { steps: 6 });
+    await page.mouse.up();
+    await expect(page.getByTestId("save-state")).toHaveAttribute("data-status", "saved");
+    const drawn = (await markup(page)).filter((s) => !known.has(s.id));
+    expect(drawn.map((s) => s.kind).sort()).toEqual(["pad", "wire_bond"]);
+    createdIds.push(...drawn.map((s) => s.id));
+    const seeded = drawn.find((s) => s.kind === "pad")!;
+    const padLabel = String(seeded.properties.label);
+    await page.keyboard.press("Escape");
+
+    // The bond's foot sits on the pad's centre. Before, a click there selected the bond and a drag
+    // moved it onto the neighbouring pad.
+    await page.mouse.click(centre.x, centre.y);
+    await expect(inspector.getByRole("heading")).toHaveText("Pad");
+    await expect(inspector.getByLabel("Label")).toHaveValue(padLabel);
+    await expect(inspector.getByTestId("inspector-pad-state")).toContainText("bonded: a wire bond is attached");
+    await page.screenshot({ path: `${shots}/1-pad-selected.png` });
+    // A second click at the same spot takes the next shape of the stack: the bond.
+    await page.mouse.click(centre.x, centre.y);
+    await expect(inspector.getByRole("heading")).toHaveText("Wire bond");
+    await page.screenshot({ path: `${shots}/2-bond-selected.png` });
+    await page.keyboard.press("Escape");
+
+    // A pad placed left of the die (x = −150 µm) is flagged and kept out of the numbering.
+    const padCount = async () => (await page.evaluate(async () => (await (await fetch(`/api/dies/${location.pathname.split("/").pop()}/pads`)).json()) as { rows: { id: string }[] })).rows.map((r) => r.id);
+    const numbered = await padCount();
+    await page.keyboard.press("p");
+    const off = await fitScreen(page, [-150, 800]);
+    await page.mouse.click(off.x, off.y);
+    await expect(page.getByTestId("editor-notice")).toContainText("lies outside the die outline");
+    await expect(inspector.getByRole("alert")).toContainText("left out of the pad numbering");
+    await expect(page.getByTestId("save-state")).toHaveAttribute("data-status", "saved");
+    const stray = (await markup(page)).find((s) => s.kind === "pad" && !numbered.includes(s.id) && s.id !== seeded.id && !createdIds.includes(s.id))!;
+    createdIds.push(stray.id);
+    await page.getByRole("tab", { name: "Pad table" }).click();
+    await expect(page.getByTestId("pads-outside-die")).toContainText("Outside the die outline, not numbered");
+    expect(await padCount()).toEqual(numbered);
+    await page.screenshot({ path: `${shots}/3-outside-die.png` });
+    await page.getByRole("tab", { name: "Inspect" }).click();
+    await page.keyboard.press("Delete");
+    await expect.poll(async () => (await markup(page)).some((s) => s.id === stray.id)).toBe(false);
+    await page.getByTestId("editor-notice").getByRole("button", { name: "Dismiss message" }).click();
+
+    // A die outline a few µm inside the die's edge: the dialog says what moves, Undo puts it back.
+    await page.keyboard.press("o");
+    const a = await fitScreen(page, [4, 1596]);
+    const b = await fitScreen(page, [2396, 4]);
+    await page.mouse.move(a.x, a.y);
+    await page.mouse.down();
+    await page.mouse.move(b.x, b.y, { steps: 8 });
+    await page.mouse.up();
+    const dialog = page.getByRole("dialog", { name: "Set the die frame from this outline?" });
+    await expect(dialog).toBeVisible();
+    const effect = (await dialog.getByTestId("reframe-effect").innerText()).replace(/\s+/g, " ");
+    // µm at the decimals the 0.25 µm/px reference resolves: one, never float noise.
+    expect(effect).toMatch(/shift by \(−?-?\d+\.\d, −?-?\d+\.\d\) µm/);
+    expect(effect).toMatch(/The die size becomes \d+\.\d × \d+\.\d µm \(now 2400\.0 × 1600\.0 µm\)/);
+    expect(effect).not.toMatch(/\d\.\d{2,}/);
+    await page.screenshot({ path: `${shots}/4-reframe-confirm.png` });
+    await dialog.getByRole("button", { name: "Set die frame" }).click();
+    await expect(dialog).toBeHidden();
+    await page.getByRole("tab", { name: "Die & micrographs" }).click();
+    const details = page.getByRole("region", { name: "Die details" });
+    await expect(details).not.toContainText("2400.0 µm");
+    await expect(details).toContainText(/Width\s*23\d\d\.\d µm/);
+    const moved = (await markup(page)).find((s) => s.id === seeded.id)!;
+    expect(moved.geometry.coordinates).not.toEqual(seeded.geometry.coordinates);
+    await expect(tools.getByRole("button", { name: "Undo" })).toBeEnabled();
+    await tools.getByRole("button", { name: "Undo" }).click();
+    await expect(details).toContainText(/Width\s*2400\.0 µm/);
+    await expect(details).toContainText(/Height\s*1600\.0 µm/);
+    const back = (await markup(page)).find((s) => s.id === seeded.id)!;
+    const flat = (g: unknown) => (g as number[][][]).flat(2);
+    flat(back.geometry.coordinates).forEach((v, i) => expect(Math.abs(v - flat(seeded.geometry.coordinates)[i])).toBeLessThan(1e-6));
+    expect((await markup(page)).some((s) => s.kind === "die_outline")).toBe(false);
+    await page.getByRole("tab", { name: "Pad table" }).click();
+    await expect(page.getByRole("region", { name: "Pad table" }).getByRole("button", { name: padLabel })).toBeVisible();
+    await page.screenshot({ path: `${shots}/5-pad-table.png` });
+  });
+
   test("markup stays on the same image feature after zooming in about 8×", async ({ page }) => {
     await openDie(page, "analyst");
     const centre = padByLabel(NV24R_LAYOUT, "VB3").centreUm;

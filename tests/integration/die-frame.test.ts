@@ -43,4 +43,49 @@ describe("die outline", () => {
     expect(res.body.error).toMatch(/rectangle/);
     expect((await owner.get<unknown[]>(`/api/dies/${d.body.id}/markup`)).body).toEqual([]);
   });
+
+  it("undoes a re-framing: origin, size and the earlier outline come back through the restore path", async () => {
+    const owner = world.clients.owner;
+    const c = await owner.request<{ id: string }>("POST", `/api/teams/${world.teamId}/cases`, { title: "Frame undo case" });
+    const d = await owner.request<{ id: string }>("POST", `/api/cases/${c.body.id}/dies`, { name: "NV-24R", widthUm: 2400, heightUm: 1600 });
+    const dieId = d.body.id;
+    const earlier = await owner.request<{ id: string }>("POST", `/api/dies/${dieId}/markup`, { kind: "die_outline", geometry: rect(0, 0, 2400, 1600), properties: {} });
+    const pad = await owner.request<{ id: string }>("POST", `/api/dies/${dieId}/markup`, { kind: "pad", geometry: rect(500, 500, 580, 580), properties: { label: "VCC", net: "", state: "unbonded" } });
+    // The fault seen: an outline drawn a few µm inside the edge re-framed the die for good.
+    await owner.request("POST", `/api/dies/${dieId}/markup`, { kind: "die_outline", geometry: rect(3, 4, 2397, 1597), properties: {} });
+    await owner.request("DELETE", `/api/markup/${earlier.body.id}`);
+    const framed = await owner.get<{ widthUm: number; heightUm: number }>(`/api/dies/${dieId}`);
+    // Worked by hand: 2397 − 3 = 2394, 1597 − 4 = 1593; the pad moved by (−3, −4).
+    expect(framed.body).toMatchObject({ widthUm: 2394, heightUm: 1593 });
+    const restore = await owner.request<{ moved: number }>("POST", `/api/dies/${dieId}/frame/restore`, { originUm: [-3, -4], widthUm: 2400, heightUm: 1600, outline: rect(0, 0, 2400, 1600) });
+    expect(restore.status).toBe(200);
+    const die = await owner.get<{ widthUm: number; heightUm: number }>(`/api/dies/${dieId}`);
+    expect(die.body).toMatchObject({ widthUm: 2400, heightUm: 1600 });
+    const shapes = (await owner.get<{ id: string; kind: string; geometry: { coordinates: number[][][] } }[]>(`/api/dies/${dieId}/markup`)).body;
+    expect(shapes.find((s) => s.id === pad.body.id)!.geometry.coordinates[0][0]).toEqual([500, 500]);
+    const outlines = shapes.filter((s) => s.kind === "die_outline");
+    expect(outlines.map((o) => o.geometry.coordinates[0])).toEqual([rect(0, 0, 2400, 1600).coordinates[0]]);
+  });
+
+  it("restores a frame that had no outline, and refuses bad input and readers without changing anything", async () => {
+    const owner = world.clients.owner;
+    const c = await owner.request<{ id: string }>("POST", `/api/teams/${world.teamId}/cases`, { title: "Frame undo case 2" });
+    const d = await owner.request<{ id: string }>("POST", `/api/cases/${c.body.id}/dies`, { name: "die", widthUm: 2400, heightUm: 1600 });
+    const dieId = d.body.id;
+    const pad = await owner.request<{ id: string }>("POST", `/api/dies/${dieId}/markup`, { kind: "pad", geometry: rect(500, 500, 580, 580), properties: { label: "A", net: "", state: "unbonded" } });
+    await owner.request("POST", `/api/dies/${dieId}/markup`, { kind: "die_outline", geometry: rect(10, 20, 2390, 1580), properties: {} });
+    const bad = await owner.request<{ error: string }>("POST", `/api/dies/${dieId}/frame/restore`, { originUm: [-10, -20], widthUm: 2400, heightUm: 1600, outline: { type: "Polygon", coordinates: [[[0, 0], [100, 0], [120, 90], [0, 100], [0, 0]]] } });
+    expect(bad.status).toBe(400);
+    expect(bad.body.error).toMatch(/rectangle/);
+    const viewer = await world.clients.viewer.request("POST", `/api/dies/${dieId}/frame/restore`, { originUm: [-10, -20], widthUm: 2400, heightUm: 1600, outline: null });
+    expect(viewer.status).toBe(403);
+    expect((await owner.get<{ widthUm: number }>(`/api/dies/${dieId}`)).body.widthUm).toBe(2380);
+    const ok = await owner.request("POST", `/api/dies/${dieId}/frame/restore`, { originUm: [-10, -20], widthUm: 2400, heightUm: 1600, outline: null });
+    expect(ok.status).toBe(200);
+    const shapes = (await owner.get<{ id: string; kind: string; geometry: { coordinates: number[][][] } }[]>(`/api/dies/${dieId}/markup`)).body;
+    expect(shapes.map((s) => s.kind)).toEqual(["pad"]);
+    expect(shapes[0].geometry.coordinates[0][0]).toEqual([500, 500]);
+    expect((await owner.get<{ widthUm: number; heightUm: number }>(`/api/dies/${dieId}`)).body).toMatchObject({ widthUm: 2400, heightUm: 1600 });
+    void pad;
+  });
 });

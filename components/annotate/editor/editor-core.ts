@@ -1,4 +1,7 @@
 import { createHistory } from "@/lib/markup/history";
+import { dieFrameOf, isOutsideDie } from "@/lib/markup/outside-die";
+import { shapeLabel } from "@/lib/markup/markup-table";
+import { KIND_STYLE } from "@/lib/markup/palette";
 import { createStore } from "./editor-store";
 import { startLiveEdit, type EditorLiveEdit } from "./live-edit";
 import type { Change, ShapeMap } from "./model";
@@ -21,6 +24,7 @@ export function createEditorCore(options: EditorOptions) {
   const history = createHistory({ limit: options.historyLimit ?? 200 });
   const commitListeners = new Set<(entry: readonly Change[]) => void>();
   let live: EditorLiveEdit | null = null;
+  let beyond: (() => void) | null = options.undoBeyondHistory ?? null;
 
   const placeholder: ToolState = { name: "select.idle" };
   const store = createStore(
@@ -32,8 +36,9 @@ export function createEditorCore(options: EditorOptions) {
       preview: null,
       hoverId: null,
       helpVisible: false,
+      notice: null,
     },
-    () => ({ canEdit, canUndo: history.canUndo(), canRedo: history.canRedo() }),
+    () => ({ canEdit, canUndo: history.canUndo() || (canEdit && beyond !== null), canRedo: history.canRedo() }),
   );
   const shapes = () => store.get().shapes;
   const current = () => store.get().toolState;
@@ -43,6 +48,18 @@ export function createEditorCore(options: EditorOptions) {
   };
   const toolAllowed = (tool: ToolId) => canEdit || READ_ONLY_TOOLS.includes(tool);
   const writer = createModelWriter({ canEdit, history, now: stamp.now, shapes, write, touch: store.touch, deliver });
+  const notify = (text: string) => store.update({ notice: text });
+
+  /** After a user edit: says so when a shape that belongs on the die has just left it (or was drawn off it). */
+  const warnOffDie = (entry: readonly Change[]) => {
+    const frame = dieFrameOf(shapes().values(), options.die ?? null);
+    const off = entry.flatMap((c) => (c.after && isOutsideDie(c.after, frame) && !(c.before && isOutsideDie(c.before, frame)) ? [c.after] : []));
+    if (off.length === 0) return;
+    const first = off[0];
+    const what = off.length === 1 ? `${KIND_STYLE[first.kind].label} ${shapeLabel(first)}`.trim() : `${off.length} shapes`;
+    const pads = off.some((s) => s.kind === "pad") ? " Pads off the die are left out of the pad numbering unless you include them in the inspector." : "";
+    notify(`${what} ${off.length === 1 ? "lies" : "lie"} outside the die outline.${pads}`);
+  };
 
   const ctx: EditorContext = {
     canEdit,
@@ -57,13 +74,26 @@ export function createEditorCore(options: EditorOptions) {
       const next = tool && toolAllowed(tool) ? tool : store.get().activeTool;
       store.update({ activeTool: next, toolState: idleState(next, ctx), preview: null });
     },
-    commit: writer.commit,
+    commit: (changes) => {
+      writer.commit(changes);
+      warnOffDie(changes);
+    },
     beginLiveEdit: () => {
       live?.cancel();
-      const edit = startLiveEdit({ history, shapes, write, now: stamp.now, deliver, ended: () => (live = live === edit ? null : live) });
+      const started = startLiveEdit({ history, shapes, write, now: stamp.now, deliver, ended: () => (live = live === edit ? null : live) });
+      const edit: EditorLiveEdit = {
+        ...started,
+        commit() {
+          const entry = started.commit();
+          warnOffDie(entry);
+          return entry;
+        },
+      };
       live = edit;
       return edit;
     },
+    notify,
+    clicks: { last: null },
   };
   store.update({ toolState: idleState("select", ctx) });
 
@@ -77,5 +107,12 @@ export function createEditorCore(options: EditorOptions) {
     return true;
   };
 
-  return { canEdit, stamp, history, store, ctx, writer, commitListeners, shapes, current, write, toolAllowed, interrupt, live: () => live };
+  /** Hands over the undo step beyond the history, once. */
+  const takeBeyond = () => {
+    const run = beyond;
+    beyond = null;
+    return run;
+  };
+
+  return { canEdit, stamp, history, store, ctx, writer, commitListeners, shapes, current, write, toolAllowed, interrupt, live: () => live, takeBeyond };
 }

@@ -12,6 +12,7 @@ export type StoreFields = {
   readonly preview: ToolPreview | null;
   readonly hoverId: string | null;
   readonly helpVisible: boolean;
+  readonly notice: string | null;
 };
 
 /** Fields of the snapshot that live outside the store (the history's undo and redo stacks). */
@@ -87,6 +88,8 @@ export function createStore(initial: StoreFields, extras: StoreExtras) {
         canUndo,
         canRedo,
         helpVisible: fields.helpVisible,
+        notice: fields.notice,
+        confirmation: fields.toolState.awaiting ?? null,
       };
       return snapshot;
     },

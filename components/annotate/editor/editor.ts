@@ -50,11 +50,18 @@ function editPart(core: EditorCore): Part<"deleteSelection" | "duplicateSelectio
       store.batch(() => {
         // Undo in the middle of a drawing or drag takes back only that interaction.
         if (!canEdit || interrupt()) return;
+        store.update({ notice: null });
         const entry = core.history.undo();
-        if (entry) writer.applyHistoryEntry(entry);
+        if (entry) return writer.applyHistoryEntry(entry);
+        const beyond = core.takeBeyond();
+        if (beyond) {
+          store.touch();
+          beyond();
+        }
       }),
     redo: () =>
       editing(() => {
+        store.update({ notice: null });
         const entry = core.history.redo();
         if (entry) writer.applyHistoryEntry(entry);
       }),
@@ -70,7 +77,7 @@ function editPart(core: EditorCore): Part<"deleteSelection" | "duplicateSelectio
 }
 
 /** Tool choice, selection, Escape and the help sheet: none of these records history. */
-function viewPart(core: EditorCore): Part<"setTool" | "select" | "cancel" | "setHelpVisible"> {
+function viewPart(core: EditorCore): Part<"setTool" | "select" | "cancel" | "setHelpVisible" | "confirm" | "dismissNotice"> {
   const { store, ctx, interrupt } = core;
   return {
     setTool: (id) =>
@@ -88,6 +95,8 @@ function viewPart(core: EditorCore): Part<"setTool" | "select" | "cancel" | "set
         else ctx.setSelection([]);
       }),
     setHelpVisible: (visible) => store.batch(() => store.update({ helpVisible: visible })),
+    confirm: () => store.batch(() => core.current().confirm?.()),
+    dismissNotice: () => store.batch(() => store.update({ notice: null })),
   };
 }
 

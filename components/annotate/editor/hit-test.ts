@@ -59,7 +59,8 @@ export function shapeSize(shape: AnyShape): number {
 
 /**
  * Every shape under the pointer, best first: smaller shapes before larger ones (a pad before
- * the block around it), then nearer, then the one drawn on top.
+ * the block around it), then nearer, then the one drawn on top; a pad under the pointer before
+ * the wire bonds attached to it.
  */
 export function hitsAt(
   shapes: Iterable<AnyShape>,
@@ -75,7 +76,26 @@ export function hitsAt(
     const distance = hitDistance(shape, p, toleranceUm);
     if (distance !== null) hits.push({ shape, distance, size: shapeSize(shape), order });
   }
-  return hits.sort((a, b) => a.size - b.size || a.distance - b.distance || b.order - a.order);
+  hits.sort((a, b) => a.size - b.size || a.distance - b.distance || b.order - a.order);
+  return padsBeforeTheirBonds(hits);
+}
+
+/**
+ * A wire bond starts at its pad's centre, so a press inside a pad also hits the bond's foot;
+ * the bond (a line, size 0) would win. What the user means there is the pad: a pad the pointer
+ * is inside goes before its own bonds. The bond stays reachable on its wire outside the pad,
+ * or by clicking again at the same spot (the select tool cycles through the stack).
+ */
+function padsBeforeTheirBonds(hits: Hit[]): Hit[] {
+  for (const padHit of hits.filter((h) => h.shape.kind === "pad" && h.distance === 0)) {
+    const padAt = hits.indexOf(padHit);
+    const firstBond = hits.findIndex((h) => h.shape.kind === "wire_bond" && h.shape.properties.padId === padHit.shape.id);
+    if (firstBond >= 0 && firstBond < padAt) {
+      hits.splice(padAt, 1);
+      hits.splice(firstBond, 0, padHit);
+    }
+  }
+  return hits;
 }
 
 /** The best shape under the pointer, or null. */

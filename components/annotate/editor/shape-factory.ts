@@ -36,9 +36,12 @@ function namesOf(shapes: Iterable<AnyShape>, kind: AnyShape["kind"], key: string
   return names;
 }
 
-/** Properties of a new pad: the next free label P1, P2, …, no net yet, bonded. */
+/**
+ * Properties of a new pad: the next free label P1, P2, …, no net yet, unbonded. The state then
+ * follows the wire bonds attached to it until the analyst sets one by hand.
+ */
 export function newPadProperties(shapes: Iterable<AnyShape>): PadProperties {
-  return { label: nextFreeName("P", namesOf(shapes, "pad", "label")), net: "", state: "bonded" };
+  return { label: nextFreeName("P", namesOf(shapes, "pad", "label")), net: "", state: "unbonded" };
 }
 
 /** Properties of a new block: the next free name "Block 1", "Block 2", …, no function yet. */

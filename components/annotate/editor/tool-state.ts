@@ -1,4 +1,6 @@
+import type { PolygonGeometry, Position } from "@/lib/geometry/types";
 import type { AnyShape } from "@/lib/markup/types";
+import type { DieFrame } from "@/lib/pads/die-frame";
 import type { Change, ShapeMap } from "./model";
 import type { ShapeStamp } from "./shape-factory";
 import type { PointerInput, ToolId, ToolPreview } from "./types";
@@ -25,6 +27,10 @@ export interface ToolState {
   removeLastPoint?(): void;
   /** Escape or a tool switch: put back whatever the interaction changed; the editor then goes idle. */
   cancel?(): void;
+  /** A drawn die outline waiting for the user to confirm the re-framing it causes. */
+  readonly awaiting?: { readonly kind: "die_outline"; readonly geometry: PolygonGeometry; readonly replaces: boolean };
+  /** The user confirmed what `awaiting` asked. */
+  confirm?(): void;
 }
 
 /**
@@ -58,4 +64,8 @@ export interface EditorContext {
   /** Applies the changes (attached bonds follow), records one history entry and delivers it. */
   commit(changes: readonly Change[]): void;
   beginLiveEdit(): LiveEdit;
+  /** Shows a short message to the user (a bond that changed its pad, a shape off the die). */
+  notify(text: string): void;
+  /** Where the last plain click on shapes landed, so a second click there can cycle the stack. */
+  readonly clicks: { last: Position | null };
 }

@@ -1,5 +1,5 @@
 import type { BoundingBox } from "@/lib/geometry/measure";
-import type { Position } from "@/lib/geometry/types";
+import type { PolygonGeometry, Position } from "@/lib/geometry/types";
 import type { AnyShape, GeometryOf, MarkupKind, PropertiesOf } from "@/lib/markup/types";
 import type { Change } from "./model";
 
@@ -79,6 +79,13 @@ export type EditorState = {
   readonly canRedo: boolean;
   /** Whether the keyboard help sheet is open ("?"). */
   readonly helpVisible: boolean;
+  /** A message for the user about the last edit (a bond moved to another pad, a shape off the die), or null. */
+  readonly notice: string | null;
+  /**
+   * A drawn die outline waiting for confirmation (it re-frames the die): its geometry and
+   * whether it replaces the current outline. `confirm()` creates it, `cancel()` drops it.
+   */
+  readonly confirmation: { readonly kind: "die_outline"; readonly geometry: PolygonGeometry; readonly replaces: boolean } | null;
 };
 
 export type Unsubscribe = () => void;
@@ -106,6 +113,9 @@ export interface Editor {
   select(ids: Iterable<string>): void;
   cancel(): void;
   setHelpVisible(visible: boolean): void;
+  /** Goes ahead with what `confirmation` asks. */
+  confirm(): void;
+  dismissNotice(): void;
   applyServerShape(shape: AnyShape): void;
   removeServerShape(id: string): void;
 }
@@ -119,4 +129,12 @@ export type EditorOptions = {
   readonly userId: string | null;
   /** Undo steps kept (default 200). */
   readonly historyLimit?: number;
+  /** The die's recorded size, for "outside the die" when no outline is drawn. */
+  readonly die?: { readonly widthUm: number | null; readonly heightUm: number | null } | null;
+  /**
+   * One undo step that lives outside this editor's history: taken (once) when the history has
+   * nothing left to undo. The host uses it to restore the die frame after a re-framing reloaded
+   * the editor.
+   */
+  readonly undoBeyondHistory?: () => void;
 };

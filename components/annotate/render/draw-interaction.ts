@@ -4,12 +4,13 @@ import { handlesFor } from "../editor/handles";
 import type { EditorState } from "../editor/types";
 import { KIND_STYLE, SELECTION_COLOUR } from "../palette";
 import { drawShape } from "./draw-markup";
+import { formatUm } from "@/lib/units/format-um";
 
 const toScreen = (m: Affine2x3, x: number, y: number) => [m[0][0] * x + m[0][1] * y + m[0][2], m[1][0] * x + m[1][1] * y + m[1][2]] as const;
 
-/** Formats a length in µm for the live ruler reading. */
-export function formatLength(um: number): string {
-  return um >= 1000 ? `${(um / 1000).toFixed(3)} mm` : `${um.toFixed(1)} µm`;
+/** Formats a length in µm for the live ruler reading (µm to the decimals the scale resolves). */
+export function formatLength(um: number, umPerPx?: number | null): string {
+  return um >= 1000 ? `${(um / 1000).toFixed(3)} mm` : `${formatUm(um, umPerPx ?? 0.1)} µm`;
 }
 
 /**

@@ -1,6 +1,7 @@
 import type { Affine2x3, Position } from "@/lib/geometry/types";
 import type { AnyShape, PadProperties } from "@/lib/markup/types";
 import { HALO_COLOUR, KIND_STYLE, PAD_STATE_STYLE } from "../palette";
+import { bondedPadIds, shownPadState } from "@/lib/markup/pad-state";
 import { screenPxPerUm } from "./die-to-screen";
 
 export type DrawOptions = {
@@ -114,10 +115,11 @@ function addPath(path: Path2D, m: Affine2x3, pts: readonly Position[], close: bo
 }
 
 /** The batch a shape's outline joins: one per kind and look, so thousands of shapes are a few strokes. */
-function batchKey(s: AnyShape): { key: string; colour: string; dash?: number[]; fillAlpha: number } {
+function batchKey(s: AnyShape, bonded: ReadonlySet<string>): { key: string; colour: string; dash?: number[]; fillAlpha: number } {
   const style = KIND_STYLE[s.kind];
   if (s.kind === "pad") {
-    const state = (s.properties as PadProperties).state;
+    // The state shown: from the pad's wire bonds unless set by hand.
+    const state = shownPadState(s, bonded);
     const st = PAD_STATE_STYLE[state] ?? PAD_STATE_STYLE.bonded;
     return { key: `pad:${state}`, colour: style.colour, dash: st.dash, fillAlpha: st.fillAlpha };
   }
@@ -162,7 +164,9 @@ export function drawMarkup(ctx: CanvasRenderingContext2D, shapes: Iterable<AnySh
   const dots = new Map<string, Path2D>();
   const singles: AnyShape[] = [];
   const shown: AnyShape[] = [];
-  for (const s of shapes) {
+  const all = Array.isArray(shapes) ? (shapes as readonly AnyShape[]) : [...shapes];
+  const bonded = bondedPadIds(all);
+  for (const s of all) {
     const b = o.bboxes.get(s.id);
     if (!visible(b, o.visibleUm)) continue;
     shown.push(s);
@@ -184,7 +188,7 @@ export function drawMarkup(ctx: CanvasRenderingContext2D, shapes: Iterable<AnySh
       singles.push(s);
       continue;
     }
-    const k = batchKey(s);
+    const k = batchKey(s, bonded);
     let batch = batches.get(k.key);
     if (!batch) batches.set(k.key, (batch = { path: new Path2D(), colour: k.colour, dash: k.dash, fillAlpha: k.fillAlpha }));
     if (g.type === "LineString") addPath(batch.path, m, g.coordinates, false);

@@ -7,9 +7,13 @@ const DIE_OUTLINE: RectangleToolSpec = {
   // A die has one outline: drawing another replaces it.
   replaces: (ctx) => [...ctx.shapes().values()].filter((s) => s.kind === "die_outline"),
   clickGeometry: () => null,
+  confirm: true,
 };
 
-/** The die outline tool: drag a rectangle; a click makes nothing. */
+/**
+ * The die outline tool: drag a rectangle; a click makes nothing. The outline moves the die
+ * frame's origin and sets the die's size, so it waits for confirmation (`Editor.confirm`).
+ */
 export function dieOutlineIdle(ctx: EditorContext): ToolState {
   return rectangleToolIdle(ctx, DIE_OUTLINE);
 }

@@ -20,7 +20,7 @@ describe("pad tool", () => {
     ]);
     expect(signedRingArea(pad.geometry.coordinates[0])).toBeGreaterThan(0);
     expect(polygonArea(pad.geometry)).toBe(80 * 60); // hand-worked: 80 µm × 60 µm
-    expect(pad.properties).toEqual({ label: "P1", net: "", state: "bonded" });
+    expect(pad.properties).toEqual({ label: "P1", net: "", state: "unbonded" });
     expect(pad.createdBy).toBe("analyst");
     expect(t.selected()).toEqual([pad.id]);
     expect(t.state().activeTool).toBe("select");

@@ -64,16 +64,33 @@ describe("wire bond tool", () => {
     expect(t.shape("b1")?.geometry.coordinates).toEqual([[60, 800], [-300, 900]]);
   });
 
-  it("moves its foot to another pad when the foot is dropped there, and detaches elsewhere", () => {
+  it("moves its foot to another pad only with a message, one undo step putting it back", () => {
     const vcc = padShape("vcc", 60, 800);
     const vee = padShape("vee", 60, 400);
-    const t = setup({ shapes: [vcc, vee, bondShape("b1", vcc, [-300, 800])] });
+    const bond = bondShape("b1", vcc, [-300, 800]);
+    const t = setup({ shapes: [vcc, vee, bond] });
     t.editor.select(["b1"]);
     t.drag([60, 800], [70, 410]);
     expect(t.shape("b1")?.geometry.coordinates[0]).toEqual([60, 400]);
     expect(t.shape("b1")?.properties.padId).toBe("vee");
-    t.drag([60, 400], [300, 300]);
+    expect(t.state().notice).toBe("Wire bond moved from pad VCC to pad VEE. Undo (Ctrl+Z) puts it back.");
+    t.editor.undo();
+    expect(t.shape("b1")).toEqual(bond);
+    expect(t.state().notice).toBeNull();
+    t.editor.select(["b1"]);
+    t.drag([60, 800], [300, 300]);
     expect(t.shape("b1")?.geometry.coordinates[0]).toEqual([300, 300]);
     expect(t.shape("b1")?.properties.padId).toBeNull();
+    expect(t.state().notice).toMatch(/^Wire bond detached from pad VCC/);
+  });
+
+  it("says nothing when the foot is dropped back on its own pad", () => {
+    const vcc = padShape("vcc", 60, 800);
+    const t = setup({ shapes: [vcc, padShape("vee", 60, 400), bondShape("b1", vcc, [-300, 800])] });
+    t.editor.select(["b1"]);
+    t.drag([60, 800], [75, 790]);
+    expect(t.shape("b1")?.properties.padId).toBe("vcc");
+    expect(t.shape("b1")?.geometry.coordinates[0]).toEqual([60, 800]);
+    expect(t.state().notice).toBeNull();
   });
 });

@@ -4,6 +4,8 @@ import { listMarkup, markupAuthors } from "@/db/access/markup";
 import { uuidSchema } from "@/lib/validation/common";
 import { markupTableCsv, markupTableRows } from "@/lib/markup/markup-table";
 import { attachmentDisposition } from "@/lib/markup/attachment";
+import { referenceScale } from "@/db/access/die-scale";
+import { umDecimals } from "@/lib/units/format-um";
 
 const params = z.object({ dieId: uuidSchema });
 
@@ -11,7 +13,8 @@ const params = z.object({ dieId: uuidSchema });
 export const GET = apiRoute({ params }, async ({ db, actor, params }) => {
   const { die, shapes } = await listMarkup(db, actor, params.dieId, "export");
   const rows = markupTableRows(shapes, await markupAuthors(db, shapes));
-  return new Response(markupTableCsv(rows), {
+  const scale = await referenceScale(db, params.dieId);
+  return new Response(markupTableCsv(rows, scale === null ? undefined : umDecimals(scale)), {
     headers: {
       "Content-Type": "text/csv; charset=utf-8",
       "Content-Disposition": attachmentDisposition(`${die.name} markup.csv`),

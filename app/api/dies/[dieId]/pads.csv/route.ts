@@ -7,6 +7,8 @@ import { padTableQuerySchema } from "@/lib/validation/markup";
 import { padTableFromMarkup } from "@/lib/markup/pad-table-from-markup";
 import { attachmentDisposition } from "@/lib/markup/attachment";
 import { padTableCsv } from "@/lib/pads";
+import { referenceScale } from "@/db/access/die-scale";
+import { umDecimals } from "@/lib/units/format-um";
 
 const params = z.object({ dieId: uuidSchema });
 
@@ -19,7 +21,9 @@ export const GET = apiRoute({ params, query: padTableQuerySchema }, async ({ db,
   const { die, shapes } = await listMarkup(db, actor, params.dieId, "export");
   const r = padTableFromMarkup(shapes, die, { padOneId: query.padOne });
   if (!r.ok) throw r.reason === "bad_request" ? new BadRequestError(r.message) : new ConflictError(r.message);
-  return new Response(padTableCsv(r.table), {
+  // µm to the decimals the reference micrograph's scale resolves; without one, the CSV's own 3.
+  const scale = await referenceScale(db, params.dieId);
+  return new Response(padTableCsv(r.table, scale === null ? {} : { decimals: umDecimals(scale) }), {
     headers: {
       "Content-Type": "text/csv; charset=utf-8",
       "Content-Disposition": attachmentDisposition(`${die.name} pad table.csv`),

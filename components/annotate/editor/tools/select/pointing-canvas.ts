@@ -14,6 +14,7 @@ export function pointingCanvas(ctx: EditorContext, down: PointerInput): ToolStat
       next.pointerMove?.(e);
     },
     pointerUp() {
+      ctx.clicks.last = null;
       if (!down.shift) ctx.setSelection([]);
       ctx.toIdle();
     },

@@ -15,6 +15,8 @@ export type RectangleToolSpec = {
   replaces(ctx: EditorContext): readonly AnyShape[];
   /** The rectangle a click (or a drag smaller than the tolerance) makes, or null for none. */
   clickGeometry(p: Position): PolygonGeometry | null;
+  /** The rectangle re-frames the die (a die outline): it waits for the user's confirmation. */
+  readonly confirm?: boolean;
 };
 
 function bigEnough(box: BoundingBox, toleranceUm: number): boolean {
@@ -50,8 +52,29 @@ export function drawingRectangle(ctx: EditorContext, spec: RectangleToolSpec, do
       const box = boxTo(e);
       const geometry = bigEnough(box, e.toleranceUm) ? rectangleGeometry(box) : spec.clickGeometry([down.x, down.y]);
       ctx.setPreview(null);
-      if (geometry) createAndSelect(ctx, spec.draft(ctx, geometry), spec.replaces(ctx));
+      if (geometry && spec.confirm) ctx.transition(awaitingConfirmation(ctx, spec, geometry));
+      else if (geometry) createAndSelect(ctx, spec.draft(ctx, geometry), spec.replaces(ctx));
       else ctx.toIdle(spec.tool);
+    },
+  };
+}
+
+/**
+ * A drawn rectangle shown as it will be created, waiting for `confirm` (the host asks the user
+ * and says what will move); Escape or a tool switch drops it and nothing is recorded.
+ */
+function awaitingConfirmation(ctx: EditorContext, spec: RectangleToolSpec, geometry: PolygonGeometry): ToolState {
+  const draft = spec.draft(ctx, geometry);
+  ctx.setPreview({ type: "shape", shape: draft });
+  return {
+    name: `${spec.tool}.confirming`,
+    interacting: true,
+    awaiting: { kind: "die_outline", geometry, replaces: spec.replaces(ctx).length > 0 },
+    confirm() {
+      createAndSelect(ctx, draft, spec.replaces(ctx));
+    },
+    cancel() {
+      ctx.setPreview(null);
     },
   };
 }

@@ -1,0 +1,32 @@
+import type { AnyShape, PadProperties, PadState } from "./types";
+
+/**
+ * The state a pad shows (inspector, pad table, summary, CSV, PDF). A pad's state follows its
+ * wire bonds (bonded when at least one bond is attached, else unbonded) unless the analyst set
+ * it by hand. Probed cannot be seen from the markup, so it is always a choice by hand; a pad
+ * stored as probed without the flag (drawn before the flag existed) keeps it.
+ */
+export function isPadStateByHand(p: Pick<PadProperties, "state" | "stateByHand">): boolean {
+  return p.stateByHand ?? p.state === "probed";
+}
+
+/** Ids of the pads that at least one wire bond in `shapes` is attached to. */
+export function bondedPadIds(shapes: Iterable<AnyShape>): Set<string> {
+  const ids = new Set<string>();
+  for (const s of shapes) if (s.kind === "wire_bond" && s.properties.padId) ids.add(s.properties.padId);
+  return ids;
+}
+
+/** The state of one pad as shown, given the ids of the pads that carry a bond. */
+export function shownPadState(pad: { readonly id: string; readonly properties: Pick<PadProperties, "state" | "stateByHand"> }, bonded: ReadonlySet<string>): PadState {
+  if (isPadStateByHand(pad.properties)) return pad.properties.state;
+  return bonded.has(pad.id) ? "bonded" : "unbonded";
+}
+
+/** The shown state of every pad in `shapes`, by pad id. */
+export function shownPadStates(shapes: readonly AnyShape[]): Map<string, PadState> {
+  const bonded = bondedPadIds(shapes);
+  const out = new Map<string, PadState>();
+  for (const s of shapes) if (s.kind === "pad") out.set(s.id, shownPadState(s, bonded));
+  return out;
+}

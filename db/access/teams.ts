@@ -4,7 +4,8 @@ import { memberships, teams, users } from "../schema";
 import { authorize, type Actor, type Db } from "./context";
 import { recordAudit } from "./audit";
 import { ConflictError, NotFoundError } from "@/lib/server/errors";
-import type { TeamRole } from "@/lib/auth/permissions";
+import { ACTIONS, can, type TeamRole } from "@/lib/auth/permissions";
+import { endSessions } from "./sessions";
 
 export type MeDto = {
   user: { id: string; email: string; name: string };
@@ -73,12 +74,15 @@ export async function changeRole(db: Db, actor: Actor, teamId: string, userId: s
       .where(and(eq(memberships.teamId, teamId), eq(memberships.userId, userId)))
       .returning();
     await recordAudit(tx, actor, { teamId, action: "member.role_changed", entityType: "user", entityId: userId, before, after });
+    // A role that loses a right ends the member's sessions, so nothing issued under the old
+    // role outlives the change (rights themselves are read from the database on every request).
+    if (ACTIONS.some((a) => can(before.role, a) && !can(role, a))) await endSessions(tx, userId);
   });
   const members = await listMembers(db, actor, teamId);
   return members.find((m) => m.userId === userId)!;
 }
 
-/** Removes a member from a team (owner only); the last owner cannot be removed. */
+/** Removes a member from a team (owner only; their sessions end); the last owner cannot be removed. */
 export async function removeMember(db: Db, actor: Actor, teamId: string, userId: string): Promise<void> {
   await db.transaction(async (tx) => {
     await authorize(tx, actor, teamId, "manage_team", "That team");
@@ -88,5 +92,6 @@ export async function removeMember(db: Db, actor: Actor, teamId: string, userId:
     }
     await tx.delete(memberships).where(and(eq(memberships.teamId, teamId), eq(memberships.userId, userId)));
     await recordAudit(tx, actor, { teamId, action: "member.removed", entityType: "user", entityId: userId, before });
+    await endSessions(tx, userId);
   });
 }

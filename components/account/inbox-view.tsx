@@ -1,7 +1,5 @@
 "use client";
 
-import Link from "next/link";
-import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { useQueryClient } from "@tanstack/react-query";
 import { apiFetch } from "@/lib/client/api";
@@ -24,7 +22,6 @@ export function inboxHref(item: InboxItemDto): string {
 export function InboxView({ initial }: { initial: InboxItemDto[] }) {
   const inbox = useInbox(initial);
   const queryClient = useQueryClient();
-  const router = useRouter();
   const [error, setError] = useState<string | null>(null);
   const items = inbox.data ?? initial;
 
@@ -54,17 +51,18 @@ export function InboxView({ initial }: { initial: InboxItemDto[] }) {
                 {KIND_LABELS[item.kind] ?? item.kind} · <time dateTime={item.createdAt}>{new Date(item.createdAt).toLocaleString()}</time>
                 {!item.readAt && <span className="sr-only"> · unread</span>}
               </p>
-              <Link
+              <a
                 href={inboxHref(item)}
                 onClick={async (e) => {
                   e.preventDefault();
                   await markRead(item);
-                  router.push(inboxHref(item));
+                  // A full page load, exactly as the mailed link opens it (the bench reads ?thread= on load).
+                  window.location.assign(inboxHref(item));
                 }}
                 className="block break-words text-sm text-ink-100 hover:text-kerf-300 hover:underline"
               >
                 {item.text}
-              </Link>
+              </a>
             </div>
             {!item.readAt && (
               <button type="button" onClick={() => markRead(item)} className="shrink-0 rounded px-2 py-1 text-xs text-ink-300 hover:bg-ink-800">

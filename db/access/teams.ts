@@ -4,7 +4,7 @@ import { memberships, teams, users } from "../schema";
 import { authorize, type Actor, type Db } from "./context";
 import { recordAudit } from "./audit";
 import { ConflictError, NotFoundError } from "@/lib/server/errors";
-import { ACTIONS, can, type TeamRole } from "@/lib/auth/permissions";
+import type { TeamRole } from "@/lib/auth/permissions";
 import { endSessions } from "./sessions";
 
 export type MeDto = {
@@ -60,7 +60,10 @@ async function loadMembership(db: Db, teamId: string, userId: string) {
   return row;
 }
 
-/** Changes a member's role (owner only); the last owner cannot be demoted. */
+/**
+ * Changes a member's role (owner only); the last owner cannot be demoted. Sessions go on: the
+ * role is read from the database on every request, so the new one applies at once.
+ */
 export async function changeRole(db: Db, actor: Actor, teamId: string, userId: string, role: TeamRole): Promise<MemberDto> {
   await db.transaction(async (tx) => {
     await authorize(tx, actor, teamId, "manage_team", "That team");
@@ -74,9 +77,6 @@ export async function changeRole(db: Db, actor: Actor, teamId: string, userId: s
       .where(and(eq(memberships.teamId, teamId), eq(memberships.userId, userId)))
       .returning();
     await recordAudit(tx, actor, { teamId, action: "member.role_changed", entityType: "user", entityId: userId, before, after });
-    // A role that loses a right ends the member's sessions, so nothing issued under the old
-    // role outlives the change (rights themselves are read from the database on every request).
-    if (ACTIONS.some((a) => can(before.role, a) && !can(role, a))) await endSessions(tx, userId);
   });
   const members = await listMembers(db, actor, teamId);
   return members.find((m) => m.userId === userId)!;

@@ -67,12 +67,15 @@ describe("sessions end on the server", () => {
     expect((await again.request("POST", "/api/me/password", { currentPassword: "a-new-long-password", newPassword: DEMO_PASSWORD })).status).toBe(204);
   });
 
-  it("ends a member's sessions when a right is taken away, not when one is given", async () => {
+  it("ends a member's sessions when they are removed from a team; a role change applies at once without", async () => {
     const viewer = await signedIn(DEMO_EMAILS.viewer);
     const viewerId = userIds[DEMO_EMAILS.viewer];
-    expect((await clients.owner.request("PATCH", `/api/teams/${teamId}/members/${viewerId}`, { role: "reviewer" })).status).toBe(200);
-    expect((await viewer.get("/api/me")).status).toBe(200);
-    expect((await clients.owner.request("PATCH", `/api/teams/${teamId}/members/${viewerId}`, { role: "viewer" })).status).toBe(200);
+    const members = `/api/teams/${teamId}/members/${viewerId}`;
+    expect((await clients.owner.request("PATCH", members, { role: "reviewer" })).status).toBe(200);
+    expect((await viewer.get<{ teams: { role: string }[] }>("/api/me")).body.teams[0].role).toBe("reviewer");
+    expect((await clients.owner.request("PATCH", members, { role: "viewer" })).status).toBe(200);
+    expect((await viewer.get<{ teams: { role: string }[] }>("/api/me")).body.teams[0].role).toBe("viewer");
+    expect((await clients.owner.request("DELETE", members)).status).toBe(204);
     expect((await viewer.get("/api/me")).status).toBe(401);
   });
 });

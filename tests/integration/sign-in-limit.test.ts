@@ -41,6 +41,7 @@ describe("parallel guessing", () => {
     const attacker = "203.0.113.9";
     expect(await new ApiClient(server.url).signIn(DEMO_EMAILS.owner, DEMO_PASSWORD, from(usual))).not.toContain("error=");
     const answers = await Promise.all(Array.from({ length: 100 }, () => new ApiClient(server.url).signIn(DEMO_EMAILS.owner, "wrong-password", from(attacker))));
+    console.info(`[sign-in limit] 100 parallel guesses from one address: ${checkedCount(answers)} checked, ${refusedCount(answers)} refused`);
     expect(checkedCount(answers)).toBeLessThanOrEqual(10);
     expect(checkedCount(answers) + refusedCount(answers)).toBe(100);
     // The attacker's address is refused even with the right password, with the minutes to wait…
@@ -56,6 +57,7 @@ describe("parallel guessing", () => {
     const answers = await Promise.all(
       Array.from({ length: 100 }, (_, i) => new ApiClient(server.url).signIn(DEMO_EMAILS.outsider, "wrong-password", from(`192.0.2.${i + 1}`))),
     );
+    console.info(`[sign-in limit] 100 parallel guesses from 100 addresses: ${checkedCount(answers)} checked, ${refusedCount(answers)} refused`);
     expect(checkedCount(answers)).toBeLessThanOrEqual(10);
     expect(checkedCount(answers) + refusedCount(answers)).toBe(100);
     const fresh = await new ApiClient(server.url).signIn(DEMO_EMAILS.outsider, DEMO_PASSWORD, from("192.0.2.200"));

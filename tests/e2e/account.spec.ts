@@ -91,6 +91,35 @@ test.describe.serial("inbox, invitations and account", () => {
     expect((await api(owner, "DELETE", `/api/teams/${teamId}/members/${outsiderId}`)).status).toBe(204);
   });
 
+  test("the mailed invitation link asks a signed-in existing user too", async ({ browser }) => {
+    const owner = await as(browser, "owner");
+    const teamId = await demoTeamId(owner);
+    expect((await api(owner, "POST", `/api/teams/${teamId}/invitations`, { email: "outsider@elsewhere.test", role: "reviewer" })).status).toBe(201);
+    // The newest invitation mail to the outsider, from the local mailbox.
+    const messages = owner.getByRole("list", { name: "Messages" }).getByRole("button").filter({ hasText: /Invitation to join/ }).filter({ hasText: "outsider@elsewhere.test" });
+    await expect(async () => {
+      await owner.goto("/mailbox");
+      await expect(messages).toHaveCount(3, { timeout: 1000 });
+    }).toPass({ timeout: 30_000 });
+    await messages.first().click();
+    await expect(owner.getByRole("region", { name: "Message" })).toContainText("/invitations/");
+    const text = await owner.getByRole("region", { name: "Message" }).innerText();
+    const link = /(http:\/\/\S+\/invitations\/[A-Za-z0-9_-]+)/.exec(text)![1];
+
+    const outsider = await (await browser.newContext({ viewport: { width: 1280, height: 800 } })).newPage();
+    await signIn(outsider, "outsider@elsewhere.test");
+    await expect(outsider.getByRole("heading", { name: "Cases" })).toBeVisible();
+    await outsider.goto(new URL(link).pathname);
+    await expect(outsider.getByRole("heading", { name: "Join Fjordlight Failure Lab" })).toBeVisible();
+    await expect(outsider.getByText("Demo Owner invited you as reviewer")).toBeVisible();
+    const prompt = outsider.getByRole("region", { name: "Invitation to Fjordlight Failure Lab" });
+    await outsider.screenshot({ path: `${SHOTS}/invitation-link.png` });
+    await prompt.getByRole("button", { name: "Decline" }).click();
+    await expect(prompt.getByRole("status")).toHaveText("You declined the invitation to Fjordlight Failure Lab.");
+    await outsider.reload();
+    await expect(outsider.getByText("This invitation was declined.")).toBeVisible();
+  });
+
   test("the account page signs the user out everywhere", async ({ browser }) => {
     const laptop = await as(browser, "viewer");
     const desk = await as(browser, "viewer");

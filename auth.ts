@@ -3,6 +3,7 @@ import Credentials from "next-auth/providers/credentials";
 import { z } from "zod";
 import { authConfig } from "./auth.config";
 import { authSecret } from "@/lib/server/env";
+import { clientAddress } from "@/lib/server/client-address";
 
 /** Sign-in refused because of too many failures; the code carries the minutes to wait. */
 class TooManyAttempts extends CredentialsSignin {
@@ -14,26 +15,45 @@ class TooManyAttempts extends CredentialsSignin {
 
 const credentialsSchema = z.object({ email: z.string().trim().min(1).max(320), password: z.string().min(1).max(200) });
 
+async function db() {
+  const { database } = await import("@/db/client");
+  return database();
+}
+
 // Lazy configuration: the database is opened by the first request, never at build time.
 export const { handlers, auth, signIn, signOut } = NextAuth(async () => ({
   ...authConfig,
   secret: authSecret(),
+  callbacks: {
+    ...authConfig.callbacks,
+    // Runs wherever the session is read (pages, actions, route handlers, /api/auth/session):
+    // a token whose session version is no longer the account's is dropped, cookie and all.
+    async jwt({ token, user }) {
+      if (user?.id) return { ...token, sub: user.id, sv: user.sessionVersion ?? 0 };
+      if (!token.sub) return null;
+      const { sessionVersionOf } = await import("@/db/access/sessions");
+      const current = await sessionVersionOf(await db(), token.sub);
+      return current !== null && current === (token.sv ?? 0) ? token : null;
+    },
+  },
+  events: {
+    // Signing out ends every session of the account (per-user version; see README "Sessions").
+    async signOut(message) {
+      const token = "token" in message ? message.token : null;
+      if (!token?.sub) return;
+      const { endSessions } = await import("@/db/access/sessions");
+      await endSessions(await db(), token.sub, token.sv ?? 0);
+    },
+  },
   providers: [
     Credentials({
       credentials: { email: { label: "E-mail" }, password: { label: "Password", type: "password" } },
-      async authorize(raw) {
+      async authorize(raw, request) {
         const parsed = credentialsSchema.safeParse(raw);
         if (!parsed.success) return null;
-        const { database } = await import("@/db/client");
         const { authenticate } = await import("@/db/access/users");
-        const db = await database();
-        const result = await authenticate(db, parsed.data.email, parsed.data.password);
-        if (result.ok) {
-          // An existing user invited to another team joins it on signing in.
-          const { acceptInvitationsOnSignIn } = await import("@/db/access/invitations");
-          await acceptInvitationsOnSignIn(db, result.user);
-          return result.user;
-        }
+        const result = await authenticate(await db(), parsed.data.email, parsed.data.password, clientAddress(request.headers));
+        if (result.ok) return result.user;
         if (result.reason === "locked") throw new TooManyAttempts(result.retryInMinutes);
         return null;
       },

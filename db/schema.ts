@@ -33,6 +33,8 @@ export const users = pgTable(
     email: text("email").notNull(),
     name: text("name").notNull(),
     passwordHash: text("password_hash"),
+    /** Stored in every session token; raising it ends every session issued before. */
+    sessionVersion: integer("session_version").notNull().default(0),
     createdAt: createdAt(),
   },
   (t) => [uniqueIndex("users_email_lower_idx").on(sql`lower(${t.email})`)],
@@ -213,10 +215,13 @@ export const signInAttempts = pgTable(
     id: uuid("id").primaryKey().defaultRandom(),
     /** Lower-cased e-mail as typed, whether or not an account exists. */
     email: text("email").notNull(),
+    /** The client address the attempt came from (see lib/server/client-address.ts). */
+    address: text("address").notNull().default(""),
+    /** Recorded as a failure before the password is checked; set true when it matched. */
     succeeded: boolean("succeeded").notNull(),
     at: timestamp("at", { withTimezone: true }).notNull().defaultNow(),
   },
-  (t) => [index("sign_in_attempts_email_at_idx").on(t.email, t.at)],
+  (t) => [index("sign_in_attempts_email_at_idx").on(t.email, t.at), index("sign_in_attempts_address_at_idx").on(t.address, t.at)],
 );
 
 export const threadStatusEnum = pgEnum("thread_status", ["open", "resolved"]);
@@ -298,6 +303,8 @@ export const invitations = pgTable(
     acceptedAt: timestamp("accepted_at", { withTimezone: true }),
     acceptedBy: uuid("accepted_by").references(() => users.id, { onDelete: "set null" }),
     revokedAt: timestamp("revoked_at", { withTimezone: true }),
+    /** An existing user said no to it (they are asked; nobody joins a team silently). */
+    declinedAt: timestamp("declined_at", { withTimezone: true }),
     createdAt: createdAt(),
   },
   (t) => [uniqueIndex("invitations_token_idx").on(t.tokenHash), index("invitations_team_idx").on(t.teamId)],
@@ -364,6 +371,28 @@ export const exports = pgTable(
   (t) => [index("exports_die_idx").on(t.dieId, t.createdAt)],
 );
 
+/**
+ * A user's in-app inbox: one item per mention, comment or review event addressed to them,
+ * written where the matching mail is queued (whatever their mail settings), read by that user only.
+ */
+export const inboxItems = pgTable(
+  "inbox_items",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    userId: uuid("user_id").notNull().references(() => users.id, { onDelete: "cascade" }),
+    teamId: uuid("team_id").notNull().references(() => teams.id, { onDelete: "cascade" }),
+    kind: text("kind").notNull(),
+    dieId: uuid("die_id").notNull().references(() => dies.id, { onDelete: "cascade" }),
+    threadId: uuid("thread_id").references(() => threads.id, { onDelete: "cascade" }),
+    text: text("text").notNull(),
+    /** Names the event and the recipient, like the outbox's: one item per event and person. */
+    dedupeKey: text("dedupe_key").notNull(),
+    readAt: timestamp("read_at", { withTimezone: true }),
+    createdAt: createdAt(),
+  },
+  (t) => [uniqueIndex("inbox_items_dedupe_idx").on(t.dedupeKey), index("inbox_items_user_idx").on(t.userId, t.createdAt)],
+);
+
 export type User = typeof users.$inferSelect;
 export type Team = typeof teams.$inferSelect;
 export type Membership = typeof memberships.$inferSelect;
@@ -381,3 +410,4 @@ export type InvitationRow = typeof invitations.$inferSelect;
 export type OutboxRow = typeof outbox.$inferSelect;
 export type ExportRow = typeof exports.$inferSelect;
 export type MarkupRow = typeof markup.$inferSelect;
+export type InboxItemRow = typeof inboxItems.$inferSelect;

@@ -3,9 +3,17 @@ import { Wordmark } from "@/components/ui/wordmark";
 import { loadPage } from "@/lib/server/page";
 import { getMe } from "@/db/access/teams";
 import { isLocalMailMode } from "@/lib/server/mail/local-mail";
+import { listMyInvitations } from "@/db/access/invitations";
+import { unreadInboxCount } from "@/db/access/inbox";
+import { InboxLink } from "@/components/account/inbox-link";
+import { InvitationPrompts } from "@/components/account/invitation-prompts";
 
 export default async function WorkspaceLayout({ children }: { children: React.ReactNode }) {
-  const me = await loadPage(({ db, actor }) => getMe(db, actor));
+  const { me, invitations, unread } = await loadPage(async ({ db, actor }) => ({
+    me: await getMe(db, actor),
+    invitations: await listMyInvitations(db, actor),
+    unread: await unreadInboxCount(db, actor),
+  }));
   return (
     <div className="flex min-h-screen flex-col">
       <header className="flex items-center gap-6 border-b border-ink-800 bg-ink-900 px-5 py-2.5">
@@ -23,9 +31,10 @@ export default async function WorkspaceLayout({ children }: { children: React.Re
           ))}
         </nav>
         <div className="ml-auto flex items-center gap-3 text-sm">
-          <span className="text-ink-300" data-testid="signed-in-as">
+          <InboxLink initialUnread={unread} />
+          <Link href="/account" className="rounded px-2 py-1 text-ink-300 hover:bg-ink-800" data-testid="signed-in-as">
             {me.user.name} <span className="text-ink-400">({me.user.email})</span>
-          </span>
+          </Link>
           {me.teams.some((t) => t.role === "owner") && isLocalMailMode() && (
             <Link href="/mailbox" className="rounded px-2 py-1 text-ink-200 hover:bg-ink-800">
               Mailbox
@@ -39,6 +48,7 @@ export default async function WorkspaceLayout({ children }: { children: React.Re
           </Link>
         </div>
       </header>
+      <InvitationPrompts invitations={invitations} />
       <main className="mx-auto w-full max-w-6xl flex-1 p-6">{children}</main>
     </div>
   );

@@ -1,6 +1,7 @@
 "use client";
 
 import Link from "next/link";
+import { InboxLink } from "@/components/account/inbox-link";
 import { useRouter } from "next/navigation";
 import { useMemo, useState } from "react";
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
@@ -87,7 +88,8 @@ export function DieBench({ initial, userId, linkedThreadId = null }: { initial: 
           / <h1 className="inline text-sm font-semibold text-ink-100">{die.name}</h1>
         </nav>
         <ReviewBadge status={die.reviewStatus} />
-        <div className="ml-auto flex gap-2">
+        <div className="ml-auto flex items-center gap-2 text-sm">
+          <InboxLink initialUnread={0} />
           {editable && (
             <>
               <Button onClick={() => setDialog("edit")}>Edit die</Button>

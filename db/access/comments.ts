@@ -8,6 +8,8 @@ import { loadThread, getThread, type ThreadDto } from "./threads";
 import { ForbiddenError, NotFoundError } from "@/lib/server/errors";
 import { resolveMentions } from "@/lib/review/mentions";
 import { commentMail } from "@/lib/review/mail-templates";
+import { inboxText } from "@/lib/review/inbox-text";
+import { addInboxItems } from "./inbox";
 
 /** The deep link to one thread: the die bench opens zoomed to it. */
 export function threadLink(origin: string, dieId: string, threadId: string): string {
@@ -27,12 +29,23 @@ async function notifyComment(
   const author = p.people.find((m) => m.userId === actor.userId)?.name ?? "Someone";
   const link = threadLink(p.origin, p.thread.dieId, p.thread.id);
   const mentioned = p.people.filter((m) => p.mentioned.includes(m.userId) && m.userId !== actor.userId);
+  const others = p.people.filter((m) => p.threadMembers.has(m.userId) && m.userId !== actor.userId && !p.mentioned.includes(m.userId));
+  // The inbox gets every item whatever the mail settings: those choose mail only.
+  const item = (kind: "mention" | "comment", m: TeamPerson) => ({
+    userId: m.userId,
+    teamId: p.teamId,
+    kind,
+    dieId: p.thread.dieId,
+    threadId: p.thread.id,
+    text: inboxText({ kind, author, dieName: p.dieName, body: p.body }),
+    dedupeKey: `${kind}:${p.commentId}:${m.userId}`,
+  });
+  await addInboxItems(db, [...mentioned.map((m) => item("mention", m)), ...others.map((m) => item("comment", m))]);
   for (const m of await wantingMail(db, mentioned, "mention")) {
     const content = commentMail({ kind: "mention", author, dieName: p.dieName, body: p.body, link });
     await enqueueMail(db, { teamId: p.teamId, kind: "mention", to: m.email, content, dedupeKey: `mention:${p.commentId}:${m.userId}` });
   }
   // Others in the thread hear of the comment, unless a mention already told them.
-  const others = p.people.filter((m) => p.threadMembers.has(m.userId) && m.userId !== actor.userId && !p.mentioned.includes(m.userId));
   for (const m of await wantingMail(db, others, "comment")) {
     const content = commentMail({ kind: "comment", author, dieName: p.dieName, body: p.body, link });
     await enqueueMail(db, { teamId: p.teamId, kind: "comment", to: m.email, content, dedupeKey: `comment:${p.commentId}:${m.userId}` });

@@ -15,7 +15,7 @@ export type InvitationDto = { id: string; email: string; role: TeamRole; invited
 
 const toDto = (r: InvitationRow): InvitationDto => ({ id: r.id, email: r.email, role: r.role, invitedBy: r.invitedBy, expiresAt: r.expiresAt.toISOString(), createdAt: r.createdAt.toISOString() });
 
-const pending = (now: Date) => and(isNull(invitations.acceptedAt), isNull(invitations.revokedAt), gt(invitations.expiresAt, now));
+const pending = (now: Date) => and(isNull(invitations.acceptedAt), isNull(invitations.declinedAt), isNull(invitations.revokedAt), gt(invitations.expiresAt, now));
 
 /** Invites someone by e-mail with a role (owner only); the link goes out by mail only. */
 export async function createInvitation(db: Db, actor: Actor, teamId: string, input: { email: string; role: TeamRole }, origin: string): Promise<InvitationDto> {
@@ -58,21 +58,31 @@ export async function revokeInvitation(db: Db, actor: Actor, teamId: string, inv
   });
 }
 
-export type InvitationView = { state: InvitationState; teamName: string; email: string; role: TeamRole; accountExists: boolean };
+export type InvitationView = { id: string; state: InvitationState; teamName: string; email: string; role: TeamRole; inviterName: string | null; accountExists: boolean };
 
 /** What the invitation page shows for a token (no sign-in needed: the token is the proof). */
 export async function viewInvitation(db: Db, token: string): Promise<InvitationView> {
   const [row] = await db
-    .select({ inv: invitations, teamName: teams.name })
+    .select({ inv: invitations, teamName: teams.name, inviterName: users.name })
     .from(invitations)
     .innerJoin(teams, eq(teams.id, invitations.teamId))
+    .leftJoin(users, eq(users.id, invitations.invitedBy))
     .where(eq(invitations.tokenHash, hashInvitationToken(token)));
   if (!row) throw new NotFoundError("That invitation");
-  return { state: invitationState(row.inv, new Date()), teamName: row.teamName, email: row.inv.email, role: row.inv.role, accountExists: !!(await findUserByEmail(db, row.inv.email)) };
+  return {
+    id: row.inv.id,
+    state: invitationState(row.inv, new Date()),
+    teamName: row.teamName,
+    email: row.inv.email,
+    role: row.inv.role,
+    inviterName: row.inviterName,
+    accountExists: !!(await findUserByEmail(db, row.inv.email)),
+  };
 }
 
 const GONE: Record<Exclude<InvitationState, "pending">, string> = {
   accepted: "This invitation link has already been used.",
+  declined: "This invitation was declined.",
   revoked: "This invitation was revoked by the team's owner.",
   expired: "This invitation has expired; ask the team's owner for a new one.",
 };
@@ -95,7 +105,7 @@ export async function acceptInvitation(db: Db, caller: Actor | null, input: { to
     const state = invitationState(found, new Date());
     if (state !== "pending") throw new AppError(410, GONE[state]);
     const existing = await findUserByEmail(tx, found.email);
-    if (existing && caller?.userId !== existing.id) throw new ConflictError(`An account for ${found.email} already exists: sign in with it and the invitation is accepted.`);
+    if (existing && caller?.userId !== existing.id) throw new ConflictError(`An account for ${found.email} already exists: sign in with it to accept or decline the invitation.`);
     if (!existing && (!input.name || !input.password)) throw new BadRequestError("Invalid body: name and password are required to create your account.");
     const userId = existing?.id ?? (await tx.insert(users).values({ email: found.email, name: input.name!, passwordHash: await hashPassword(input.password!) }).returning())[0].id;
     const [claimed] = await tx.update(invitations).set({ acceptedAt: new Date(), acceptedBy: userId }).where(and(eq(invitations.id, found.id), pending(new Date()))).returning();
@@ -105,15 +115,70 @@ export async function acceptInvitation(db: Db, caller: Actor | null, input: { to
   });
 }
 
-/** On sign-in, an existing user joins every team with a pending invitation to their address. */
-export async function acceptInvitationsOnSignIn(db: Db, user: { id: string; email: string }): Promise<number> {
+export type MyInvitationDto = {
+  id: string;
+  teamId: string;
+  teamName: string;
+  role: TeamRole;
+  invitedBy: { id: string; name: string } | null;
+  expiresAt: string;
+  createdAt: string;
+};
+
+const toAddress = (email: string) => sql`lower(${invitations.email}) = ${email.trim().toLowerCase()}`;
+
+async function myAddress(db: Db, actor: Actor): Promise<string> {
+  const [me] = await db.select({ email: users.email }).from(users).where(eq(users.id, actor.userId));
+  if (!me) throw new NotFoundError("Your account");
+  return me.email;
+}
+
+/**
+ * Pending invitations to the caller's address, newest first, with team, role and inviter: an
+ * existing user is asked, and joins nothing until they accept.
+ */
+export async function listMyInvitations(db: Db, actor: Actor): Promise<MyInvitationDto[]> {
+  const email = await myAddress(db, actor);
+  const rows = await db
+    .select({ inv: invitations, teamName: teams.name, inviterName: users.name })
+    .from(invitations)
+    .innerJoin(teams, eq(teams.id, invitations.teamId))
+    .leftJoin(users, eq(users.id, invitations.invitedBy))
+    .where(and(toAddress(email), pending(new Date())))
+    .orderBy(desc(invitations.createdAt));
+  return rows.map(({ inv, teamName, inviterName }) => ({
+    id: inv.id,
+    teamId: inv.teamId,
+    teamName,
+    role: inv.role,
+    invitedBy: inv.invitedBy && inviterName ? { id: inv.invitedBy, name: inviterName } : null,
+    expiresAt: inv.expiresAt.toISOString(),
+    createdAt: inv.createdAt.toISOString(),
+  }));
+}
+
+/**
+ * Answers one of the caller's own pending invitations. Accepting joins the team with the
+ * invited role; declining closes the invitation (the owner may invite again). 404 for an
+ * invitation to another address, 410 when it is no longer pending. One UPDATE … WHERE pending,
+ * so two answers to the same invitation cannot both count.
+ */
+export async function answerMyInvitation(db: Db, actor: Actor, invitationId: string, answer: "accept" | "decline"): Promise<{ teamId: string; joined: boolean }> {
   return db.transaction(async (tx) => {
-    const claimed = await tx
-      .update(invitations)
-      .set({ acceptedAt: new Date(), acceptedBy: user.id })
-      .where(and(sql`lower(${invitations.email}) = ${user.email.toLowerCase()}`, pending(new Date())))
-      .returning();
-    for (const inv of claimed) await join(tx, inv, user.id);
-    return claimed.length;
+    const email = await myAddress(tx, actor);
+    const [found] = await tx.select().from(invitations).where(and(eq(invitations.id, invitationId), toAddress(email)));
+    if (!found) throw new NotFoundError("That invitation");
+    const state = invitationState(found, new Date());
+    if (state !== "pending") throw new AppError(410, GONE[state]);
+    const now = new Date();
+    const set = answer === "accept" ? { acceptedAt: now, acceptedBy: actor.userId } : { declinedAt: now };
+    const [claimed] = await tx.update(invitations).set(set).where(and(eq(invitations.id, found.id), pending(now))).returning();
+    if (!claimed) throw new AppError(410, "This invitation was answered already.");
+    if (answer === "accept") {
+      await join(tx, claimed, actor.userId);
+    } else {
+      await recordAudit(tx, actor, { teamId: claimed.teamId, action: "invitation.declined", entityType: "invitation", entityId: claimed.id, after: { userId: actor.userId } });
+    }
+    return { teamId: claimed.teamId, joined: answer === "accept" };
   });
 }

@@ -9,6 +9,8 @@ import { ConflictError, ForbiddenError } from "@/lib/server/errors";
 import { can } from "@/lib/auth/permissions";
 import { nextReviewStatus, rightFor, transitionRefusal, type ReviewAction, type ReviewStatus } from "@/lib/review/review-status";
 import { reviewMail } from "@/lib/review/mail-templates";
+import { inboxText } from "@/lib/review/inbox-text";
+import { addInboxItems } from "./inbox";
 
 export type ReviewEventDto = {
   id: string;
@@ -77,6 +79,9 @@ async function notifyReview(
     : people.filter((m) => m.userId === p.analystId && m.userId !== actor.userId);
   const kind = submit ? "review_submitted" : "review_decision";
   const content = reviewMail({ action: p.action, actor: me, dieName: p.dieName, message: p.message, link: `${p.origin}/dies/${p.dieId}` });
+  // The inbox gets every item whatever the mail settings: those choose mail only.
+  const text = inboxText({ kind: "review", action: p.action, author: me, dieName: p.dieName, message: p.message });
+  await addInboxItems(db, recipients.map((m) => ({ userId: m.userId, teamId: p.teamId, kind, dieId: p.dieId, text, dedupeKey: `${kind}:${p.eventId}:${m.userId}` })));
   for (const m of await wantingMail(db, recipients, kind)) {
     await enqueueMail(db, { teamId: p.teamId, kind, to: m.email, content, dedupeKey: `${kind}:${p.eventId}:${m.userId}` });
   }

@@ -5,6 +5,7 @@ import { authorize, type Actor, type Db } from "./context";
 import { recordAudit } from "./audit";
 import { ConflictError, NotFoundError } from "@/lib/server/errors";
 import type { TeamRole } from "@/lib/auth/permissions";
+import { endSessions } from "./sessions";
 
 export type MeDto = {
   user: { id: string; email: string; name: string };
@@ -59,7 +60,10 @@ async function loadMembership(db: Db, teamId: string, userId: string) {
   return row;
 }
 
-/** Changes a member's role (owner only); the last owner cannot be demoted. */
+/**
+ * Changes a member's role (owner only); the last owner cannot be demoted. Sessions go on: the
+ * role is read from the database on every request, so the new one applies at once.
+ */
 export async function changeRole(db: Db, actor: Actor, teamId: string, userId: string, role: TeamRole): Promise<MemberDto> {
   await db.transaction(async (tx) => {
     await authorize(tx, actor, teamId, "manage_team", "That team");
@@ -78,7 +82,7 @@ export async function changeRole(db: Db, actor: Actor, teamId: string, userId: s
   return members.find((m) => m.userId === userId)!;
 }
 
-/** Removes a member from a team (owner only); the last owner cannot be removed. */
+/** Removes a member from a team (owner only; their sessions end); the last owner cannot be removed. */
 export async function removeMember(db: Db, actor: Actor, teamId: string, userId: string): Promise<void> {
   await db.transaction(async (tx) => {
     await authorize(tx, actor, teamId, "manage_team", "That team");
@@ -88,5 +92,6 @@ export async function removeMember(db: Db, actor: Actor, teamId: string, userId:
     }
     await tx.delete(memberships).where(and(eq(memberships.teamId, teamId), eq(memberships.userId, userId)));
     await recordAudit(tx, actor, { teamId, action: "member.removed", entityType: "user", entityId: userId, before });
+    await endSessions(tx, userId);
   });
 }

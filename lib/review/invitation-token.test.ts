@@ -26,5 +26,6 @@ describe("invitationState", () => {
   it("reports accepted before revoked", () => {
     expect(invitationState({ acceptedAt: now, revokedAt: now, expiresAt: now }, now)).toBe("accepted");
     expect(invitationState({ acceptedAt: null, revokedAt: now, expiresAt: new Date(now.getTime() + 1) }, now)).toBe("revoked");
+    expect(invitationState({ acceptedAt: null, declinedAt: now, revokedAt: null, expiresAt: new Date(now.getTime() + 1) }, now)).toBe("declined");
   });
 });

@@ -13,11 +13,12 @@ export function hashInvitationToken(token: string): string {
   return createHash("sha256").update(token, "utf8").digest("hex");
 }
 
-export type InvitationState = "pending" | "accepted" | "revoked" | "expired";
+export type InvitationState = "pending" | "accepted" | "declined" | "revoked" | "expired";
 
 /** Where an invitation stands at `now`. */
-export function invitationState(inv: { acceptedAt: Date | null; revokedAt: Date | null; expiresAt: Date }, now: Date): InvitationState {
+export function invitationState(inv: { acceptedAt: Date | null; declinedAt?: Date | null; revokedAt: Date | null; expiresAt: Date }, now: Date): InvitationState {
   if (inv.acceptedAt) return "accepted";
+  if (inv.declinedAt) return "declined";
   if (inv.revokedAt) return "revoked";
   return inv.expiresAt.getTime() <= now.getTime() ? "expired" : "pending";
 }

@@ -116,10 +116,14 @@ describe("the mail outbox", () => {
     expect(res.body.error).toMatch(/expired/);
   });
 
-  it("lets an existing user join by signing in", async () => {
+  it("asks an existing user instead of joining them at sign-in", async () => {
     expect((await clients.owner.request("POST", `/api/teams/${teamId}/invitations`, { email: DEMO_EMAILS.outsider, role: "viewer" })).status).toBe(201);
     const outsider = new ApiClient(server.url);
     await outsider.signIn(DEMO_EMAILS.outsider);
+    expect((await outsider.get<{ teams: { id: string }[] }>("/api/me")).body.teams.some((t) => t.id === teamId)).toBe(false);
+    const [invitation] = (await outsider.get<{ items: { id: string; teamId: string; role: string }[] }>("/api/me/invitations")).body.items;
+    expect(invitation).toMatchObject({ teamId, role: "viewer" });
+    expect((await outsider.request("POST", `/api/me/invitations/${invitation.id}/accept`)).status).toBe(200);
     const me = (await outsider.get<{ teams: { id: string; role: string }[] }>("/api/me")).body;
     expect(me.teams.find((t) => t.id === teamId)?.role).toBe("viewer");
   });

@@ -19,13 +19,15 @@ beforeAll(async () => {
 afterAll(() => server?.stop());
 
 describe("team membership management by the owner", () => {
-  it("removes a member, who then sees the team's cases as 404", async () => {
+  it("removes a member, whose sessions end, and who then sees the team's cases as 404", async () => {
     const viewer = (await demoClients(server.url)).viewer;
     const list = await viewer.get<{ id: string }[]>("/api/cases");
     const caseId = list.body[0].id;
     expect((await owner.request("DELETE", `/api/teams/${teamId}/members/${ids.viewer}`)).status).toBe(204);
-    expect((await viewer.get(`/api/cases/${caseId}`)).status).toBe(404);
-    expect((await viewer.get<unknown[]>("/api/cases")).body).toEqual([]);
+    expect((await viewer.get(`/api/cases/${caseId}`)).status).toBe(401);
+    const again = (await demoClients(server.url)).viewer;
+    expect((await again.get(`/api/cases/${caseId}`)).status).toBe(404);
+    expect((await again.get<unknown[]>("/api/cases")).body).toEqual([]);
   });
 
   it("refuses to demote or remove the last owner and changes nothing", async () => {

@@ -28,19 +28,41 @@ export class ApiClient {
     }
   }
 
-  /** Signs in; returns the redirect target (contains `error=` on failure). */
-  async signIn(email: string, password = DEMO_PASSWORD): Promise<string> {
+  /** Signs in; returns the redirect target (contains `error=` on failure). `headers` go with the sign-in POST. */
+  async signIn(email: string, password = DEMO_PASSWORD, headers: Record<string, string> = {}): Promise<string> {
     const csrfRes = await fetch(`${this.baseUrl}/api/auth/csrf`, { headers: { cookie: this.cookieHeader() } });
     this.keep(csrfRes);
     const { csrfToken } = (await csrfRes.json()) as { csrfToken: string };
     const res = await fetch(`${this.baseUrl}/api/auth/callback/credentials`, {
       method: "POST",
       redirect: "manual",
-      headers: { "content-type": "application/x-www-form-urlencoded", cookie: this.cookieHeader() },
+      headers: { "content-type": "application/x-www-form-urlencoded", cookie: this.cookieHeader(), ...headers },
       body: new URLSearchParams({ csrfToken, email, password }).toString(),
     });
     this.keep(res);
     return res.headers.get("location") ?? "";
+  }
+
+  /** Signs out through Auth.js's own endpoint, as the browser's sign-out does; returns the status. */
+  async signOut(): Promise<number> {
+    const csrfRes = await fetch(`${this.baseUrl}/api/auth/csrf`, { headers: { cookie: this.cookieHeader() } });
+    this.keep(csrfRes);
+    const { csrfToken } = (await csrfRes.json()) as { csrfToken: string };
+    const res = await fetch(`${this.baseUrl}/api/auth/signout`, {
+      method: "POST",
+      redirect: "manual",
+      headers: { "content-type": "application/x-www-form-urlencoded", cookie: this.cookieHeader() },
+      body: new URLSearchParams({ csrfToken }).toString(),
+    });
+    this.keep(res);
+    return res.status;
+  }
+
+  /** A second client holding a copy of this one's cookies: a replayed session token. */
+  replay(): ApiClient {
+    const copy = new ApiClient(this.baseUrl);
+    for (const [k, v] of this.cookies) copy.cookies.set(k, v);
+    return copy;
   }
 
   /** A raw request with the session cookie; `body` strings are sent as they are. */

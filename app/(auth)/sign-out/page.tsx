@@ -11,7 +11,7 @@ export default function SignOutPage() {
   return (
     <form action={doSignOut} className="flex flex-col gap-4">
       <h1 className="text-lg font-semibold">Sign out</h1>
-      <p className="text-sm text-ink-300">You will need your password to come back.</p>
+      <p className="text-sm text-ink-300">This ends your sessions on every device, and you will need your password to come back.</p>
       <button type="submit" className="rounded-md bg-kerf-500 px-3 py-2 text-sm font-semibold text-ink-950 hover:bg-kerf-400">
         Sign out
       </button>

@@ -8,6 +8,7 @@ import { NotFoundError } from "@/lib/server/errors";
 import { currentActor } from "@/lib/server/session";
 import { ROLE_LABELS } from "@/lib/auth/permissions";
 import { AcceptForm } from "./accept-form";
+import { InvitationPrompt } from "@/components/account/invitation-prompts";
 
 export const metadata: Metadata = { title: "Invitation" };
 
@@ -15,6 +16,7 @@ const GONE = {
   accepted: "This invitation link has already been used.",
   revoked: "This invitation was revoked by the team's owner.",
   expired: "This invitation has expired; ask the team's owner for a new one.",
+  declined: "This invitation was declined.",
 } as const;
 
 /** The page an invitation mail links to: the token is the proof, no sign-in needed. */
@@ -41,14 +43,16 @@ export default async function InvitationPage({ params }: { params: Promise<{ tok
     <>
       {heading}
       <p className="mb-4 text-sm text-ink-300">
-        You are invited as <strong>{ROLE_LABELS[view.role].toLowerCase()}</strong> with the address {view.email}.
+        {view.inviterName ?? "A team owner"} invited you as <strong>{ROLE_LABELS[view.role].toLowerCase()}</strong> with the address {view.email}.
       </p>
-      {view.accountExists && !signedInAsInvitee ? (
+      {signedInAsInvitee ? (
+        <InvitationPrompt invitation={{ id: view.id, teamName: view.teamName, role: view.role, inviterName: view.inviterName }} />
+      ) : view.accountExists ? (
         <p className="text-sm text-ink-200">
-          An account for this address exists. <Link href="/sign-in" className="text-kerf-300 underline">Sign in</Link> with it and you join the team.
+          An account for this address exists. <Link href="/sign-in" className="text-kerf-300 underline">Sign in</Link> with it and you will be asked to join the team or decline.
         </p>
       ) : (
-        <AcceptForm token={token} needsAccount={!view.accountExists} />
+        <AcceptForm token={token} needsAccount />
       )}
     </>
   );

@@ -1,0 +1,11 @@
+import type { Metadata } from "next";
+import { loadPage } from "@/lib/server/page";
+import { getMe } from "@/db/access/teams";
+import { AccountView } from "@/components/account/account-view";
+
+export const metadata: Metadata = { title: "Account" };
+
+export default async function AccountPage() {
+  const me = await loadPage(({ db, actor }) => getMe(db, actor));
+  return <AccountView me={me} />;
+}

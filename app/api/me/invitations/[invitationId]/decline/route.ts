@@ -1,0 +1,6 @@
+import { apiRoute } from "@/lib/server/route";
+import { answerMyInvitation } from "@/db/access/invitations";
+import { myInvitationParams } from "@/lib/validation/account";
+
+/** Decline one of the caller's pending invitations: `{ teamId, joined }` (404 not theirs, 410 no longer pending). */
+export const POST = apiRoute({ params: myInvitationParams }, ({ db, actor, params }) => answerMyInvitation(db, actor, params.invitationId, "decline"));

@@ -1,0 +1,8 @@
+import { apiRoute, noContent } from "@/lib/server/route";
+import { endSessions } from "@/db/access/sessions";
+
+/** Signs the caller out everywhere: every session issued so far, this one included, ends (204). */
+export const DELETE = apiRoute({}, async ({ db, actor }) => {
+  await endSessions(db, actor.userId);
+  return noContent();
+});

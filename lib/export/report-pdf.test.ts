@@ -5,7 +5,7 @@ import { tmpdir } from "node:os";
 import { join } from "node:path";
 import sharp from "sharp";
 import { buildReportPdf, type ReportData } from "./report-pdf";
-import { wrapText } from "./pdf-layout";
+import { wrapText } from "./wrap-text";
 
 // The report read back by poppler's pdftotext (an independent PDF reader): every review message,
 // reply and saved estimate is there in full, and the layout flows instead of one page a section.

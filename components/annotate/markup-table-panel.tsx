@@ -67,7 +67,7 @@ export function MarkupTablePanel({ dieId, shapes, authors, editor, canEdit, onPi
           CSV
         </a>
       </div>
-      <DataTable data={rows} columns={columns} filterLabel="Filter markup" empty="No markup yet." />
+      <DataTable data={rows} columns={columns} filterLabel="Filter markup" empty="No markup yet." scrollable />
     </section>
   );
 }

@@ -52,7 +52,7 @@ export function PadTablePanel({ dieId, selection, onPick }: { dieId: string; sel
       {t.summary.probedNotBonded.length > 0 && (
         <p className="text-xs text-ink-300">Probed, not bonded: {t.summary.probedNotBonded.map((p) => p.label || `#${p.number}`).join(", ")}</p>
       )}
-      <DataTable data={[...t.rows]} columns={columns} filterLabel="Filter pads" empty="No pads marked yet. Draw them with the Pad tool (P)." />
+      <DataTable data={[...t.rows]} columns={columns} filterLabel="Filter pads" empty="No pads marked yet. Draw them with the Pad tool (P)." scrollable />
     </section>
   );
 }

@@ -19,6 +19,7 @@ import { DieDetails } from "./die-details";
 import { useMicrographs } from "./use-micrographs";
 import { ViewerPane } from "./viewer-pane";
 import { SideTabs } from "./side-tabs";
+import { PanelResizer, useSidePanelWidth } from "./panel-resizer";
 import type { ViewerApi } from "@/components/viewer";
 import { MarkupOverlay } from "@/components/annotate/markup-overlay";
 import { ToolBar } from "@/components/annotate/tool-bar";
@@ -41,7 +42,7 @@ import { MicrographsManager } from "@/components/compare/micrographs-manager";
 import type { WorkMode } from "@/components/compare/work-mode";
 
 /** The die bench: a top bar with the die's identity, the work area, and a side panel. */
-export function DieBench({ initial, userId }: { initial: DieDto; userId: string }) {
+export function DieBench({ initial, userId, linkedThreadId = null }: { initial: DieDto; userId: string; linkedThreadId?: string | null }) {
   const router = useRouter();
   const qc = useQueryClient();
   const [dialog, setDialog] = useState<null | "edit" | "delete" | "upload">(null);
@@ -60,8 +61,9 @@ export function DieBench({ initial, userId }: { initial: DieDto; userId: string 
   const state = useEditorState(editor);
   const ws = useMarkupWorkspace(editor, state, api, (compareTop ?? shown)?.transform ?? null, die.teamId, die.id);
   const symmetry = useSymmetryView(state?.shapeList);
-  const review = useReviewBench(die.id, state, api, shown?.transform ?? null, ws.pick);
+  const review = useReviewBench(die.id, state, api, shown?.transform ?? null, ws.pick, linkedThreadId);
   const drawers = useMemo(() => [...symmetry.drawers, review.drawer], [symmetry.drawers, review.drawer]);
+  const panel = useSidePanelWidth();
   const update = useMutation({
     mutationFn: (body: unknown) => apiFetch<DieDto>(`/api/dies/${die.id}`, { method: "PATCH", body }),
     onSuccess: (d) => qc.setQueryData(["die", die.id], d),
@@ -125,7 +127,8 @@ export function DieBench({ initial, userId }: { initial: DieDto; userId: string 
           )}
           {loadError && <p role="alert" className="absolute left-3 top-3 text-sm text-danger-400">{loadError}</p>}
         </section>
-        <aside aria-label="Die panel" className="flex w-96 shrink-0 flex-col border-l border-ink-800 bg-ink-900">
+        <PanelResizer width={panel.width} onResize={panel.resize} />
+        <aside aria-label="Die panel" className="flex shrink-0 flex-col bg-ink-900" style={{ width: panel.width }}>
           <SideTabs
             initial={review.linkedAtStart ? "review" : undefined}
             tabs={[

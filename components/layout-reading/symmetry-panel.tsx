@@ -101,7 +101,7 @@ export function SymmetryPanel({ view, shapes, onPick }: { view: SymmetryView; sh
             {r.summary.pairCount} pairs, {r.summary.withinToleranceCount} within tolerance · largest offset {f2(r.summary.maxDeviationUm)} µm · mean {f2(r.summary.meanDeviationUm)} µm · {r.summary.onAxisCount} on the axis · {r.unmatched.length} without a partner
           </p>
           <DeviationChart deviations={rows.map((p) => p.deviationUm)} toleranceUm={r.options.toleranceUm} fullScaleUm={view.fullScaleUm} />
-          <DataTable data={rows} columns={columns} filterLabel="Filter pairs" empty="No pads, blocks or traces to pair." initialSort={[{ id: "deviationUm", desc: true }]} />
+          <DataTable data={rows} columns={columns} filterLabel="Filter pairs" empty="No pads, blocks or traces to pair." initialSort={[{ id: "deviationUm", desc: true }]} scrollable />
           {onAxis.length > 0 && (
             <div className="flex flex-col gap-1" data-testid="symmetry-on-axis">
               <h3 className="text-xs font-semibold text-ink-300">On the axis (their own mirror image)</h3>

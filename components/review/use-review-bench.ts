@@ -9,12 +9,6 @@ import type { EditorState } from "@/components/annotate/editor/types";
 import { threadPinsDrawer } from "./thread-pins";
 import { useThreads } from "./use-threads";
 
-/** The thread named in the page's address (`?thread=`), read once. */
-function threadInAddress(): string | null {
-  if (typeof window === "undefined") return null;
-  return new URLSearchParams(window.location.search).get("thread");
-}
-
 /** Animates the viewer to a die-µm box with room around it. */
 export function flyToDieBox(api: ViewerApi, transform: Affine2x3, b: BoundingBox) {
   const inv = invertAffine(transform);
@@ -43,10 +37,13 @@ export function viewBoxUm(api: ViewerApi, transform: Affine2x3): BoundingBox {
 /**
  * Review state of the die bench: the threads, which one is open, its pins on the canvas, and
  * selecting a thread (flies to its anchor and selects its shape when the shape still exists).
+ * `linkedThreadId` is the page address's `?thread=`, read by the server page and passed down:
+ * reading `window.location` during render gave the client a first render different from the
+ * server's HTML (a hydration error on every deep link).
  */
-export function useReviewBench(dieId: string, state: EditorState | null, api: ViewerApi | null, transform: Affine2x3 | null, pick: (id: string) => void) {
+export function useReviewBench(dieId: string, state: EditorState | null, api: ViewerApi | null, transform: Affine2x3 | null, pick: (id: string) => void, linkedThreadId: string | null = null) {
   const threads = useThreads(dieId);
-  const [selectedId, setSelectedId] = useState<string | null>(() => threadInAddress());
+  const [selectedId, setSelectedId] = useState<string | null>(linkedThreadId);
   const list = useMemo(() => threads.threads.data ?? [], [threads.threads.data]);
   const drawer = useMemo(() => threadPinsDrawer(list, selectedId), [list, selectedId]);
 
@@ -62,7 +59,7 @@ export function useReviewBench(dieId: string, state: EditorState | null, api: Vi
   );
 
   // A deep link opens the die zoomed to its thread once the viewer, the markup and the threads are in.
-  const linked = useRef(threadInAddress());
+  const linked = useRef(linkedThreadId);
   useEffect(() => {
     const id = linked.current;
     if (!id || !api || !transform || !state || !list.some((t) => t.id === id)) return;
@@ -72,7 +69,7 @@ export function useReviewBench(dieId: string, state: EditorState | null, api: Vi
     return () => clearTimeout(timer);
   }, [api, transform, state, list, select]);
 
-  return { threads, list, selectedId, select, drawer, linkedAtStart: threadInAddress() !== null };
+  return { threads, list, selectedId, select, drawer, linkedAtStart: linkedThreadId !== null };
 }
 
 export type ReviewBench = ReturnType<typeof useReviewBench>;

@@ -7,9 +7,12 @@ import { uuidSchema } from "@/lib/validation/common";
 
 export const metadata: Metadata = { title: "Die" };
 
-export default async function DiePage({ params }: { params: Promise<{ dieId: string }> }) {
+export default async function DiePage({ params, searchParams }: { params: Promise<{ dieId: string }>; searchParams: Promise<{ thread?: string | string[] }> }) {
   const { dieId } = await params;
+  // Read on the server and handed down, so the first client render matches the server's HTML.
+  const { thread } = await searchParams;
+  const linkedThreadId = typeof thread === "string" && uuidSchema.safeParse(thread).success ? thread : null;
   if (!uuidSchema.safeParse(dieId).success) notFound();
   const { die, userId } = await loadPage(async ({ db, actor }) => ({ die: await getDie(db, actor, dieId), userId: actor.userId }));
-  return <DieBench initial={die} userId={userId} />;
+  return <DieBench initial={die} userId={userId} linkedThreadId={linkedThreadId} />;
 }

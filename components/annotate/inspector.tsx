@@ -5,6 +5,7 @@ import { polylineLength, polygonArea, boundingBox } from "@/lib/geometry/measure
 import { PAD_STATES, type AnyShape } from "@/lib/markup/types";
 import type { Editor } from "./editor/types";
 import { KIND_STYLE } from "./palette";
+import { useUnsavedGuard } from "@/components/ui/use-unsaved-guard";
 import { formatLength } from "./render/draw-interaction";
 
 type FieldDef = { key: string; label: string; type?: "number" | "text" | "textarea" | "state" | "side" };
@@ -38,6 +39,8 @@ function Field({ def, shape, editor, readOnly }: { def: FieldDef; shape: AnyShap
   const stored = (shape.properties as Record<string, unknown>)[def.key];
   const [value, setValue] = useState(stored === undefined || stored === null ? "" : String(stored));
   useEffect(() => setValue(stored === undefined || stored === null ? "" : String(stored)), [stored, shape.id]);
+  // Typed but not yet committed (commit happens on blur or Enter): ask before a reload drops it.
+  useUnsavedGuard(!readOnly && value !== (stored === undefined || stored === null ? "" : String(stored)));
   const id = `inspector-${def.key}`;
   const commit = (v: string) => {
     if (readOnly || v === String(stored ?? "")) return;

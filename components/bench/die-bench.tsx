@@ -20,6 +20,7 @@ import { useMicrographs } from "./use-micrographs";
 import { ViewerPane } from "./viewer-pane";
 import { SideTabs } from "./side-tabs";
 import { PanelResizer, useSidePanelWidth } from "./panel-resizer";
+import { useUnsavedGuard } from "@/components/ui/use-unsaved-guard";
 import type { ViewerApi } from "@/components/viewer";
 import { MarkupOverlay } from "@/components/annotate/markup-overlay";
 import { ToolBar } from "@/components/annotate/tool-bar";
@@ -64,6 +65,8 @@ export function DieBench({ initial, userId, linkedThreadId = null }: { initial: 
   const review = useReviewBench(die.id, state, api, shown?.transform ?? null, ws.pick, linkedThreadId);
   const drawers = useMemo(() => [...symmetry.drawers, review.drawer], [symmetry.drawers, review.drawer]);
   const panel = useSidePanelWidth();
+  // A shape half drawn, or markup edits still being saved, would be lost by a reload: ask first.
+  useUnsavedGuard(!!state?.drawing || save.status === "saving");
   const update = useMutation({
     mutationFn: (body: unknown) => apiFetch<DieDto>(`/api/dies/${die.id}`, { method: "PATCH", body }),
     onSuccess: (d) => qc.setQueryData(["die", die.id], d),

@@ -1,6 +1,7 @@
 import { expect, test, type Page } from "@playwright/test";
 import fs from "node:fs";
 import { signInAs } from "./helpers";
+import { NV24R_LAYOUT } from "../../lib/demo-die/layout";
 
 // Deep links without hydration errors, the resizable side panel and its tables, the readable
 // keyboard sheet, the upload dialog's hints, going into a new case, and the unsaved-work guard.
@@ -181,4 +182,39 @@ test("names of micrographs are shown whole in the list", async ({ page }) => {
   }
   if (SHOTS) fs.mkdirSync(SHOTS, { recursive: true });
   await shot(page, "micrograph-list");
+});
+
+test("a whole-die export takes in the bond wires with a margin; the PNG and the PDF are kept to look at", async ({ page }) => {
+  await openDemoDie(page);
+  const dieId = new URL(page.url()).pathname.split("/").pop()!;
+  // Ground truth from the invented layout: the die and the far ends of its bond wires.
+  const xs = [0, NV24R_LAYOUT.dieSizeUm[0], ...NV24R_LAYOUT.wireBonds.flatMap((w) => [w.fromUm[0], w.toUm[0]])];
+  const ys = [0, NV24R_LAYOUT.dieSizeUm[1], ...NV24R_LAYOUT.wireBonds.flatMap((w) => [w.fromUm[1], w.toUm[1]])];
+  const spanX = Math.max(...xs) - Math.min(...xs);
+  const spanY = Math.max(...ys) - Math.min(...ys);
+  const widthUm = spanX + 2 * 0.03 * Math.max(spanX, spanY); // 3 % margin of the larger side on each edge
+  const done = await page.evaluate(async (id) => {
+    const micrographs = (await (await fetch(`/api/dies/${id}/micrographs`)).json()) as { id: string; isReference: boolean }[];
+    const ref = micrographs.find((m) => m.isReference)!;
+    const threads = (await (await fetch(`/api/dies/${id}/threads`)).json()) as unknown[];
+    if (threads.length === 0) {
+      await fetch(`/api/dies/${id}/threads`, { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify({ region: { type: "Polygon", coordinates: [[[300, 1480], [400, 1480], [400, 1580], [300, 1580], [300, 1480]]] }, body: "Check the VCC1 bond" }) });
+    }
+    const post = await fetch(`/api/dies/${id}/exports`, { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify({ micrographId: ref.id, widthPx: 1600, labels: true, threads: true }) });
+    const created = (await post.json()) as { id: string };
+    for (let i = 0; i < 120; i++) {
+      const s = (await (await fetch(`/api/exports/${created.id}`)).json()) as { status: string; fileUrl: string | null; result: { umPerPx: number; width: number; height: number } | null };
+      if (s.status === "done" || s.status === "failed") return s;
+      await new Promise((r) => setTimeout(r, 500));
+    }
+    return null;
+  }, dieId);
+  expect(done?.status).toBe("done");
+  // The die alone would be 2400 µm over 1600 px (1.5 µm/px); with the bonds and margin it is wider.
+  expect(Math.abs(done!.result!.umPerPx * 1600 - widthUm) / widthUm).toBeLessThan(0.01);
+  expect(done!.result!.umPerPx * 1600).toBeGreaterThan(NV24R_LAYOUT.dieSizeUm[0] + 400);
+  if (SHOTS) {
+    fs.writeFileSync(`${SHOTS}/whole-die.png`, await (await page.request.get(done!.fileUrl!)).body());
+    fs.writeFileSync(`${SHOTS}/report.pdf`, await (await page.request.get(`/api/dies/${dieId}/report.pdf`)).body());
+  }
 });

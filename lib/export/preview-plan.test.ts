@@ -27,10 +27,10 @@ describe("previewPlan", () => {
     const p = previewPlan(original, { width: 2048, height: 1536 }, full());
     expect(p.fromCopy).toBe(true);
     expect(p.plan.width).toBe(PREVIEW_WIDTH_PX);
-    // The 3000 × 2250 µm die with a 3 % margin of its larger side (90 µm) on every edge.
-    expect(p.plan.region).toEqual({ x: -90, y: -90, width: 3180, height: 2430 });
-    // 3180 µm over 640 px = 4.96875 µm/px (by hand); the copy has 3000 / 2048 = 1.46 µm/px.
-    expect(p.plan.umPerPx).toBeCloseTo(4.96875, 9);
+    // The 3000 × 2250 µm die with 10 % of its larger side (300 µm) around it.
+    expect(p.plan.region).toEqual({ x: -300, y: -300, width: 3600, height: 2850 });
+    // 3600 µm over 640 px = 5.625 µm/px (by hand); the copy has 3000 / 2048 = 1.46 µm/px.
+    expect(p.plan.umPerPx).toBeCloseTo(5.625, 9);
   });
 
   it("falls back to the original for a small region the copy would have to enlarge", () => {

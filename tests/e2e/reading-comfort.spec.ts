@@ -17,6 +17,32 @@ async function openDemoDie(page: Page) {
   await expect(page.getByTestId("markup-overlay")).toBeVisible({ timeout: 30_000 });
 }
 
+type Shape = { kind: string; geometry: unknown; properties: Record<string, unknown> };
+const square = (cx: number, cy: number, w: number, h: number) => ({ type: "Polygon", coordinates: [[[cx - w / 2, cy - h / 2], [cx + w / 2, cy - h / 2], [cx + w / 2, cy + h / 2], [cx - w / 2, cy + h / 2], [cx - w / 2, cy - h / 2]]] });
+/** The demo die's pads and bonds as markup, a ruler and a long note (from the invented layout). */
+const demoShapes = (): Shape[] => [
+  ...NV24R_LAYOUT.pads.map((p) => ({ kind: "pad", geometry: square(p.centreUm[0], p.centreUm[1], p.sizeUm[0], p.sizeUm[1]), properties: { label: p.label, net: p.net, state: p.state } })),
+  ...NV24R_LAYOUT.wireBonds.map((w) => ({ kind: "wire_bond", geometry: { type: "LineString", coordinates: [w.fromUm, w.toUm] }, properties: { label: "" } })),
+  { kind: "ruler", geometry: { type: "LineString", coordinates: [[350, 1530], [2000, 1530]] }, properties: { label: "VCC1 to VCC2" } },
+  { kind: "note", geometry: { type: "Point", coordinates: [1200, 1150] }, properties: { text: "Mixer core: the two halves look identical under bright field; compare the dark-field frame before calling the layout symmetric." } },
+];
+
+/** Adds shapes to the die the page shows; returns their ids (for removing them afterwards). */
+const addShapes = (page: Page, dieId: string, shapes: Shape[]) =>
+  page.evaluate(
+    async ([id, body]) => {
+      const res = await fetch(`/api/dies/${id}/markup`, { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify(body) });
+      if (res.status !== 201) throw new Error(`markup answered ${res.status}`);
+      return ((await res.json()) as { id: string }[]).map((x) => x.id);
+    },
+    [dieId, shapes] as const,
+  );
+const removeShapes = (page: Page, ids: string[]) =>
+  page.evaluate(async (list) => {
+    for (const id of list) await fetch(`/api/markup/${id}`, { method: "DELETE" });
+  }, ids);
+const dieIdOf = (page: Page) => new URL(page.url()).pathname.split("/").pop()!;
+
 /** Page errors and console errors (React reports a hydration mismatch as both). */
 function collectErrors(page: Page): string[] {
   const errors: string[] = [];
@@ -61,6 +87,7 @@ test("a link to a thread opens it without a hydration error", async ({ page }) =
 test("the side panel resizes by dragging, is remembered, and its tables scroll with the first column kept", async ({ page }) => {
   await page.setViewportSize({ width: 1600, height: 900 });
   await openDemoDie(page);
+  const ids = await addShapes(page, dieIdOf(page), demoShapes());
   await page.evaluate(() => localStorage.removeItem("kerfline.side-panel-width"));
   await page.reload();
   await expect(page.getByTestId("markup-overlay")).toBeVisible({ timeout: 30_000 });
@@ -102,6 +129,7 @@ test("the side panel resizes by dragging, is remembered, and its tables scroll w
   await page.getByRole("tab", { name: "Symmetry" }).click();
   await shot(page, "symmetry-wide");
   await page.evaluate(() => localStorage.removeItem("kerfline.side-panel-width"));
+  await removeShapes(page, ids);
 });
 
 test("the keyboard help sheet is wide enough to read", async ({ page }) => {
@@ -120,6 +148,9 @@ test("the keyboard help sheet is wide enough to read", async ({ page }) => {
 
 test("a half-drawn block and an uncommitted inspector edit make a reload ask first", async ({ page }) => {
   await openDemoDie(page);
+  const ids = await addShapes(page, dieIdOf(page), demoShapes().slice(0, 3));
+  await page.reload();
+  await expect(page.getByTestId("markup-overlay")).toBeVisible({ timeout: 30_000 });
   await page.getByRole("button", { name: "Fit die" }).click();
   await page.waitForTimeout(800);
   expect(await wouldAsk(page)).toBe(false);
@@ -141,6 +172,7 @@ test("a half-drawn block and an uncommitted inspector edit make a reload ask fir
   expect(await wouldAsk(page)).toBe(true);
   await label.fill("VCC1");
   await expect.poll(() => wouldAsk(page)).toBe(false);
+  await removeShapes(page, ids);
 });
 
 test("the upload dialog gives examples as hints, and a new case opens at once", async ({ page }) => {
@@ -186,20 +218,19 @@ test("names of micrographs are shown whole in the list", async ({ page }) => {
 
 test("a whole-die export takes in the bond wires with a margin; the PNG and the PDF are kept to look at", async ({ page }) => {
   await openDemoDie(page);
-  const dieId = new URL(page.url()).pathname.split("/").pop()!;
+  const dieId = dieIdOf(page);
+  const ids = await addShapes(page, dieId, demoShapes());
   // Ground truth from the invented layout: the die and the far ends of its bond wires.
-  const xs = [0, NV24R_LAYOUT.dieSizeUm[0], ...NV24R_LAYOUT.wireBonds.flatMap((w) => [w.fromUm[0], w.toUm[0]])];
-  const ys = [0, NV24R_LAYOUT.dieSizeUm[1], ...NV24R_LAYOUT.wireBonds.flatMap((w) => [w.fromUm[1], w.toUm[1]])];
+  const [dieW, dieH] = NV24R_LAYOUT.dieSizeUm;
+  const xs = [0, dieW, ...NV24R_LAYOUT.wireBonds.flatMap((w) => [w.fromUm[0], w.toUm[0]])];
+  const ys = [0, dieH, ...NV24R_LAYOUT.wireBonds.flatMap((w) => [w.fromUm[1], w.toUm[1]])];
   const spanX = Math.max(...xs) - Math.min(...xs);
   const spanY = Math.max(...ys) - Math.min(...ys);
-  const widthUm = spanX + 2 * 0.03 * Math.max(spanX, spanY); // 3 % margin of the larger side on each edge
+  // By the rule: 10 % of the die's larger side around the die, or the bonds plus 3 % of their larger span.
+  const widthUm = Math.max(dieW + 0.2 * Math.max(dieW, dieH), spanX + 0.06 * Math.max(spanX, spanY));
   const done = await page.evaluate(async (id) => {
     const micrographs = (await (await fetch(`/api/dies/${id}/micrographs`)).json()) as { id: string; isReference: boolean }[];
     const ref = micrographs.find((m) => m.isReference)!;
-    const threads = (await (await fetch(`/api/dies/${id}/threads`)).json()) as unknown[];
-    if (threads.length === 0) {
-      await fetch(`/api/dies/${id}/threads`, { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify({ region: { type: "Polygon", coordinates: [[[300, 1480], [400, 1480], [400, 1580], [300, 1580], [300, 1480]]] }, body: "Check the VCC1 bond" }) });
-    }
     const post = await fetch(`/api/dies/${id}/exports`, { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify({ micrographId: ref.id, widthPx: 1600, labels: true, threads: true }) });
     const created = (await post.json()) as { id: string };
     for (let i = 0; i < 120; i++) {
@@ -210,11 +241,17 @@ test("a whole-die export takes in the bond wires with a margin; the PNG and the 
     return null;
   }, dieId);
   expect(done?.status).toBe("done");
-  // The die alone would be 2400 µm over 1600 px (1.5 µm/px); with the bonds and margin it is wider.
-  expect(Math.abs(done!.result!.umPerPx * 1600 - widthUm) / widthUm).toBeLessThan(0.01);
-  expect(done!.result!.umPerPx * 1600).toBeGreaterThan(NV24R_LAYOUT.dieSizeUm[0] + 400);
+  // The die alone would be 2400 µm over 1600 px; the bonds reach 220 µm beyond its edges.
+  expect(Math.abs(done!.result!.umPerPx * 1600 - widthUm) / widthUm).toBeLessThan(0.002);
+  expect(done!.result!.umPerPx * 1600).toBeGreaterThan(spanX);
   if (SHOTS) {
     fs.writeFileSync(`${SHOTS}/whole-die.png`, await (await page.request.get(done!.fileUrl!)).body());
     fs.writeFileSync(`${SHOTS}/report.pdf`, await (await page.request.get(`/api/dies/${dieId}/report.pdf`)).body());
+    await page.reload();
+    await expect(page.getByTestId("markup-overlay")).toBeVisible({ timeout: 30_000 });
+    await page.getByRole("button", { name: "Fit die" }).click();
+    await page.waitForTimeout(1500);
+    await shot(page, "canvas-ruler-note");
   }
+  await removeShapes(page, ids);
 });

@@ -161,6 +161,18 @@ export function placeThreadMarks(threads: readonly ThreadMark[], shapes: readonl
   });
 }
 
+/**
+ * The leader of a moved thread marker: a line from the place it marks to the marker, and a dot
+ * there. Drawn under the labels, so the plate it was moved off stays readable.
+ */
+export function threadLeaderSvg(t: ThreadMark, m: Affine2x3, style: MarkupStyle): string {
+  if (!t.offsetPx) return "";
+  const [ax, ay] = applyAffine(m, t.at[0], t.at[1]);
+  const x = ax + t.offsetPx[0];
+  const y = ay + t.offsetPx[1] + threadRadius(style);
+  return `<line x1="${n2(ax)}" y1="${n2(ay)}" x2="${n2(x)}" y2="${n2(y)}" stroke="#fff" stroke-width="${n2(style.stroke)}"/><circle cx="${n2(ax)}" cy="${n2(ay)}" r="${n2(style.stroke * 1.5)}" fill="#fff" stroke="#111" stroke-width="${n2(style.stroke / 2)}"/>`;
+}
+
 /** A numbered marker for a review thread (filled when open, hollow when resolved). */
 export function threadSvg(t: ThreadMark, m: Affine2x3, style: MarkupStyle): string {
   const [ax, ay] = applyAffine(m, t.at[0], t.at[1]);
@@ -169,19 +181,17 @@ export function threadSvg(t: ThreadMark, m: Affine2x3, style: MarkupStyle): stri
   const r = threadRadius(style);
   const fill = t.open ? "#ffffff" : "none";
   const colour = t.open ? "#111111" : "#ffffff";
-  const leader = t.offsetPx
-    ? `<line x1="${n2(ax)}" y1="${n2(ay)}" x2="${n2(x)}" y2="${n2(y + r)}" stroke="#fff" stroke-width="${n2(style.stroke)}"/><circle cx="${n2(ax)}" cy="${n2(ay)}" r="${n2(style.stroke * 1.5)}" fill="#fff" stroke="#111" stroke-width="${n2(style.stroke / 2)}"/>`
-    : "";
-  return `${leader}<circle cx="${n2(x)}" cy="${n2(y)}" r="${n2(r)}" fill="${fill}" stroke="#111" stroke-width="${n2(style.stroke)}"/><text x="${n2(x)}" y="${n2(y + r * 0.4)}" font-size="${n2(r * 1.1)}" text-anchor="middle" fill="${colour}">${t.number}</text>`;
+  return `<circle cx="${n2(x)}" cy="${n2(y)}" r="${n2(r)}" fill="${fill}" stroke="#111" stroke-width="${n2(style.stroke)}"/><text x="${n2(x)}" y="${n2(y + r * 0.4)}" font-size="${n2(r * 1.1)}" text-anchor="middle" fill="${colour}">${t.number}</text>`;
 }
 
 /**
- * Everything drawn over the image area: shapes first (in creation order), then labels on top
- * of all shapes, then thread markers.
+ * Everything drawn over the image area: shapes first (in creation order), the leaders of moved
+ * thread markers, labels on top of all that, then the thread markers.
  */
 export function markupLayerSvg(shapes: readonly AnyShape[], m: Affine2x3, width: number, opts: { labels: boolean; threads: readonly ThreadMark[] }): string {
   const style = markupStyle(width);
   const parts = shapes.map((s) => shapeSvg(s, m, style));
+  parts.push(...opts.threads.map((t) => threadLeaderSvg(t, m, style)));
   if (opts.labels) parts.push(...shapes.map((s) => labelSvg(s, m, style)));
   parts.push(...opts.threads.map((t) => threadSvg(t, m, style)));
   return parts.join("");

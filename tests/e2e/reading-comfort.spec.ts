@@ -164,13 +164,13 @@ test("a half-drawn block and an uncommitted inspector edit make a reload ask fir
 
   // Select a shape from the markup table and type a label without committing it.
   await page.getByRole("tab", { name: "Markup" }).click();
-  await page.getByLabel("Filter markup").fill("VCC1");
+  await page.getByLabel("Filter markup").fill("G1");
   await page.getByRole("region", { name: "Markup table" }).getByRole("button", { name: "Pad" }).first().click();
   await page.getByRole("tab", { name: "Inspect" }).click();
   const label = page.getByRole("region", { name: "Inspector" }).getByLabel("Label");
-  await label.fill("VCC1 typed but not committed");
+  await label.fill("G1 typed but not committed");
   expect(await wouldAsk(page)).toBe(true);
-  await label.fill("VCC1");
+  await label.fill("G1");
   await expect.poll(() => wouldAsk(page)).toBe(false);
   await removeShapes(page, ids);
 });

@@ -8,6 +8,7 @@ import { dieFrameOf, isOutsideDie } from "@/lib/markup/outside-die";
 import { formatUm } from "@/lib/units/format-um";
 import type { Editor } from "./editor/types";
 import { KIND_STYLE } from "./palette";
+import { useUnsavedGuard } from "@/components/ui/use-unsaved-guard";
 import { formatLength } from "./render/draw-interaction";
 
 type FieldDef = { key: string; label: string; type?: "number" | "text" | "textarea" | "padState" | "side" };
@@ -41,6 +42,8 @@ function Field({ def, shape, editor, readOnly }: { def: FieldDef; shape: AnyShap
   const stored = (shape.properties as Record<string, unknown>)[def.key];
   const [value, setValue] = useState(stored === undefined || stored === null ? "" : String(stored));
   useEffect(() => setValue(stored === undefined || stored === null ? "" : String(stored)), [stored, shape.id]);
+  // Typed but not yet committed (commit happens on blur or Enter): ask before a reload drops it.
+  useUnsavedGuard(!readOnly && value !== (stored === undefined || stored === null ? "" : String(stored)));
   const id = `inspector-${def.key}`;
   const commit = (v: string) => {
     if (readOnly || v === String(stored ?? "")) return;

@@ -56,6 +56,8 @@ export function MarkupOverlay({ api, editor, state, imageToDie, hiddenKinds, lab
   const matrix = useRef<Affine2x3>(dieToScreenMatrix(imageToDie, api.imageToScreen));
   const [spaceHeld, setSpaceHeld] = useState(false);
 
+  // The micrograph's own scale (µm per image px) decides how many decimals a ruler's length gets.
+  const umPerPx = Math.sqrt(Math.abs(imageToDie[0][0] * imageToDie[1][1] - imageToDie[0][1] * imageToDie[1][0]));
   const visibleShapes = useMemo(() => state.shapeList.filter((s) => !hiddenKinds.has(s.kind) && !isHidden?.(s)), [state.shapeList, hiddenKinds, isHidden]);
   const bboxes = useMemo(() => {
     const m = new Map<string, [number, number, number, number]>();
@@ -138,7 +140,7 @@ export function MarkupOverlay({ api, editor, state, imageToDie, hiddenKinds, lab
           <Shape
             perfectDrawEnabled={false}
             listening={false}
-            sceneFunc={(ctx) => ready() && drawMarkup(ctx._context, visibleShapes, { matrix: matrix.current, pixelRatio: 1, visibleUm: visibleUm(), labels, bboxes })}
+            sceneFunc={(ctx) => ready() && drawMarkup(ctx._context, visibleShapes, { matrix: matrix.current, pixelRatio: 1, visibleUm: visibleUm(), labels, bboxes, umPerPx })}
           />
           <Shape perfectDrawEnabled={false} listening={false} sceneFunc={(ctx) => ready() && extraDrawers.forEach((d) => d(ctx._context, matrix.current))} />
           <Shape perfectDrawEnabled={false} listening={false} sceneFunc={(ctx) => ready() && drawInteraction(ctx._context, state, matrix.current)} />

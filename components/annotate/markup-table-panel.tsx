@@ -21,7 +21,7 @@ function RenameCell({ row, editor, canEdit }: { row: MarkupTableRow; editor: Edi
       onChange={(e) => setValue(e.target.value)}
       onBlur={() => value !== row.label && editor.updateProperties(row.id, { [LABEL_KEY[row.kind]]: value })}
       onKeyDown={(e) => e.key === "Enter" && (e.target as HTMLInputElement).blur()}
-      className="w-full rounded border border-transparent bg-transparent px-1 hover:border-ink-700 focus:border-kerf-500 focus:outline-none"
+      size={Math.max(8, value.length + 2)} className="w-full min-w-[6rem] rounded border border-transparent bg-transparent px-1 hover:border-ink-700 focus:border-kerf-500 focus:outline-none"
     />
   );
 }
@@ -68,7 +68,7 @@ export function MarkupTablePanel({ dieId, shapes, authors, editor, canEdit, onPi
           CSV
         </a>
       </div>
-      <DataTable data={rows} columns={columns} filterLabel="Filter markup" empty="No markup yet." />
+      <DataTable data={rows} columns={columns} filterLabel="Filter markup" empty="No markup yet." scrollable />
     </section>
   );
 }

@@ -67,7 +67,7 @@ export function PadTablePanel({ dieId, selection, onPick, umPerPx = null }: { di
           . Select one and tick “Include in the pad numbering” to number it.
         </p>
       )}
-      <DataTable data={[...t.rows]} columns={columns} filterLabel="Filter pads" empty="No pads marked yet. Draw them with the Pad tool (P)." />
+      <DataTable data={[...t.rows]} columns={columns} filterLabel="Filter pads" empty="No pads marked yet. Draw them with the Pad tool (P)." scrollable />
     </section>
   );
 }

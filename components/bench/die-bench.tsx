@@ -20,6 +20,8 @@ import { DieDetails } from "./die-details";
 import { useMicrographs } from "./use-micrographs";
 import { ViewerPane } from "./viewer-pane";
 import { SideTabs } from "./side-tabs";
+import { PanelResizer, useSidePanelWidth } from "./panel-resizer";
+import { useUnsavedGuard } from "@/components/ui/use-unsaved-guard";
 import type { ViewerApi } from "@/components/viewer";
 import { MarkupOverlay } from "@/components/annotate/markup-overlay";
 import { ToolBar } from "@/components/annotate/tool-bar";
@@ -67,6 +69,9 @@ export function DieBench({ initial, userId, linkedThreadId = null }: { initial: 
   const symmetry = useSymmetryView(state?.shapeList);
   const review = useReviewBench(die.id, linkedThreadId, state, api, shown?.transform ?? null, ws.pick);
   const drawers = useMemo(() => [...symmetry.drawers, review.drawer], [symmetry.drawers, review.drawer]);
+  const panel = useSidePanelWidth();
+  // A shape half drawn, or markup edits still being saved, would be lost by a reload: ask first.
+  useUnsavedGuard(!!state?.drawing || save.status === "saving");
   const update = useMutation({
     mutationFn: (body: unknown) => apiFetch<DieDto>(`/api/dies/${die.id}`, { method: "PATCH", body }),
     onSuccess: (d) => qc.setQueryData(["die", die.id], d),
@@ -132,7 +137,8 @@ export function DieBench({ initial, userId, linkedThreadId = null }: { initial: 
           {loadError && <p role="alert" className="absolute left-3 top-3 text-sm text-danger-400">{loadError}</p>}
           {editor && state && <EditorNotice editor={editor} state={state} />}
         </section>
-        <aside aria-label="Die panel" className="flex w-96 shrink-0 flex-col border-l border-ink-800 bg-ink-900">
+        <PanelResizer width={panel.width} onResize={panel.resize} />
+        <aside aria-label="Die panel" className="flex shrink-0 flex-col bg-ink-900" style={{ width: panel.width }}>
           <SideTabs
             initial={review.linkedAtStart ? "review" : undefined}
             tabs={[

@@ -50,7 +50,7 @@ export function MicrographsManager({ dieId, items, editable, onWork }: Props) {
       <ul className="flex flex-col gap-1.5">
         {items.map((m, i) => (
           <li key={m.id} className="flex flex-wrap items-center gap-1.5 rounded border border-ink-800 p-1.5" data-testid={`manage-${m.id}`}>
-            <span className="min-w-0 flex-1 truncate text-ink-100">
+            <span className="min-w-[8rem] flex-1 break-words text-ink-100" title={m.label}>
               {m.label}{" "}
               <span className={m.isReference ? "text-kerf-300" : m.transform ? "text-ok-400" : "text-ink-400"}>{m.isReference ? "reference" : m.transform ? "in die frame" : "not aligned"}</span>
             </span>

@@ -1,6 +1,6 @@
 "use client";
 
-import { deviationHistogram } from "@/lib/symmetry";
+import { axisDecimals, deviationHistogram } from "@/lib/symmetry";
 import { deviationColour } from "@/lib/layout-reading/symmetry-view";
 
 const W = 320;
@@ -19,22 +19,25 @@ export function DeviationChart({ deviations, toleranceUm, fullScaleUm }: { devia
   const top = Math.max(...bins.map((b) => b.count));
   const x = (v: number) => PAD.left + ((v - lo) / (hi - lo)) * (W - PAD.left - PAD.right);
   const y = (c: number) => H - PAD.bottom - (c / top) * (H - PAD.top - PAD.bottom);
+  // Enough decimals that the two ends differ, however small the spread.
+  const d = axisDecimals(lo, hi);
+  const fmt = (v: number) => v.toFixed(d);
   const tolX = Number.isFinite(toleranceUm) && toleranceUm >= lo && toleranceUm <= hi ? x(toleranceUm) : null;
   return (
-    <svg viewBox={`0 0 ${W} ${H}`} role="img" aria-label={`Histogram of ${deviations.length} pair deviations from ${lo.toFixed(2)} to ${hi.toFixed(2)} µm`} className="w-full">
+    <svg viewBox={`0 0 ${W} ${H}`} role="img" aria-label={`Histogram of ${deviations.length} pair deviations from ${fmt(lo)} to ${fmt(hi)} µm`} className="w-full">
       <line x1={PAD.left} y1={H - PAD.bottom} x2={W - PAD.right} y2={H - PAD.bottom} stroke="#3c444c" />
       <line x1={PAD.left} y1={PAD.top} x2={PAD.left} y2={H - PAD.bottom} stroke="#3c444c" />
       {bins.map((b) => (
         <rect key={b.fromUm} x={x(b.fromUm) + 1} y={y(b.count)} width={Math.max(1, x(b.toUm) - x(b.fromUm) - 2)} height={H - PAD.bottom - y(b.count)} fill={deviationColour((b.fromUm + b.toUm) / 2, fullScaleUm)}>
-          <title>{`${b.fromUm.toFixed(2)}–${b.toUm.toFixed(2)} µm: ${b.count} pair${b.count === 1 ? "" : "s"}`}</title>
+          <title>{`${fmt(b.fromUm)}–${fmt(b.toUm)} µm: ${b.count} pair${b.count === 1 ? "" : "s"}`}</title>
         </rect>
       ))}
       {tolX !== null && <line x1={tolX} y1={PAD.top} x2={tolX} y2={H - PAD.bottom} stroke="#e6eaed" strokeDasharray="4 3" />}
       <text x={PAD.left} y={H - 6} fontSize="10" fill="#a3adb6">
-        {lo.toFixed(1)}
+        {fmt(lo)}
       </text>
       <text x={W - PAD.right} y={H - 6} fontSize="10" fill="#a3adb6" textAnchor="end">
-        {hi.toFixed(1)} µm
+        {fmt(hi)} µm
       </text>
       <text x={PAD.left - 4} y={PAD.top + 8} fontSize="10" fill="#a3adb6" textAnchor="end">
         {top}

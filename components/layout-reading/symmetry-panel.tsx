@@ -59,7 +59,9 @@ function Controls({ view }: { view: SymmetryView }) {
  */
 export function SymmetryPanel({ view, shapes, onPick }: { view: SymmetryView; shapes: readonly AnyShape[]; onPick: (id: string) => void }) {
   const labels = useMemo(() => new Map(shapes.map((s) => [s.id, shapeLabel(s) || KIND_STYLE[s.kind].label])), [shapes]);
-  const rows = useMemo(() => (view.report?.pairs ?? []).map((p) => toRow(p, labels)), [view.report, labels]);
+  // Shapes on the axis are their own mirror image: listed apart, not as pairs.
+  const rows = useMemo(() => (view.report?.pairs ?? []).filter((p) => !p.selfPaired).map((p) => toRow(p, labels)), [view.report, labels]);
+  const onAxis = useMemo(() => (view.report?.pairs ?? []).filter((p) => p.selfPaired), [view.report]);
   const columns = useMemo<ColumnDef<PairRow, unknown>[]>(
     () => [
       {
@@ -96,10 +98,24 @@ export function SymmetryPanel({ view, shapes, onPick }: { view: SymmetryView; sh
       {r && (
         <>
           <p className="text-xs text-ink-300" data-testid="symmetry-summary">
-            {r.summary.pairCount} pairs, {r.summary.withinToleranceCount} within tolerance · largest offset {f2(r.summary.maxDeviationUm)} µm · mean {f2(r.summary.meanDeviationUm)} µm · {r.unmatched.length} without a partner
+            {r.summary.pairCount} pairs, {r.summary.withinToleranceCount} within tolerance · largest offset {f2(r.summary.maxDeviationUm)} µm · mean {f2(r.summary.meanDeviationUm)} µm · {r.summary.onAxisCount} on the axis · {r.unmatched.length} without a partner
           </p>
-          <DeviationChart deviations={r.pairs.map((p) => p.deviationUm)} toleranceUm={r.options.toleranceUm} fullScaleUm={view.fullScaleUm} />
-          <DataTable data={rows} columns={columns} filterLabel="Filter pairs" empty="No pads, blocks or traces to pair." initialSort={[{ id: "deviationUm", desc: true }]} />
+          <DeviationChart deviations={rows.map((p) => p.deviationUm)} toleranceUm={r.options.toleranceUm} fullScaleUm={view.fullScaleUm} />
+          <DataTable data={rows} columns={columns} filterLabel="Filter pairs" empty="No pads, blocks or traces to pair." initialSort={[{ id: "deviationUm", desc: true }]} scrollable />
+          {onAxis.length > 0 && (
+            <div className="flex flex-col gap-1" data-testid="symmetry-on-axis">
+              <h3 className="text-xs font-semibold text-ink-300">On the axis (their own mirror image)</h3>
+              <ul className="flex flex-wrap gap-1.5 text-xs">
+                {onAxis.map((p) => (
+                  <li key={p.aId}>
+                    <button type="button" onClick={() => onPick(p.aId)} title={p.withinTolerance ? "Centred on the axis within tolerance" : "Off the axis by more than the tolerance"} className="rounded border border-ink-700 px-1.5 py-0.5 hover:border-kerf-500" style={{ color: KIND_STYLE[p.kind].colour }}>
+                      {labels.get(p.aId)} <span className="tabular-nums text-ink-400">{f2(p.deviationUm / 2)} µm off</span>
+                    </button>
+                  </li>
+                ))}
+              </ul>
+            </div>
+          )}
           {r.unmatched.length > 0 && (
             <div className="flex flex-col gap-1">
               <h3 className="text-xs font-semibold text-ink-300">Without a partner</h3>

@@ -41,7 +41,7 @@ export function MicrographList({ items, selectedId, onSelect }: { items: Microgr
               )}
             </span>
             <span className="flex min-w-0 flex-1 flex-col gap-0.5">
-              <span className="truncate font-medium text-ink-100">
+              <span className="break-words font-medium text-ink-100" title={m.label}>
                 {m.label} {m.isReference && <span className="text-kerf-300">(reference)</span>}
               </span>
               <span className="text-ink-400">

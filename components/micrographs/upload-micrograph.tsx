@@ -76,7 +76,7 @@ export function UploadMicrograph({ dieId, onUploaded, onCancel }: { dieId: strin
           className="text-sm text-ink-200 file:mr-3 file:rounded-md file:border-0 file:bg-ink-700 file:px-3 file:py-1.5 file:text-ink-100"
         />
       </div>
-      <TextField id="mg-label" label="Label" placeholder="e.g. 10x bright field, full die" {...register("label")} />
+      <TextField id="mg-label" label="Label" hint="e.g. 10x bright field, full die" {...register("label")} />
       <div className="flex flex-col gap-1">
         <label htmlFor="mg-illumination" className="text-xs font-medium text-ink-300">
           Illumination
@@ -91,10 +91,10 @@ export function UploadMicrograph({ dieId, onUploaded, onCancel }: { dieId: strin
       </div>
       <fieldset className="grid grid-cols-2 gap-3 rounded-md border border-ink-800 p-3">
         <legend className="px-1 text-xs text-ink-400">Capture data (scale = pixel pitch ÷ (objective × adapter))</legend>
-        <TextField id="mg-objective" label="Objective magnification" inputMode="decimal" placeholder="20" {...register("objectiveMag")} />
-        <TextField id="mg-na" label="Numerical aperture" inputMode="decimal" placeholder="0.45" {...register("numericalAperture")} />
-        <TextField id="mg-pitch" label="Camera pixel pitch (µm)" inputMode="decimal" placeholder="3.45" {...register("cameraPixelPitchUm")} />
-        <TextField id="mg-adapter" label="Adapter magnification" inputMode="decimal" {...register("adapterMag")} />
+        <TextField id="mg-objective" label="Objective magnification" inputMode="decimal" hint="e.g. 20" {...register("objectiveMag")} />
+        <TextField id="mg-na" label="Numerical aperture" inputMode="decimal" hint="e.g. 0.45" {...register("numericalAperture")} />
+        <TextField id="mg-pitch" label="Camera pixel pitch (µm)" inputMode="decimal" hint="e.g. 3.45" {...register("cameraPixelPitchUm")} />
+        <TextField id="mg-adapter" label="Adapter magnification" inputMode="decimal" hint="e.g. 1 (none)" {...register("adapterMag")} />
         <TextField id="mg-scale" className="col-span-2" label="Or scale directly (µm per pixel)" inputMode="decimal" hint="Leave all empty to calibrate on the image later" {...register("scaleUmPerPx")} />
       </fieldset>
       {progress && (

@@ -37,6 +37,9 @@ export function viewBoxUm(api: ViewerApi, transform: Affine2x3): BoundingBox {
 /**
  * Review state of the die bench: the threads, which one is open, its pins on the canvas, and
  * selecting a thread (flies to its anchor and selects its shape when the shape still exists).
+ * `linkedThreadId` is the page address's `?thread=`, read by the server page and passed down:
+ * reading `window.location` during render gave the client a first render different from the
+ * server's HTML (a hydration error on every deep link).
  */
 export function useReviewBench(dieId: string, linkedThreadId: string | null, state: EditorState | null, api: ViewerApi | null, transform: Affine2x3 | null, pick: (id: string) => void) {
   const threads = useThreads(dieId);

@@ -3,7 +3,7 @@
 import { useEffect, useRef } from "react";
 
 /** A modal dialog on the native <dialog> element (focus trap and Escape come with it). */
-export function Dialog({ open, onClose, title, children }: { open: boolean; onClose: () => void; title: string; children: React.ReactNode }) {
+export function Dialog({ open, onClose, title, children, wide = false }: { open: boolean; onClose: () => void; title: string; children: React.ReactNode; wide?: boolean }) {
   const ref = useRef<HTMLDialogElement>(null);
   useEffect(() => {
     const el = ref.current;
@@ -16,7 +16,7 @@ export function Dialog({ open, onClose, title, children }: { open: boolean; onCl
       ref={ref}
       onClose={onClose}
       aria-labelledby="dialog-title"
-      className="m-auto w-full max-w-lg rounded-lg border border-ink-700 bg-ink-900 p-0 text-ink-100 backdrop:bg-black/60"
+      className={`m-auto w-full ${wide ? "max-w-3xl" : "max-w-lg"} max-h-[90vh] overflow-y-auto rounded-lg border border-ink-700 bg-ink-900 p-0 text-ink-100 backdrop:bg-black/60`}
     >
       {open && (
         <div className="p-5">

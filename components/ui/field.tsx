@@ -15,8 +15,12 @@ export const TextField = forwardRef<HTMLInputElement, InputHTMLAttributes<HTMLIn
       <label htmlFor={id} className="text-xs font-medium text-ink-300">
         {label}
       </label>
-      <input ref={ref} id={id} aria-invalid={!!error} aria-describedby={error ? `${id}-error` : undefined} className={INPUT} {...props} />
-      {hint && !error && <p className="text-xs text-ink-400">{hint}</p>}
+      <input ref={ref} id={id} aria-invalid={!!error} aria-describedby={error ? `${id}-error` : hint ? `${id}-hint` : undefined} className={INPUT} {...props} />
+      {hint && !error && (
+        <p id={`${id}-hint`} className="text-xs text-ink-400">
+          {hint}
+        </p>
+      )}
       {error && (
         <p id={`${id}-error`} role="alert" className="text-xs text-danger-400">
           {error}

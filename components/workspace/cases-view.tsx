@@ -1,6 +1,7 @@
 "use client";
 
 import Link from "next/link";
+import { useRouter } from "next/navigation";
 import { useMemo, useState } from "react";
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import type { ColumnDef } from "@tanstack/react-table";
@@ -14,6 +15,7 @@ import { CaseForm } from "./case-form";
 /** The cases of all the caller's teams, with a "new case" dialog for those who may create. */
 export function CasesView({ editableTeams }: { editableTeams: { id: string; name: string }[] }) {
   const qc = useQueryClient();
+  const router = useRouter();
   const [creating, setCreating] = useState(false);
   const [teamId, setTeamId] = useState(editableTeams[0]?.id ?? "");
   const cases = useQuery({ queryKey: ["cases"], queryFn: () => apiFetch<CaseDto[]>("/api/cases") });
@@ -67,8 +69,10 @@ export function CasesView({ editableTeams }: { editableTeams: { id: string; name
           submitLabel="Create case"
           onCancel={() => setCreating(false)}
           onSubmit={async (values) => {
-            await create.mutateAsync(values);
+            const made = await create.mutateAsync(values);
             setCreating(false);
+            // Straight into the new case: adding its first die is the next step.
+            router.push(`/cases/${made.id}`);
           }}
         >
           {editableTeams.length > 1 && (

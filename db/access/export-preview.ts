@@ -33,9 +33,9 @@ export type ExportPreviewDto = {
 export async function previewExport(db: Db, actor: Actor, dieId: string, req: ExportRequest, files: RenderFiles): Promise<ExportPreviewDto> {
   const { row: die } = await loadDie(db, actor, dieId, "export");
   // Same checks and answers as creating the export; the plan is the full-size one.
-  const { m, image, plan: full } = checkRenderable(await loadDieMicrograph(db, dieId, req.micrographId), die, req);
   const src = await loadDieSources(db, dieId);
   if (!src) throw new NotFoundError("That die");
+  const { m, image, plan: full } = checkRenderable(await loadDieMicrograph(db, dieId, req.micrographId), { ...die, extentUm: src.die.extentUm }, req);
   const copyFile = files.copy(m);
   const copy = await copySize(copyFile);
   const { plan, fromCopy } = previewPlan(image, copy, full);

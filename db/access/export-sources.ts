@@ -3,7 +3,8 @@ import sharp from "sharp";
 import { and, asc, eq } from "drizzle-orm";
 import { cases, dies, markup, micrographs, threads, users, type MicrographRow } from "../schema";
 import type { Db } from "./context";
-import { polygonCentroid } from "@/lib/geometry/measure";
+import { boundingBox, polygonCentroid } from "@/lib/geometry/measure";
+import type { ExtentUm } from "@/lib/export/view-region";
 import type { Affine2x3, Geometry, Position } from "@/lib/geometry/types";
 import type { AnyShape, MarkupKind } from "@/lib/markup/types";
 import type { ThreadMark } from "@/lib/export/markup-svg";
@@ -12,7 +13,7 @@ import { ILLUMINATION_LABELS } from "@/lib/validation/micrographs";
 
 /** Everything an export of one die needs, read after the caller was authorized. */
 export type DieSources = {
-  die: { id: string; name: string; widthUm: number | null; heightUm: number | null; reviewStatus: string; notes: string; analystName: string | null };
+  die: { id: string; name: string; widthUm: number | null; heightUm: number | null; reviewStatus: string; notes: string; analystName: string | null; extentUm: ExtentUm | null };
   caseRow: { title: string; partMarking: string; package: string; sampleId: string };
   shapes: AnyShape[];
 };
@@ -30,10 +31,23 @@ export async function loadDieSources(db: Db, dieId: string): Promise<DieSources 
   const shapes = rows.map((r) => ({ id: r.id, kind: r.kind, geometry: r.geometry, properties: r.properties, version: r.version, createdBy: r.createdBy, updatedAt: r.updatedAt.toISOString() }) as AnyShape);
   const d = found.die;
   return {
-    die: { id: d.id, name: d.name, widthUm: d.widthUm, heightUm: d.heightUm, reviewStatus: d.reviewStatus, notes: d.notes, analystName: found.analystName },
+    die: { id: d.id, name: d.name, widthUm: d.widthUm, heightUm: d.heightUm, reviewStatus: d.reviewStatus, notes: d.notes, analystName: found.analystName, extentUm: markupExtent(shapes) },
     caseRow: { title: found.c.title, partMarking: found.c.partMarking, package: found.c.package, sampleId: found.c.sampleId },
     shapes,
   };
+}
+
+/** What the shapes cover in die µm (null without shapes): a whole-die export takes it in. */
+export function markupExtent(shapes: readonly AnyShape[]): ExtentUm | null {
+  if (shapes.length === 0) return null;
+  const boxes = shapes.map((s) => boundingBox(s.geometry));
+  return { minX: Math.min(...boxes.map((b) => b.minX)), minY: Math.min(...boxes.map((b) => b.minY)), maxX: Math.max(...boxes.map((b) => b.maxX)), maxY: Math.max(...boxes.map((b) => b.maxY)) };
+}
+
+/** The extent of a die's markup, read on its own (for checks that need nothing else). */
+export async function loadMarkupExtent(db: Db, dieId: string): Promise<ExtentUm | null> {
+  const rows = await db.select({ geometry: markup.geometry }).from(markup).where(eq(markup.dieId, dieId));
+  return markupExtent(rows.map((r) => ({ geometry: r.geometry }) as AnyShape));
 }
 
 /** A micrograph of the die (or null when it is not one of the die's). */

@@ -3,7 +3,8 @@ import { desc, eq } from "drizzle-orm";
 import { exports as exportsTable, jobs, users, type MicrographRow } from "../schema";
 import { type Actor, type Db } from "./context";
 import { loadDie, loadDieOf } from "./dies";
-import { loadDieMicrograph, sourceImageOf } from "./export-sources";
+import { loadDieMicrograph, loadMarkupExtent, sourceImageOf } from "./export-sources";
+import type { ExtentUm } from "@/lib/export/view-region";
 import { BadRequestError, ConflictError, NotFoundError } from "@/lib/server/errors";
 import { planRender, type RenderPlan, type SourceImage } from "@/lib/export/render-plan";
 import type { ExportRequest } from "@/lib/validation/exports";
@@ -63,7 +64,7 @@ function toDto(row: ExportRow, createdByName: string | null): ExportDto {
  * Checks a request can be rendered before a job is queued (so bad ones answer 400 at once),
  * and returns what it resolved: the micrograph, its place in the die frame and the plan.
  */
-export function checkRenderable(m: MicrographRow | null, die: { widthUm: number | null; heightUm: number | null }, req: ExportRequest): { m: MicrographRow; image: SourceImage; plan: RenderPlan } {
+export function checkRenderable(m: MicrographRow | null, die: { widthUm: number | null; heightUm: number | null; extentUm: ExtentUm | null }, req: ExportRequest): { m: MicrographRow; image: SourceImage; plan: RenderPlan } {
   if (!m) throw new NotFoundError("That micrograph");
   if (m.status === "failed" || !m.format) throw new ConflictError("That micrograph failed to process; upload it again before exporting.");
   const image = sourceImageOf(m);
@@ -80,7 +81,8 @@ export function checkRenderable(m: MicrographRow | null, die: { widthUm: number 
 export async function createExport(db: Db, actor: Actor, dieId: string, req: ExportRequest): Promise<ExportDto> {
   return db.transaction(async (tx) => {
     const { row: die } = await loadDie(tx, actor, dieId, "export");
-    const warnings = [...checkRenderable(await loadDieMicrograph(tx, dieId, req.micrographId), die, req).plan.warnings];
+    const extentUm = await loadMarkupExtent(tx, dieId);
+    const warnings = [...checkRenderable(await loadDieMicrograph(tx, dieId, req.micrographId), { ...die, extentUm }, req).plan.warnings];
     const params: ExportParams = { request: req, warnings };
     const [row] = await tx.insert(exportsTable).values({ dieId, micrographId: req.micrographId, kind: "annotated_png", params, createdBy: actor.userId }).returning();
     await tx.insert(jobs).values({ kind: "export", subjectId: row.id });

@@ -1,5 +1,5 @@
 import "server-only";
-import { asc, eq, inArray, sql } from "drizzle-orm";
+import { asc, eq, inArray } from "drizzle-orm";
 import { comments, micrographs, reviewEvents, threads, users, type MicrographRow } from "../schema";
 import { type Actor, type Db } from "./context";
 import { loadDie } from "./dies";
@@ -14,6 +14,8 @@ import { renderAnnotatedPngBuffer } from "@/lib/export/render-png";
 import { previewPlan } from "@/lib/export/preview-plan";
 import type { ReportData } from "@/lib/export/report-pdf";
 import { ILLUMINATION_LABELS } from "@/lib/validation/micrographs";
+import { savedEstimatesOf, summariseSavedEstimate } from "@/lib/layout-reading/saved-estimates";
+import type { AnyShape } from "@/lib/markup/types";
 
 /** Width of the report's overview image: sharp enough for print at the page's text width. */
 export const OVERVIEW_WIDTH_PX = 1600;
@@ -41,20 +43,57 @@ async function overview(src: DieSources, ms: MicrographRow[], author: string, fi
   return { png, caption: `${m.label} (${ILLUMINATION_LABELS[m.illumination]}), whole die at ${planned.plan.umPerPx.toPrecision(3)} µm/px; scale bar ${info.scaleBar.label}.${planned.plan.warnings.length ? ` ${planned.plan.warnings.join(" ")}` : ""}` };
 }
 
-async function reviewParts(db: Db, dieId: string): Promise<Pick<ReportData, "reviewHistory" | "threads">> {
+function shapeName(shapes: readonly AnyShape[], id: string | null): string {
+  const shape = id ? shapes.find((x) => x.id === id) : undefined;
+  if (!shape) return id ? "on a shape since deleted" : "on a drawn region";
+  const label = shapeLabel(shape);
+  return `on ${KIND_STYLE[shape.kind].label.toLowerCase()}${label ? ` ${label}` : ""}`;
+}
+
+async function reviewParts(db: Db, dieId: string, shapes: readonly AnyShape[]): Promise<Pick<ReportData, "reviewHistory" | "threads">> {
   const events = await db.select().from(reviewEvents).where(eq(reviewEvents.dieId, dieId)).orderBy(asc(reviewEvents.at));
   const ts = await db.select().from(threads).where(eq(threads.dieId, dieId)).orderBy(asc(threads.createdAt));
-  const cs = ts.length
-    ? await db.select({ threadId: comments.threadId, body: comments.body, n: sql<number>`count(*) over (partition by ${comments.threadId})::int` }).from(comments).where(inArray(comments.threadId, ts.map((t) => t.id))).orderBy(asc(comments.createdAt))
-    : [];
-  const names = await namesOf(db, [...events.map((e) => e.actorId), ...ts.map((t) => t.createdBy)]);
+  const cs = ts.length ? await db.select().from(comments).where(inArray(comments.threadId, ts.map((t) => t.id))).orderBy(asc(comments.createdAt)) : [];
+  const names = await namesOf(db, [...events.map((e) => e.actorId), ...ts.map((t) => t.createdBy), ...ts.map((t) => t.resolvedBy), ...cs.map((c) => c.authorId)]);
+  const who = (id: string | null) => names.get(id ?? "") ?? "—";
   return {
-    reviewHistory: events.map((e) => ({ at: day(e.at), who: names.get(e.actorId ?? "") ?? "—", action: e.action.replace(/_/g, " "), from: e.fromStatus.replace(/_/g, " "), to: e.toStatus.replace(/_/g, " "), message: e.message })),
-    threads: ts.map((t, i) => {
-      const first = cs.find((c) => c.threadId === t.id);
-      return { number: i + 1, status: t.status, author: names.get(t.createdBy ?? "") ?? "—", firstComment: first?.body ?? "", comments: first?.n ?? 0, createdAt: t.createdAt.toISOString().slice(0, 10) };
-    }),
+    reviewHistory: events.map((e) => ({ at: day(e.at), who: who(e.actorId), action: e.action.replace(/_/g, " "), from: e.fromStatus.replace(/_/g, " "), to: e.toStatus.replace(/_/g, " "), message: e.message })),
+    threads: ts.map((t, i) => ({
+      number: i + 1,
+      status: t.status,
+      author: who(t.createdBy),
+      createdAt: day(t.createdAt),
+      on: shapeName(shapes, t.shapeId),
+      resolved: t.status === "resolved" ? `resolved by ${who(t.resolvedBy)}${t.resolvedAt ? ` on ${day(t.resolvedAt)}` : ""}` : null,
+      messages: cs.filter((c) => c.threadId === t.id).map((c) => ({ author: who(c.authorId), at: day(c.createdAt), body: c.body, edited: c.editedAt !== null })),
+    })),
   };
+}
+
+const UNIT_SUFFIX: Record<string, string> = { Um: "µm", Nh: "nH", Ph: "pH", Ohm: "Ω", Mm: "mm", Ghz: "GHz", Mhz: "MHz", Deg: "°", Um2: "µm²" };
+
+/** "innerDiameterUm" → "inner diameter (µm)": the saved field's name for people. */
+export function estimateFieldName(key: string): string {
+  const m = /^(.*?)(Um2|Um|Nh|Ph|Ohm|Mm|Ghz|Mhz|Deg)$/.exec(key);
+  const base = (m ? m[1] : key).replace(/([a-z0-9])([A-Z])/g, "$1 $2").toLowerCase();
+  return m ? `${base} (${UNIT_SUFFIX[m[2]]})` : base;
+}
+
+const estimateValue = (v: number | string | boolean | null) => (typeof v === "number" ? String(Number(v.toPrecision(4))) : v === null ? "—" : String(v));
+const RECORD_META = new Set(["kind", "formula", "source", "savedAt", "warnings"]);
+
+function estimatesOf(shapes: readonly AnyShape[]): ReportData["estimates"] {
+  return shapes.flatMap((shape) =>
+    Object.values(savedEstimatesOf(shape.properties)).map((e) => ({
+      shape: `${KIND_STYLE[shape.kind].label}${shapeLabel(shape) ? ` ${shapeLabel(shape)}` : ""}`,
+      formula: String(e.formula ?? e.kind ?? "estimate"),
+      summary: summariseSavedEstimate(e) ?? "",
+      source: String(e.source ?? "—"),
+      savedAt: typeof e.savedAt === "string" ? e.savedAt.slice(0, 16).replace("T", " ") : "—",
+      warnings: typeof e.warnings === "string" ? e.warnings : "",
+      values: Object.entries(e).filter(([k]) => !RECORD_META.has(k)).map(([k, v]) => [estimateFieldName(k), estimateValue(v)] as const),
+    })),
+  );
 }
 
 /**
@@ -83,7 +122,9 @@ export async function loadReport(db: Db, actor: Actor, dieId: string, files: Ren
       lengthUm: polylineLength((s.geometry as { coordinates: readonly (readonly [number, number])[] }).coordinates),
       ...(s.kind === "trace" ? { widthUm: s.properties.widthUm } : {}),
     })),
-    ...(await reviewParts(db, dieId)),
+    ...(await reviewParts(db, dieId, src.shapes)),
+    estimates: estimatesOf(src.shapes),
+    umPerPx: ms.find((m) => m.isReference)?.scaleUmPerPx ?? null,
     micrographs: ms.map((m) => ({
       label: m.label,
       illumination: ILLUMINATION_LABELS[m.illumination],

@@ -1,5 +1,7 @@
 import { applyAffine } from "@/lib/geometry/affine";
-import { geometryCentre } from "@/lib/geometry/measure";
+import { geometryCentre, polylineLength } from "@/lib/geometry/measure";
+import { formatUm } from "@/lib/units/format-um";
+import { wrapText } from "./wrap-text";
 import type { Affine2x3, Position } from "@/lib/geometry/types";
 import { HALO_COLOUR, KIND_STYLE, PAD_STATE_STYLE } from "@/lib/markup/palette";
 import { shapeLabel } from "@/lib/markup/markup-table";
@@ -17,7 +19,13 @@ export function markupStyle(outputWidth: number): MarkupStyle {
 }
 
 /** A thread marker to draw: where (die µm) and whether it is still open. */
-export type ThreadMark = { readonly at: Position; readonly open: boolean; readonly number: number };
+export type ThreadMark = {
+  readonly at: Position;
+  readonly open: boolean;
+  readonly number: number;
+  /** Output px the marker was moved from its anchor to keep it off labels (a leader joins them). */
+  readonly offsetPx?: readonly [number, number];
+};
 
 function points(m: Affine2x3, ps: readonly Position[]): string {
   return ps.map(([x, y]) => applyAffine(m, x, y).map(n2).join(",")).join(" ");
@@ -58,6 +66,26 @@ export function shapeSvg(shape: AnyShape, m: Affine2x3, style: MarkupStyle): str
 
 /** Opacity of the dark plate under each label. */
 const LABEL_PLATE_OPACITY = 0.62;
+/** A note's text wraps at this many font sizes wide; other labels stay on one line. */
+const NOTE_WRAP_EM = 22;
+const LINE_HEIGHT = 1.25;
+
+/** Output µm per pixel of a die → output map (its linear part is a uniform scale). */
+const umPerPxOf = (m: Affine2x3) => 1 / Math.hypot(m[0][0], m[1][0]);
+
+/**
+ * The text a shape carries in an export: a ruler its length (with its label when it has one),
+ * in the decimals the output scale resolves; a note its whole text; others their label.
+ */
+export function exportLabelText(shape: AnyShape, m: Affine2x3): string {
+  if (shape.kind === "ruler" && shape.geometry.type === "LineString") {
+    const length = `${formatUm(polylineLength(shape.geometry.coordinates), umPerPxOf(m))} µm`;
+    const label = shapeLabel(shape).trim();
+    return label ? `${clip(label, 40)}: ${length}` : length;
+  }
+  if (shape.kind === "note") return shapeLabel(shape).trim();
+  return clip(shapeLabel(shape), 40);
+}
 
 /**
  * A shape's label centred on it, on a dark rounded plate so it reads on any background. A
@@ -69,20 +97,24 @@ export function labelSvg(shape: AnyShape, m: Affine2x3, style: MarkupStyle): str
   if (!box) return "";
   const f = style.fontPx;
   const plate = `<rect x="${n2(box.x)}" y="${n2(box.y)}" width="${n2(box.width)}" height="${n2(box.height)}" rx="${n2(f * 0.25)}" fill="#000" fill-opacity="${LABEL_PLATE_OPACITY}"/>`;
-  return `${plate}<text x="${n2(box.x + f * 0.25)}" y="${n2(box.baseline)}" font-size="${n2(f)}" fill="${KIND_STYLE[shape.kind].colour}">${xmlEscape(box.text)}</text>`;
+  const colour = KIND_STYLE[shape.kind].colour;
+  const texts = box.lines.map((line, i) => `<text x="${n2(box.x + f * 0.25)}" y="${n2(box.baseline + i * f * LINE_HEIGHT)}" font-size="${n2(f)}" fill="${colour}">${xmlEscape(line)}</text>`);
+  return plate + texts.join("");
 }
 
 /** Where a shape's label plate goes in output px (null when it has no label). */
-export function labelBox(shape: AnyShape, m: Affine2x3, style: MarkupStyle): { text: string; x: number; y: number; width: number; height: number; baseline: number } | null {
-  const text = clip(shapeLabel(shape), 40);
+export function labelBox(shape: AnyShape, m: Affine2x3, style: MarkupStyle): { lines: string[]; x: number; y: number; width: number; height: number; baseline: number } | null {
+  const text = exportLabelText(shape, m);
   if (!text) return null;
+  const f = style.fontPx;
+  const lines = shape.kind === "note" ? wrapText(text, NOTE_WRAP_EM * f, (t) => measured(t, f)).filter((l, i, all) => l !== "" || i < all.length - 1) : [text];
   const [cx, cy] = geometryCentre(shape.geometry);
   const [x, y] = applyAffine(m, cx, cy);
-  const f = style.fontPx;
-  // Baseline: centred on the shape, or above a point marker.
-  const baseline = shape.geometry.type === "Point" ? y - style.stroke * 4 - f * 0.3 : y + f * 0.35;
-  const width = measured(text, f) + f * 0.5;
-  return { text, x: x - width / 2, y: baseline - f, width, height: f * 1.3, baseline };
+  const width = Math.max(...lines.map((l) => measured(l, f))) + f * 0.5;
+  const height = f * 0.3 + lines.length * f * LINE_HEIGHT - (LINE_HEIGHT - 1) * f;
+  // A point's text sits above its marker (growing upwards); others are centred on the shape.
+  const top = shape.geometry.type === "Point" ? y - style.stroke * 4 - height : y - height / 2;
+  return { lines, x: x - width / 2, y: top, width, height, baseline: top + f };
 }
 
 /** Label widths, remembered: a label crossing tiles is measured once. */
@@ -98,22 +130,68 @@ function measured(text: string, f: number): number {
   return w;
 }
 
+/** Radius of a thread marker in output px. */
+export const threadRadius = (style: MarkupStyle) => style.fontPx * 0.75;
+
+type Box = readonly [number, number, number, number];
+
+/**
+ * Thread markers moved off every label plate and off each other: a marker that would cover a
+ * label goes straight up to just above it, as often as needed, and keeps a leader line to the
+ * place it marks. Done once for the whole output so a marker crossing tiles lands the same in each.
+ */
+export function placeThreadMarks(threads: readonly ThreadMark[], shapes: readonly AnyShape[], m: Affine2x3, style: MarkupStyle, labels: boolean): ThreadMark[] {
+  const obstacles: Box[] = labels
+    ? shapes.flatMap((s) => {
+        const b = labelBox(s, m, style);
+        return b ? [[b.x, b.y, b.x + b.width, b.y + b.height] as const] : [];
+      })
+    : [];
+  const r = threadRadius(style) + style.stroke / 2;
+  return threads.map((t) => {
+    const [ax, ay] = applyAffine(m, t.at[0], t.at[1]);
+    let y = ay;
+    for (let i = 0; i < 100; i++) {
+      const hit = obstacles.find((b) => ax + r > b[0] && ax - r < b[2] && y + r > b[1] && y - r < b[3]);
+      if (!hit) break;
+      y = hit[1] - r - style.stroke;
+    }
+    obstacles.push([ax - r, y - r, ax + r, y + r]);
+    return y === ay ? t : { ...t, offsetPx: [0, y - ay] as const };
+  });
+}
+
+/**
+ * The leader of a moved thread marker: a line from the place it marks to the marker, and a dot
+ * there. Drawn under the labels, so the plate it was moved off stays readable.
+ */
+export function threadLeaderSvg(t: ThreadMark, m: Affine2x3, style: MarkupStyle): string {
+  if (!t.offsetPx) return "";
+  const [ax, ay] = applyAffine(m, t.at[0], t.at[1]);
+  const x = ax + t.offsetPx[0];
+  const y = ay + t.offsetPx[1] + threadRadius(style);
+  return `<line x1="${n2(ax)}" y1="${n2(ay)}" x2="${n2(x)}" y2="${n2(y)}" stroke="#fff" stroke-width="${n2(style.stroke)}"/><circle cx="${n2(ax)}" cy="${n2(ay)}" r="${n2(style.stroke * 1.5)}" fill="#fff" stroke="#111" stroke-width="${n2(style.stroke / 2)}"/>`;
+}
+
 /** A numbered marker for a review thread (filled when open, hollow when resolved). */
 export function threadSvg(t: ThreadMark, m: Affine2x3, style: MarkupStyle): string {
-  const [x, y] = applyAffine(m, t.at[0], t.at[1]);
-  const r = style.fontPx * 0.75;
+  const [ax, ay] = applyAffine(m, t.at[0], t.at[1]);
+  const x = ax + (t.offsetPx?.[0] ?? 0);
+  const y = ay + (t.offsetPx?.[1] ?? 0);
+  const r = threadRadius(style);
   const fill = t.open ? "#ffffff" : "none";
   const colour = t.open ? "#111111" : "#ffffff";
   return `<circle cx="${n2(x)}" cy="${n2(y)}" r="${n2(r)}" fill="${fill}" stroke="#111" stroke-width="${n2(style.stroke)}"/><text x="${n2(x)}" y="${n2(y + r * 0.4)}" font-size="${n2(r * 1.1)}" text-anchor="middle" fill="${colour}">${t.number}</text>`;
 }
 
 /**
- * Everything drawn over the image area: shapes first (in creation order), then labels on top
- * of all shapes, then thread markers.
+ * Everything drawn over the image area: shapes first (in creation order), the leaders of moved
+ * thread markers, labels on top of all that, then the thread markers.
  */
 export function markupLayerSvg(shapes: readonly AnyShape[], m: Affine2x3, width: number, opts: { labels: boolean; threads: readonly ThreadMark[] }): string {
   const style = markupStyle(width);
   const parts = shapes.map((s) => shapeSvg(s, m, style));
+  parts.push(...opts.threads.map((t) => threadLeaderSvg(t, m, style)));
   if (opts.labels) parts.push(...shapes.map((s) => labelSvg(s, m, style)));
   parts.push(...opts.threads.map((t) => threadSvg(t, m, style)));
   return parts.join("");

@@ -3,7 +3,7 @@ import { applyAffine } from "@/lib/geometry/affine";
 import { boundingBox } from "@/lib/geometry/measure";
 import type { Affine2x3 } from "@/lib/geometry/types";
 import type { AnyShape } from "@/lib/markup/types";
-import { labelBox, markupLayerSvg, markupStyle, type MarkupStyle, type ThreadMark } from "./markup-svg";
+import { labelBox, markupLayerSvg, markupStyle, placeThreadMarks, threadRadius, type MarkupStyle, type ThreadMark } from "./markup-svg";
 
 /**
  * Splits the markup over the output into small SVG tiles, each holding only the shapes that
@@ -41,10 +41,12 @@ export function shapeReach(shape: AnyShape, m: Affine2x3, style: MarkupStyle, la
   return [x0, y0, x1, y1];
 }
 
+/** Output-pixel box of a thread marker, its leader and anchor included. */
 function threadReach(t: ThreadMark, m: Affine2x3, style: MarkupStyle): Box {
   const [x, y] = applyAffine(m, t.at[0], t.at[1]);
-  const r = style.fontPx + style.stroke * 2;
-  return [x - r, y - r, x + r, y + r];
+  const [dx, dy] = t.offsetPx ?? [0, 0];
+  const r = threadRadius(style) + style.stroke * 2;
+  return [Math.min(x, x + dx) - r, Math.min(y, y + dy) - r, Math.max(x, x + dx) + r, Math.max(y, y + dy) + r];
 }
 
 const touches = (b: Box, left: number, top: number, w: number, h: number) => b[2] >= left && b[0] <= left + w && b[3] >= top && b[1] <= top + h;
@@ -62,7 +64,9 @@ export function markupTiles(
   const th = opts.tileHeight ?? TILE_HEIGHT;
   const style = markupStyle(width);
   const shapeBoxes = shapes.map((s) => shapeReach(s, m, style, opts.labels));
-  const threadBoxes = threads.map((t) => threadReach(t, m, style));
+  // Placed once over the whole output, so a marker crossing tiles is drawn the same in each.
+  const placed = placeThreadMarks(threads, shapes, m, style, opts.labels);
+  const threadBoxes = placed.map((t) => threadReach(t, m, style));
   const tiles: OverlayTile[] = [];
   for (let top = 0; top < height; top += th) {
     const h = Math.min(th, height - top);
@@ -72,7 +76,7 @@ export function markupTiles(
     for (let left = 0; left < width; left += tw) {
       const w = Math.min(tw, width - left);
       const inShapes = rowShapes.filter((_, i) => touches(rowBoxes[i], left, top, w, h));
-      const inThreads = threads.filter((_, i) => touches(threadBoxes[i], left, top, w, h));
+      const inThreads = placed.filter((_, i) => touches(threadBoxes[i], left, top, w, h));
       if (inShapes.length === 0 && inThreads.length === 0) continue;
       const local: Affine2x3 = [
         [m[0][0], m[0][1], m[0][2] - left],

@@ -27,9 +27,10 @@ describe("previewPlan", () => {
     const p = previewPlan(original, { width: 2048, height: 1536 }, full());
     expect(p.fromCopy).toBe(true);
     expect(p.plan.width).toBe(PREVIEW_WIDTH_PX);
-    expect(p.plan.region).toEqual({ x: 0, y: 0, width: 3000, height: 2250 });
-    // 3000 µm over 640 px = 4.6875 µm/px (by hand); the copy has 3000 / 2048 = 1.46 µm/px.
-    expect(p.plan.umPerPx).toBeCloseTo(4.6875, 9);
+    // The 3000 × 2250 µm die with 10 % of its larger side (300 µm) around it.
+    expect(p.plan.region).toEqual({ x: -300, y: -300, width: 3600, height: 2850 });
+    // 3600 µm over 640 px = 5.625 µm/px (by hand); the copy has 3000 / 2048 = 1.46 µm/px.
+    expect(p.plan.umPerPx).toBeCloseTo(5.625, 9);
   });
 
   it("falls back to the original for a small region the copy would have to enlarge", () => {

@@ -1,5 +1,6 @@
 import { applyAffine, composeAffine, invertAffine } from "@/lib/geometry/affine";
 import type { Affine2x3 } from "@/lib/geometry/types";
+import { wholeDieRegion, type ExtentUm } from "./view-region";
 
 /**
  * Where an annotated export reads its pixels and how it maps the die onto the output. Pure
@@ -201,15 +202,15 @@ function affineWindow(image: SourceImage, toOutput: Affine2x3, W: number, H: num
 }
 
 /**
- * Plans an export of `req.region` (die µm; absent = the whole die, or the micrograph's extent
- * when the die has no size) at `umPerPx`, or at `region.width / widthPx`. Refuses outputs over
+ * Plans an export of `req.region` (die µm; absent = the whole die with the markup around it and
+ * a margin (`wholeDieRegion`), or the micrograph's extent when the die has no size) at `umPerPx`, or at `region.width / widthPx`. Refuses outputs over
  * 16,384 px; warns when the output enlarges the source. Micrographs whose alignment rotates or
  * shears them are resampled through their transform, so the export is always in the die frame.
  */
-export function planRender(image: SourceImage, die: { widthUm: number | null; heightUm: number | null }, req: PlanRequest): PlanResult {
+export function planRender(image: SourceImage, die: { widthUm: number | null; heightUm: number | null; extentUm?: ExtentUm | null }, req: PlanRequest): PlanResult {
   const [[a, b], [c, d]] = image.transform;
   const axisAligned = Math.abs(b) <= ROTATION_TOLERANCE * Math.abs(a) && Math.abs(c) <= ROTATION_TOLERANCE * Math.abs(d) && a !== 0 && d !== 0;
-  const region = req.region ?? (die.widthUm && die.heightUm ? { x: 0, y: 0, width: die.widthUm, height: die.heightUm } : imageExtentUm(image));
+  const region = req.region ?? wholeDieRegion(die) ?? imageExtentUm(image);
   if (!(region.width > 0 && region.height > 0)) return { ok: false, message: "The region must have a positive width and height." };
   const native = Math.sqrt(Math.abs(a * d - b * c));
   if (!(native > 0)) return { ok: false, message: "This micrograph's transform is degenerate; align it again." };

@@ -20,6 +20,8 @@ const transform = [
   [0, -2, 1800],
 ] as const;
 const die = { widthUm: 2400, heightUm: 1800 };
+// The die rectangle itself (a whole-die export adds a margin around it).
+const DIE_RECT = { x: 0, y: 0, width: 2400, height: 1800 };
 
 beforeAll(async () => {
   // A smooth ramp (x → red, y → green) with no markup-like colours, so shapes are easy to find.
@@ -154,8 +156,8 @@ describe("renderAnnotatedPng of a rotated micrograph", () => {
   }
 
   it("places a feature of the micrograph where its transform puts it in the die frame (±1 px)", async () => {
-    // Whole die at 4 µm/px: output X = xµm / 4, Y = (1800 − yµm) / 4.
-    const p = rotatedPlan({ umPerPx: 4 });
+    // The die rectangle at 4 µm/px: output X = xµm / 4, Y = (1800 − yµm) / 4.
+    const p = rotatedPlan({ region: DIE_RECT, umPerPx: 4 });
     expect(p.source?.kind).toBe("affine");
     const { png } = await renderAnnotatedPngBuffer({ ...input(p), original: marked });
     const img = await rawOf(png);
@@ -179,7 +181,7 @@ describe("renderAnnotatedPng of a rotated micrograph", () => {
   });
 
   it("samples the micrograph through the inverse transform: ramp values match, background outside", async () => {
-    const p = rotatedPlan({ umPerPx: 4 });
+    const p = rotatedPlan({ region: DIE_RECT, umPerPx: 4 });
     const { png } = await renderAnnotatedPngBuffer(input(p));
     const img = await rawOf(png);
     let inside = 0;
@@ -218,7 +220,7 @@ describe("renderAnnotatedPng of a rotated micrograph", () => {
 describe("renderAnnotatedPngFile over several bands", () => {
   it("gives the same pixels as the single-pass render, threads and labels included", async () => {
     // 1200 px wide at 2 µm/px: 900 image rows + footer, two bands of 512 rows.
-    const p = plan({ umPerPx: 2 });
+    const p = plan({ region: DIE_RECT, umPerPx: 2 });
     const labelled = { ...pad, properties: { ...pad.properties, label: "VDD" } } as AnyShape;
     const threads = [{ at: [1200, 900] as const, open: true, number: 1 }, { at: [1210, 505] as const, open: false, number: 2 }];
     const full = { ...input(p, [labelled]), threads, labels: true };

@@ -1,4 +1,4 @@
-import { PdfWriter, type Column } from "./pdf-layout";
+import { A4, PdfWriter, type Column } from "./pdf-layout";
 import type { PadTable } from "@/lib/pads";
 import { formatUm } from "@/lib/units/format-um";
 
@@ -13,7 +13,11 @@ export type ReportData = {
   readonly blocks: readonly { readonly name: string; readonly function: string; readonly areaUm2: number }[];
   readonly measurements: readonly { readonly kind: string; readonly label: string; readonly lengthUm: number; readonly widthUm?: number }[];
   readonly reviewHistory: readonly { readonly at: string; readonly who: string; readonly action: string; readonly from: string; readonly to: string; readonly message: string }[];
-  readonly threads: readonly { readonly number: number; readonly status: string; readonly author: string; readonly firstComment: string; readonly comments: number; readonly createdAt: string }[];
+  readonly threads: readonly ReportThread[];
+  /** Estimates saved on shapes, each with every input and result it holds. */
+  readonly estimates: readonly ReportEstimate[];
+  /** Scale of the micrograph that defines the die frame: how many decimals lengths get. */
+  readonly umPerPx: number | null;
   readonly micrographs: readonly {
     readonly label: string;
     readonly illumination: string;
@@ -26,53 +30,77 @@ export type ReportData = {
   }[];
 };
 
-/** µm through the one formatter, at `digits` decimals (0.1 µm: what an optical micrograph resolves at best). */
-const um = (v: number | null | undefined, digits = 1) => (v === null || v === undefined ? "—" : formatUm(v, 10 ** -digits));
+/** One review thread with every message in order (the first is the remark, the rest replies). */
+export type ReportThread = {
+  readonly number: number;
+  readonly status: string;
+  readonly author: string;
+  readonly createdAt: string;
+  readonly on: string;
+  readonly resolved: string | null;
+  readonly messages: readonly { readonly author: string; readonly at: string; readonly body: string; readonly edited: boolean }[];
+};
 
-type Section = { title: string; draw: (w: PdfWriter) => Promise<void> | void };
+/** One estimate saved on a shape. */
+export type ReportEstimate = {
+  readonly shape: string;
+  readonly formula: string;
+  readonly summary: string;
+  readonly source: string;
+  readonly savedAt: string;
+  readonly warnings: string;
+  readonly values: readonly (readonly [string, string])[];
+};
+
+/** `keep`: points that must fit below the heading, or the section starts on the next page. */
+type Section = { title: string; keep?: number; draw: (w: PdfWriter) => Promise<void> | void };
+
+const OVERVIEW_MIN_HEIGHT = 240;
 
 function sections(d: ReportData): Section[] {
+  const um = (v: number | null | undefined) => (v === null || v === undefined ? "—" : formatUm(v, d.umPerPx));
   return [
     {
       title: "Overview",
+      keep: d.overview ? OVERVIEW_MIN_HEIGHT + 60 : undefined,
       draw: async (w) => {
         if (!d.overview) return w.text("No micrograph of this die is in the die frame yet, so no overview image could be drawn.");
-        await w.image(d.overview.png);
-        w.text(d.overview.caption, 9);
+        await w.image(d.overview.png, 420, d.overview.caption, OVERVIEW_MIN_HEIGHT);
       },
     },
-    { title: "Pad table", draw: (w) => padSection(w, d.padTable) },
+    { title: "Pad table", draw: (w) => padSection(w, d.padTable, um) },
     {
       title: "Blocks and their functions",
       draw: (w) =>
         d.blocks.length === 0
-          ? w.text("No blocks are marked.")
+          ? w.text("No blocks are marked.", 9)
           : w.table([{ header: "Block", width: 150 }, { header: "Function", width: 245 }, { header: "Area (µm²)", width: 100, align: "right" }], d.blocks.map((b) => [b.name || "(unnamed)", b.function, b.areaUm2.toFixed(0)])),
     },
     {
       title: "Measurements",
       draw: (w) =>
         d.measurements.length === 0
-          ? w.text("No rulers or traces are drawn.")
+          ? w.text("No rulers or traces are drawn.", 9)
           : w.table(
               [{ header: "Kind", width: 80 }, { header: "Label", width: 215 }, { header: "Length (µm)", width: 100, align: "right" }, { header: "Width (µm)", width: 100, align: "right" }],
-              d.measurements.map((m) => [m.kind, m.label, m.lengthUm.toFixed(1), m.widthUm === undefined ? "" : m.widthUm.toFixed(2)]),
+              d.measurements.map((m) => [m.kind, m.label, um(m.lengthUm), m.widthUm === undefined ? "" : um(m.widthUm)]),
             ),
     },
+    { title: "Saved estimates", draw: (w) => estimatesSection(w, d.estimates) },
     { title: "Review", draw: (w) => reviewSection(w, d) },
     {
       title: "Micrographs",
       draw: (w) =>
         w.table(
-          [{ header: "Micrograph", width: 110 }, { header: "Illumination", width: 70 }, { header: "Pixels", width: 75 }, { header: "Scale", width: 70 }, { header: "Objective", width: 60 }, { header: "Alignment RMS", width: 75 }, { header: "Status", width: 35 }],
+          [{ header: "Micrograph", width: 110 }, { header: "Illumination", width: 70 }, { header: "Pixels", width: 70 }, { header: "Scale", width: 70 }, { header: "Objective", width: 60 }, { header: "Alignment RMS", width: 70 }, { header: "Status", width: 45 }],
           d.micrographs.map((m) => [`${m.label}${m.reference ? " (reference)" : ""}`, m.illumination, m.size, m.scale, m.objective, m.alignmentRms, m.status]),
         ),
     },
   ];
 }
 
-function padSection(w: PdfWriter, t: ReportData["padTable"]) {
-  if ("unavailable" in t) return w.text(t.unavailable);
+function padSection(w: PdfWriter, t: ReportData["padTable"], um: (v: number | null | undefined) => string) {
+  if ("unavailable" in t) return w.text(t.unavailable, 9);
   const s = t.summary.padsPerSide;
   w.text(`${t.rows.length} pads (N ${s.N}, E ${s.E}, S ${s.S}, W ${s.W}); smallest pitch ${t.summary.minPitchUm === null ? "—" : `${um(t.summary.minPitchUm)} µm`}. Numbered counter-clockwise from pad 1; positions from the die's lower-left corner.`, 9);
   const cols: Column[] = [
@@ -86,61 +114,98 @@ function padSection(w: PdfWriter, t: ReportData["padTable"]) {
     { header: "Size (µm)", width: 55, align: "right" },
     { header: "Pitch", width: 45, align: "right" },
   ];
-  w.table(cols, t.rows.map((r) => [String(r.number), r.label, r.net, r.state, r.side, um(r.xUm), um(r.yUm), `${um(r.widthUm, 0)}×${um(r.heightUm, 0)}`, um(r.pitchUm)]));
+  w.table(cols, t.rows.map((r) => [String(r.number), r.label, r.net, r.state, r.side, um(r.xUm), um(r.yUm), `${um(r.widthUm)}×${um(r.heightUm)}`, um(r.pitchUm)]));
+}
+
+function estimatesSection(w: PdfWriter, estimates: ReportData["estimates"]) {
+  if (estimates.length === 0) return w.text("No estimates are saved on shapes.", 9);
+  w.text("First-order estimates from the drawn geometry, as saved on each shape: every input and result, the formula and its source.", 9, { grey: true });
+  for (const e of estimates) {
+    w.text(`${e.shape}: ${e.formula}${e.summary ? ` — ${e.summary}` : ""}`, 9.5, { bold: true, gap: 2 });
+    w.text(e.values.map(([k, v]) => `${k} ${v}`).join(" · "), 8.5, { indent: 12, gap: 2 });
+    if (e.warnings) w.text(`Warnings: ${e.warnings}`, 8.5, { indent: 12, gap: 2 });
+    w.text(`Source: ${e.source}. Saved ${e.savedAt}.`, 8, { indent: 12, grey: true, gap: 6 });
+  }
 }
 
 function reviewSection(w: PdfWriter, d: ReportData) {
-  w.facts([["Review status", d.die.reviewStatus], ["Analyst", d.die.analyst]]);
+  w.facts([["Review status", d.die.reviewStatus], ["Analyst", d.die.analyst]], 9.5, 110);
   w.text("History", 11, { bold: true });
   if (d.reviewHistory.length === 0) w.text("The die has not been submitted for review yet.", 9);
-  else w.table([{ header: "When", width: 95 }, { header: "Who", width: 90 }, { header: "Action", width: 80 }, { header: "Status", width: 110 }, { header: "Message", width: 120 }], d.reviewHistory.map((h) => [h.at, h.who, h.action, `${h.from} to ${h.to}`, h.message]));
+  for (const h of d.reviewHistory) {
+    w.text(`${h.at} · ${h.who} · ${h.action} (${h.from} to ${h.to})`, 9, { bold: true, gap: 1 });
+    if (h.message) w.text(h.message, 9, { indent: 12, gap: 5 });
+    else w.y -= 4;
+  }
+  w.y -= 4;
   w.text("Threads", 11, { bold: true });
   if (d.threads.length === 0) w.text("No review threads.", 9);
-  else w.table([{ header: "No.", width: 30, align: "right" }, { header: "Status", width: 55 }, { header: "Opened by", width: 85 }, { header: "First comment", width: 230 }, { header: "Comments", width: 55, align: "right" }, { header: "Opened", width: 40 }], d.threads.map((t) => [String(t.number), t.status, t.author, t.firstComment, String(t.comments), t.createdAt]));
+  for (const t of d.threads) {
+    w.ensure(40);
+    const resolved = t.resolved ? `; ${t.resolved}` : "";
+    w.text(`Thread ${t.number} · ${t.status} · raised by ${t.author} on ${t.createdAt} · ${t.on}${resolved}`, 9.5, { bold: true, gap: 2 });
+    for (const m of t.messages) {
+      w.ensure(26); // the author line stays with the message's first line
+      w.text(`${m.author}, ${m.at}${m.edited ? " (edited)" : ""}`, 8, { indent: 12, grey: true, gap: 0 });
+      w.text(m.body, 9, { indent: 12, gap: 4 });
+    }
+    w.y -= 4;
+  }
 }
 
 function cover(w: PdfWriter, d: ReportData) {
-  w.y -= 80;
-  w.text("Die report", 28, { bold: true, gap: 14 });
-  w.text(`${d.caseInfo.title} — ${d.die.name}`, 16, { gap: 24 });
-  w.facts([
-    ["Case", d.caseInfo.title],
-    ["Part marking", d.caseInfo.partMarking],
-    ["Package", d.caseInfo.package],
-    ["Sample", d.caseInfo.sampleId],
-    ["Die", d.die.name],
-    ["Die size", d.die.widthUm && d.die.heightUm ? `${um(d.die.widthUm)} × ${um(d.die.heightUm)} µm` : "not recorded"],
-    ["Analyst", d.die.analyst],
-    ["Review status", d.die.reviewStatus],
-    ["Notes", d.die.notes],
-    ["Generated", `${d.generatedAt} by ${d.generatedBy}`],
-  ]);
-  w.text("Coordinates are in the die frame: micrometres from the die's lower-left corner, x right, y up.", 9);
+  const um = (v: number) => formatUm(v, d.umPerPx);
+  w.text("Die report", 24, { bold: true, gap: 6 });
+  w.text(`${d.caseInfo.title} — ${d.die.name}`, 14, { gap: 12 });
+  w.facts(
+    [
+      ["Case", d.caseInfo.title],
+      ["Part marking", d.caseInfo.partMarking],
+      ["Package", d.caseInfo.package],
+      ["Sample", d.caseInfo.sampleId],
+      ["Die", d.die.name],
+      ["Die size", d.die.widthUm && d.die.heightUm ? `${um(d.die.widthUm)} × ${um(d.die.heightUm)} µm` : "not recorded"],
+      ["Analyst", d.die.analyst],
+      ["Review status", d.die.reviewStatus],
+      ["Notes", d.die.notes],
+      ["Generated", `${d.generatedAt} by ${d.generatedBy}`],
+    ],
+    9.5,
+    110,
+  );
+  w.text("Coordinates are in the die frame: micrometres from the die's lower-left corner, x right, y up.", 8.5, { grey: true });
 }
 
+const CONTENTS_LINE = 13;
+
 /**
- * The die report as a PDF: cover, table of contents, then one section per topic, each starting
- * on a new page, and "page n of N" on every page. The contents page is reserved first and
- * filled once every section's first page is known.
+ * The die report as a PDF: a cover with the contents, then the sections one after another,
+ * text flowing across pages (a heading never sits alone at the foot of a page), and "page n of
+ * N" on every page. The contents lines are reserved on the cover and filled once every
+ * section's page is known.
  */
 export async function buildReportPdf(d: ReportData): Promise<Uint8Array> {
   const w = await PdfWriter.create(`Die report: ${d.caseInfo.title} — ${d.die.name}`);
   cover(w, d);
-  w.newPage();
-  const tocPage = w.page;
+  const list = sections(d);
+  w.text("Contents", 11, { bold: true, gap: 2 });
+  const toc = w.reserve(list.length * CONTENTS_LINE + 8);
   const starts: { title: string; page: number }[] = [];
-  for (const s of sections(d)) {
-    w.newPage();
+  for (const s of list) {
+    w.heading(s.title, 14, s.keep);
     starts.push({ title: s.title, page: w.pageIndex + 1 });
-    w.heading(s.title);
     await s.draw(w);
   }
-  const last = w.page;
-  w.page = tocPage;
-  w.y = 841.89 - 50;
-  w.heading("Contents", 18);
-  w.table([{ header: "Section", width: 400 }, { header: "Page", width: 95, align: "right" }], starts.map((s) => [s.title, String(s.page)]), 11);
-  w.page = last;
+  const last = { page: w.page, y: w.y };
+  w.page = toc.page;
+  starts.forEach((s, i) => {
+    const y = toc.y - CONTENTS_LINE * (i + 1);
+    const num = String(s.page);
+    w.page.drawText(s.title, { x: 50, y, size: 9.5, font: w.font });
+    w.page.drawText(num, { x: A4[0] - 50 - w.font.widthOfTextAtSize(num, 9.5), y, size: 9.5, font: w.font });
+  });
+  w.page = last.page;
+  w.y = last.y;
   w.numberPages(`${d.caseInfo.title} — ${d.die.name}`);
   return w.doc.save();
 }

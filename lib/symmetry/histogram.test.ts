@@ -1,5 +1,5 @@
 import { describe, it, expect } from "vitest";
-import { deviationHistogram } from "./histogram";
+import { axisDecimals, deviationHistogram } from "./histogram";
 
 describe("deviationHistogram", () => {
   it("counts values into equal bins from zero to the largest", () => {
@@ -22,5 +22,17 @@ describe("deviationHistogram", () => {
     expect(deviationHistogram([1, Number.NaN, Infinity], 1)[0].count).toBe(1);
     expect(() => deviationHistogram([1], 0)).toThrow(RangeError);
     expect(() => deviationHistogram([1], 2.5)).toThrow(RangeError);
+  });
+});
+
+describe("axisDecimals", () => {
+  // By hand: one unit of the last digit is at most a tenth of the span.
+  it("gives small spreads enough decimals that the axis ends differ", () => {
+    expect(axisDecimals(0, 0.03)).toBe(3); // 0.000 … 0.030, not 0.0 … 0.0
+    expect((0.03).toFixed(axisDecimals(0, 0.03))).not.toBe((0).toFixed(axisDecimals(0, 0.03)));
+    expect(axisDecimals(0, 1)).toBe(1);
+    expect(axisDecimals(0, 12)).toBe(0);
+    expect(axisDecimals(0, 0.0004)).toBe(5);
+    expect(axisDecimals(2, 2)).toBe(1);
   });
 });

@@ -21,3 +21,14 @@ export function deviationHistogram(values: readonly number[], binCount: number):
   for (const v of finite) counts[Math.min(binCount - 1, Math.floor((v - lo) / width))]++;
   return counts.map((count, i) => ({ fromUm: lo + i * width, toUm: i === binCount - 1 ? hi : lo + (i + 1) * width, count }));
 }
+
+/**
+ * Decimals for the ends of a histogram axis from `lo` to `hi`: enough that one unit of the last
+ * digit is at most a tenth of the span, so both ends read as different numbers (0.000 … 0.030
+ * rather than 0.0 … 0.0), from 0 up to 6.
+ */
+export function axisDecimals(lo: number, hi: number): number {
+  const span = Math.abs(hi - lo);
+  if (!(span > 0) || !Number.isFinite(span)) return 1;
+  return Math.min(6, Math.max(0, Math.ceil(-Math.log10(span) - 1e-9) + 1));
+}

@@ -4,7 +4,7 @@
  */
 export { symmetryReport } from "./report";
 export { mirrorGeometry, reflectPoint, signedDistance, axisLine, type AxisLine } from "./reflect";
-export { deviationHistogram, type HistogramBin } from "./histogram";
+export { axisDecimals, deviationHistogram, type HistogramBin } from "./histogram";
 export { shapeCentre, boundingBox, pathLength } from "./shape-metrics";
 export {
   SYMMETRY_KINDS,

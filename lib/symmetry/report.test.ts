@@ -89,6 +89,20 @@ describe("symmetryReport", () => {
     expect(pair.offsetUm.y).toBeCloseTo(4, 9);
   });
 
+  it("counts shapes on the axis apart from the pairs, and leaves them out of the pair offsets", () => {
+    // By hand: 9 pad pairs, the mixer halves and the peaking lines are pairs of two shapes (11);
+    // the LNA and IF buffer straddle y = 800 and are their own mirror images (2 on the axis).
+    // The LNA moved up 4 µm is 8 µm from its mirror image, which must not become the largest pair offset.
+    const shapes = replace(layout(), "lna", rect(300, 604, 800, 1004));
+    const { summary } = symmetryReport(shapes, AXIS, { toleranceUm: 1 });
+    expect(summary.pairCount).toBe(11);
+    expect(summary.withinToleranceCount).toBe(11);
+    expect(summary.onAxisCount).toBe(2);
+    expect(summary.onAxisWithinToleranceCount).toBe(1);
+    expect(summary.maxDeviationUm).toBeLessThan(1e-9);
+    expect(summary.totalDeviationUm).toBeCloseTo(8, 9);
+  });
+
   it("leaves shapes unmatched beyond the cut-off and without a partner", () => {
     let shapes = replace(layout(), "pad-bottom-8", flipY(rect(1960 + 60, 1480, 2040 + 60, 1560)));
     shapes = [...shapes, { id: "pad-extra", kind: "pad", geometry: rect(2250, 1300, 2330, 1380) }];

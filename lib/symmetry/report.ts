@@ -88,16 +88,21 @@ export function symmetryReport(shapes: readonly SymmetryShape[], axis: SymmetryA
     pairs.push(...result.pairs);
     unmatched.push(...result.unmatched);
   }
-  const deviations = pairs.map((p) => p.deviationUm);
-  const total = deviations.reduce((a, b) => a + b, 0);
+  // Shapes on the axis are their own mirror images: counted apart, never as pairs.
+  const mirrored = pairs.filter((p) => !p.selfPaired);
+  const onAxis = pairs.filter((p) => p.selfPaired);
+  const deviations = mirrored.map((p) => p.deviationUm);
+  const total = pairs.reduce((a, p) => a + p.deviationUm, 0);
   return {
     pairs,
     unmatched,
     summary: {
-      pairCount: pairs.length,
-      withinToleranceCount: pairs.filter((p) => p.withinTolerance).length,
+      pairCount: mirrored.length,
+      withinToleranceCount: mirrored.filter((p) => p.withinTolerance).length,
+      onAxisCount: onAxis.length,
+      onAxisWithinToleranceCount: onAxis.filter((p) => p.withinTolerance).length,
       maxDeviationUm: deviations.reduce((m, d) => Math.max(m, d), 0),
-      meanDeviationUm: deviations.length ? total / deviations.length : 0,
+      meanDeviationUm: deviations.length ? deviations.reduce((a, b) => a + b, 0) / deviations.length : 0,
       totalDeviationUm: total,
     },
     options: o,

@@ -44,12 +44,18 @@ export type UnmatchedShape = { readonly id: string; readonly kind: SymmetryKind 
 export type SymmetryReport = {
   readonly pairs: SymmetryPair[];
   readonly unmatched: UnmatchedShape[];
+  /** `pairs` holds the shapes on the axis too (selfPaired); the summary counts them apart. */
   readonly summary: {
+    /** Pairs of two different shapes mirrored across the axis. */
     readonly pairCount: number;
     readonly withinToleranceCount: number;
+    /** Shapes on the axis, each its own mirror image. */
+    readonly onAxisCount: number;
+    readonly onAxisWithinToleranceCount: number;
+    /** Largest and mean offset over the pairs of two shapes (shapes on the axis left out). */
     readonly maxDeviationUm: number;
     readonly meanDeviationUm: number;
-    /** Sum of deviations over all pairs: the quantity the assignment minimises. */
+    /** Sum of deviations over all pairs and on-axis shapes: the quantity the assignment minimises. */
     readonly totalDeviationUm: number;
   };
   readonly options: Required<SymmetryOptions>;

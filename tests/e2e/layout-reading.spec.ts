@@ -100,6 +100,8 @@ test("the analyst reads the symmetry report of a die with an axis and one pad mo
       pad("VB1", 650, 1530),
       pad("VB1S", 654, 70),
       pad("NC1", 1650, 70),
+      // G2 straddles the axis: its own mirror image, listed apart and not counted as a pair.
+      pad("G2", 1200, 800),
     ]);
     return d.id;
   });
@@ -107,9 +109,11 @@ test("the analyst reads the symmetry report of a die with an axis and one pad mo
   await page.getByRole("tab", { name: "Symmetry" }).click();
   const report = page.getByRole("region", { name: "Symmetry report" });
   await page.getByLabel("Tolerance (µm)").fill("1");
-  // By hand: two pairs, VB1–VB1S 4 µm apart (in x), VCC1–VEE1 exact; NC1 has no partner.
-  await expect(report.getByTestId("symmetry-summary")).toHaveText("2 pairs, 1 within tolerance · largest offset 4.00 µm · mean 2.00 µm · 1 without a partner");
-  await expect(report.getByRole("img", { name: /Histogram of 2 pair deviations/ })).toBeVisible();
+  // By hand: two pairs, VB1–VB1S 4 µm apart (in x), VCC1–VEE1 exact; G2 on the axis; NC1 has no partner.
+  await expect(report.getByTestId("symmetry-summary")).toHaveText("2 pairs, 1 within tolerance · largest offset 4.00 µm · mean 2.00 µm · 1 on the axis · 1 without a partner");
+  await expect(report.getByTestId("symmetry-on-axis")).toContainText("G2");
+  // The histogram's axis ends read as different numbers (0.0 … 4.0 µm here).
+  await expect(report.getByRole("img", { name: /Histogram of 2 pair deviations from 0\.0 to 4\.0 µm/ })).toBeVisible();
   const rows = report.getByRole("row");
   await expect(rows.nth(1)).toContainText("4.00"); // sorted by offset, largest first
   await expect(rows.nth(1)).toContainText("no");

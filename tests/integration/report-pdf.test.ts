@@ -4,6 +4,10 @@ import { PDFDocument } from "pdf-lib";
 import { demoWorld, EVERYONE, freshCase, type Who } from "./fixtures";
 import { uploadForm } from "../support/images";
 import { waitForStatus } from "../support/micrographs";
+import { execFileSync } from "node:child_process";
+import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
+import { tmpdir } from "node:os";
+import { join } from "node:path";
 
 // The PDF die report over HTTP: any member downloads it, outsiders get 404; the file opened by
 // an independent PDF parser (pdfjs-dist, once installed) holds the title, the pad labels and
@@ -13,6 +17,10 @@ let dieId: string;
 
 const rect = (x0: number, y0: number, w: number, h: number) => ({ type: "Polygon", coordinates: [[[x0, y0], [x0 + w, y0], [x0 + w, y0 + h], [x0, y0 + h], [x0, y0]]] });
 const LABELS = ["VREF", "GND", "OUTA", "VCC"];
+// Longer than any table cell, so a layout that cuts cells shows it.
+const LONG_REMARK = "The bandgap core looks re-drawn: " + Array.from({ length: 40 }, (_, i) => `detail${i}`).join(" ") + " please compare with the dark-field frame.";
+const REPLY = "Reply: the trim fuses F2 and F3 are open, photographed at 50x; nothing else differs.";
+const SAVED = { kind: "bond-wire", formula: "Bond-wire inductance (Rosa; Grover)", source: "Grover 1946", lengthUm: 1000, diameterUm: 25, inductanceNh: 1.024, savedAt: "2026-12-01T10:00:00.000Z" };
 
 beforeAll(async () => {
   world = await demoWorld();
@@ -28,12 +36,15 @@ beforeAll(async () => {
     { kind: "pad", geometry: rect(920, 600, 60, 60), properties: { label: LABELS[3], state: "unbonded" } },
     { kind: "block", geometry: rect(300, 300, 300, 200), properties: { name: "bandgap", function: "voltage reference" } },
     { kind: "ruler", geometry: { type: "LineString", coordinates: [[0, 100], [1000, 100]] }, properties: { label: "die width" } },
+    { kind: "wire_bond", geometry: { type: "LineString", coordinates: [[50, 630], [-200, 630]] }, properties: { label: "BW1", estimates: { "bond-wire": SAVED } } },
   ];
   expect((await world.clients.analyst.request("POST", `/api/dies/${dieId}/markup`, shapes)).status).toBe(201);
   // Review: one open thread, one resolved, and the die submitted for review.
   const open = await world.clients.reviewer.request<{ id: string }>("POST", `/api/dies/${dieId}/threads`, { region: rect(400, 400, 50, 50), body: "Is the bandgap trimmed? Ω ± 5 %" });
   expect(open.status).toBe(201);
   const closed = await world.clients.reviewer.request<{ id: string }>("POST", `/api/dies/${dieId}/threads`, { region: rect(100, 100, 50, 50), body: "Pad pitch checked" });
+  expect((await world.clients.analyst.request("POST", `/api/threads/${open.body.id}/comments`, { body: REPLY })).status).toBe(201);
+  expect((await world.clients.reviewer.request("POST", `/api/dies/${dieId}/threads`, { region: rect(600, 300, 50, 50), body: LONG_REMARK })).status).toBe(201);
   expect((await world.clients.reviewer.request("POST", `/api/threads/${closed.body.id}/resolve`, {})).status).toBe(200);
   expect((await world.clients.analyst.request("POST", `/api/dies/${dieId}/review`, { action: "submit", message: "ready for a look" })).status).toBe(200);
 });
@@ -73,9 +84,30 @@ describe("PDF die report", () => {
     // ISO 32000-1 §7.5.2: a PDF file starts with the header %PDF-1.n.
     expect(Buffer.from(body.subarray(0, 5)).toString("latin1")).toBe("%PDF-");
     const doc = await PDFDocument.load(body);
-    // Cover, contents and six sections, each starting on its own page.
-    expect(doc.getPageCount()).toBeGreaterThanOrEqual(8);
+    // The sections flow one after another: this little die fits on a few pages (it took eight
+    // when each section started a page of its own).
+    expect(doc.getPageCount()).toBeLessThanOrEqual(4);
     expect(doc.getTitle()).toBe("Die report: Report case — die 1");
+  });
+
+  // poppler's pdftotext is an independent reader of the text the pages draw.
+  it("prints every remark, reply and saved estimate in full, read back by pdftotext", async () => {
+    const { body } = await fetchPdf("viewer");
+    const dir = mkdtempSync(join(tmpdir(), "report-"));
+    let text: string;
+    try {
+      writeFileSync(join(dir, "r.pdf"), body);
+      text = execFileSync("pdftotext", ["-enc", "UTF-8", join(dir, "r.pdf"), "-"], { encoding: "utf8" });
+    } finally {
+      rmSync(dir, { recursive: true, force: true });
+    }
+    const flat = text.split(/\s+/).filter(Boolean).join(" ");
+    for (const m of [LONG_REMARK, REPLY, "Is the bandgap trimmed? Ω ± 5 %", "Pad pitch checked", "ready for a look"]) expect(flat).toContain(m);
+    expect(text).not.toContain("…");
+    // The reply under its author and full date and time.
+    expect(flat).toMatch(new RegExp(`, \\d{4}-\\d{2}-\\d{2} \\d{2}:\\d{2} ${REPLY.replace(/[.*+?^${}()|[\]\\]/g, "\\$&")}`));
+    expect(flat).toContain("Bond-wire inductance (Rosa; Grover) — L 1.02 nH");
+    expect(flat).toContain("length (µm) 1000 · diameter (µm) 25 · inductance (nH) 1.024");
   });
 
   // pdfjs-dist is an independent PDF reader (not installed yet: the lead adds it as a dev dependency).

@@ -3,6 +3,8 @@ import type { AnyShape, PadProperties } from "@/lib/markup/types";
 import { HALO_COLOUR, KIND_STYLE, PAD_STATE_STYLE } from "../palette";
 import { bondedPadIds, shownPadState } from "@/lib/markup/pad-state";
 import { screenPxPerUm } from "./die-to-screen";
+import { polylineLength } from "@/lib/geometry/measure";
+import { formatUm } from "@/lib/units/format-um";
 
 export type DrawOptions = {
   /** Die µm → screen CSS px. */
@@ -14,6 +16,8 @@ export type DrawOptions = {
   labels: boolean;
   /** Bounding boxes by shape id, precomputed once per model change. */
   bboxes: ReadonlyMap<string, [number, number, number, number]>;
+  /** Scale of the micrograph shown (µm per image px): how many decimals lengths get. */
+  umPerPx?: number | null;
 };
 
 function pathOf(ctx: CanvasRenderingContext2D, m: Affine2x3, pts: readonly Position[], close: boolean) {
@@ -38,10 +42,15 @@ function strokeWithHalo(ctx: CanvasRenderingContext2D, colour: string, width: nu
   ctx.stroke();
 }
 
-/** The label drawn beside a shape, per kind. */
-export function labelOf(s: AnyShape): string {
+/** The label drawn beside a shape, per kind; a ruler shows its length ("gate pitch: 12.5 µm"). */
+export function labelOf(s: AnyShape, umPerPx?: number | null): string {
   const p = s.properties as Record<string, unknown>;
-  return String(p.label ?? p.name ?? p.text ?? "");
+  const label = String(p.label ?? p.name ?? p.text ?? "");
+  if (s.kind === "ruler" && s.geometry.type === "LineString") {
+    const length = `${formatUm(polylineLength(s.geometry.coordinates), umPerPx)} µm`;
+    return label.trim() ? `${label}: ${length}` : length;
+  }
+  return label;
 }
 
 /** Draws one shape in screen space (positions mapped by hand, so strokes keep a constant width). */
@@ -126,6 +135,16 @@ function batchKey(s: AnyShape, bonded: ReadonlySet<string>): { key: string; colo
   return { key: s.kind, colour: style.colour, dash: style.dash, fillAlpha: s.kind === "block" ? 0.08 : 0 };
 }
 
+/** Where a label goes in die µm: a pad's or block's middle, a ruler's midpoint, else the top. */
+function labelAnchor(s: AnyShape, b: readonly [number, number, number, number]): Position {
+  if (s.kind === "ruler" && s.geometry.type === "LineString") {
+    const pts = s.geometry.coordinates;
+    const [a, z] = [pts[0], pts[pts.length - 1]];
+    return [(a[0] + z[0]) / 2, (a[1] + z[1]) / 2];
+  }
+  return [(b[0] + b[2]) / 2, s.kind === "pad" || s.kind === "block" ? (b[1] + b[3]) / 2 : b[3]];
+}
+
 function drawLabels(ctx: CanvasRenderingContext2D, shapes: readonly AnyShape[], o: DrawOptions) {
   const m = o.matrix;
   const pxPerUm = screenPxPerUm(m);
@@ -136,13 +155,13 @@ function drawLabels(ctx: CanvasRenderingContext2D, shapes: readonly AnyShape[], 
   ctx.setLineDash([]);
   for (const s of shapes) {
     const b = o.bboxes.get(s.id)!;
-    const text = labelOf(s);
+    const text = labelOf(s, o.umPerPx);
     const sizePx = Math.max(b[2] - b[0], b[3] - b[1]) * pxPerUm;
-    if (!text || (s.kind !== "note" && sizePx < 18)) continue;
-    const cx = (b[0] + b[2]) / 2;
-    const cy = s.kind === "pad" || s.kind === "block" ? (b[1] + b[3]) / 2 : b[3];
+    // Notes and rulers always carry their text: a ruler is drawn to be read.
+    if (!text || (s.kind !== "note" && s.kind !== "ruler" && sizePx < 18)) continue;
+    const [cx, cy] = labelAnchor(s, b);
     const sx = m[0][0] * cx + m[0][1] * cy + m[0][2];
-    const sy = m[1][0] * cx + m[1][1] * cy + m[1][2] - (s.kind === "note" ? 12 : 0);
+    const sy = m[1][0] * cx + m[1][1] * cy + m[1][2] - (s.kind === "note" || s.kind === "ruler" ? 12 : 0);
     ctx.strokeStyle = HALO_COLOUR;
     ctx.strokeText(text, sx, sy);
     ctx.fillStyle = KIND_STYLE[s.kind].colour;

@@ -1,0 +1,59 @@
+import { describe, expect, it } from "vitest";
+import type { AnyShape } from "@/lib/markup/types";
+import { labelBox, labelSvg, markupStyle, placeThreadMarks, threadRadius } from "./markup-svg";
+
+const shape = (kind: AnyShape["kind"], geometry: AnyShape["geometry"], properties: Record<string, unknown>): AnyShape =>
+  ({ id: `${kind}-1`, kind, geometry, properties, version: 1, createdBy: null, updatedAt: "2025-01-01T00:00:00.000Z" }) as AnyShape;
+
+// 4 µm per output px, y flipped over 1000 px of height: X = x / 4, Y = (4000 − y) / 4 (by hand).
+const m = [
+  [0.25, 0, 0],
+  [0, -0.25, 1000],
+] as const;
+const style = markupStyle(2000);
+const textOf = (svg: string) => [...svg.matchAll(/<text[^>]*>([^<]*)<\/text>/g)].map((x) => x[1]).join(" ");
+
+describe("labels in the annotated PNG", () => {
+  it("gives a finished ruler its length, in the decimals the output scale resolves", () => {
+    // A 300-400-500 right triangle: the ruler from (100, 100) to (400, 500) µm is 500 µm long;
+    // at 4 µm/px whole micrometres are all a pixel resolves.
+    const ruler = shape("ruler", { type: "LineString", coordinates: [[100, 100], [400, 500]] }, { label: "" });
+    expect(textOf(labelSvg(ruler, m, style))).toBe("500 µm");
+    const named = shape("ruler", { type: "LineString", coordinates: [[100, 100], [400, 500]] }, { label: "gate pitch" });
+    expect(textOf(labelSvg(named, m, style))).toBe("gate pitch: 500 µm");
+  });
+
+  it("prints a note's whole text over several lines instead of cutting it", () => {
+    const text = Array.from({ length: 30 }, (_, i) => `w${i}`).join(" ") + " VB2 bias network re-worked, see frame 3.";
+    const note = shape("note", { type: "Point", coordinates: [2000, 2000] }, { text });
+    const svg = labelSvg(note, m, style);
+    expect(svg).not.toContain("…");
+    expect(textOf(svg)).toBe(text);
+    const box = labelBox(note, m, style)!;
+    expect(box.lines.length).toBeGreaterThan(1);
+    // The plate holds every line: it is as tall as the lines, and it ends above the note's marker.
+    expect(box.height).toBeGreaterThanOrEqual(box.lines.length * style.fontPx);
+    expect(box.y + box.height).toBeLessThan(500);
+  });
+});
+
+describe("placeThreadMarks", () => {
+  const overlaps = (c: [number, number], r: number, b: { x: number; y: number; width: number; height: number }) => c[0] + r > b.x && c[0] - r < b.x + b.width && c[1] + r > b.y && c[1] - r < b.y + b.height;
+
+  it("moves a marker anchored on a labelled shape off its label, and markers off each other", () => {
+    const pad = shape("pad", { type: "Polygon", coordinates: [[[1000, 1000], [1400, 1000], [1400, 1400], [1000, 1400], [1000, 1000]]] }, { label: "VB2", net: "", state: "bonded" });
+    const box = labelBox(pad, m, style)!;
+    // Both threads sit on the pad's centre (1200, 1200) µm = output (300, 700), where its label is.
+    const threads = [
+      { at: [1200, 1200] as [number, number], open: true, number: 1 },
+      { at: [1200, 1200] as [number, number], open: false, number: 2 },
+    ];
+    const placed = placeThreadMarks(threads, [pad], m, style, true);
+    const r = threadRadius(style);
+    const centres = placed.map((t) => [300 + (t.offsetPx?.[0] ?? 0), 700 + (t.offsetPx?.[1] ?? 0)] as [number, number]);
+    for (const c of centres) expect(overlaps(c, r, box)).toBe(false);
+    expect(Math.abs(centres[0][1] - centres[1][1])).toBeGreaterThanOrEqual(2 * r);
+    // Without labels drawn, nothing is in the way and the first marker stays on its anchor.
+    expect(placeThreadMarks(threads, [pad], m, style, false)[0].offsetPx).toBeUndefined();
+  });
+});

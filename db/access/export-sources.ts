@@ -10,6 +10,7 @@ import type { AnyShape, MarkupKind } from "@/lib/markup/types";
 import type { ThreadMark } from "@/lib/export/markup-svg";
 import type { TitleBlock } from "@/lib/export/footer-svg";
 import { ILLUMINATION_LABELS } from "@/lib/validation/micrographs";
+import { withShownPadStates } from "@/lib/markup/pad-state";
 
 /** Everything an export of one die needs, read after the caller was authorized. */
 export type DieSources = {
@@ -72,11 +73,15 @@ export async function loadThreadMarks(db: Db, dieId: string): Promise<ThreadMark
   });
 }
 
-/** Only the shapes of the chosen kinds (all when none are chosen). */
+/**
+ * Only the shapes of the chosen kinds (all when none are chosen), pads carrying the state they
+ * show (from their bonds, counted before the bonds may be left out).
+ */
 export function shapesOfKinds(shapes: readonly AnyShape[], kinds?: readonly MarkupKind[]): AnyShape[] {
-  if (!kinds) return [...shapes];
+  const shown = withShownPadStates(shapes);
+  if (!kinds) return shown;
   const keep = new Set(kinds);
-  return shapes.filter((s) => keep.has(s.kind));
+  return shown.filter((s) => keep.has(s.kind));
 }
 
 /** The title block of an export of this micrograph, dated today (UTC). */

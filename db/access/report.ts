@@ -16,6 +16,7 @@ import type { ReportData } from "@/lib/export/report-pdf";
 import { ILLUMINATION_LABELS } from "@/lib/validation/micrographs";
 import { savedEstimatesOf, summariseSavedEstimate } from "@/lib/layout-reading/saved-estimates";
 import type { AnyShape } from "@/lib/markup/types";
+import { withShownPadStates } from "@/lib/markup/pad-state";
 
 /** Width of the report's overview image: sharp enough for print at the page's text width. */
 export const OVERVIEW_WIDTH_PX = 1600;
@@ -39,7 +40,7 @@ async function overview(src: DieSources, ms: MicrographRow[], author: string, fi
   const copyFile = files.copy(m);
   const { plan, fromCopy } = previewPlan(image, await copySize(copyFile), planned.plan, OVERVIEW_WIDTH_PX);
   const title = titleBlockFor(src, m, plan.umPerPx, author);
-  const { png, info } = await renderAnnotatedPngBuffer({ original: fromCopy ? copyFile : files.original(m), pixelCap: files.pixelCap, plan, shapes: src.shapes, threads: [], labels: true, title });
+  const { png, info } = await renderAnnotatedPngBuffer({ original: fromCopy ? copyFile : files.original(m), pixelCap: files.pixelCap, plan, shapes: withShownPadStates(src.shapes), threads: [], labels: true, title });
   return { png, caption: `${m.label} (${ILLUMINATION_LABELS[m.illumination]}), whole die at ${planned.plan.umPerPx.toPrecision(3)} µm/px; scale bar ${info.scaleBar.label}.${planned.plan.warnings.length ? ` ${planned.plan.warnings.join(" ")}` : ""}` };
 }
 

@@ -1,6 +1,7 @@
 import { describe, expect, it } from "vitest";
 import type { AnyShape } from "@/lib/markup/types";
-import { labelBox, labelSvg, markupStyle, placeThreadMarks, threadRadius } from "./markup-svg";
+import { labelBox, labelSvg, markupStyle, placeThreadMarks, shapeSvg, threadRadius } from "./markup-svg";
+import { withShownPadStates } from "@/lib/markup/pad-state";
 
 const shape = (kind: AnyShape["kind"], geometry: AnyShape["geometry"], properties: Record<string, unknown>): AnyShape =>
   ({ id: `${kind}-1`, kind, geometry, properties, version: 1, createdBy: null, updatedAt: "2025-01-01T00:00:00.000Z" }) as AnyShape;
@@ -55,5 +56,23 @@ describe("placeThreadMarks", () => {
     expect(Math.abs(centres[0][1] - centres[1][1])).toBeGreaterThanOrEqual(2 * r);
     // Without labels drawn, nothing is in the way and the first marker stays on its anchor.
     expect(placeThreadMarks(threads, [pad], m, style, false)[0].offsetPx).toBeUndefined();
+  });
+});
+
+describe("pad fill in the annotated PNG", () => {
+  // Fill opacities of the palette (bonded 0.35, unbonded none); a pad's shown state follows its
+  // bonds unless set by hand, so a pad stored as "unbonded" with a bond attached prints filled.
+  const pad = shape("pad", { type: "Polygon", coordinates: [[[0, 0], [80, 0], [80, 80], [0, 80], [0, 0]]] }, { label: "VB3", state: "unbonded" });
+  const bond = { ...shape("wire_bond", { type: "LineString", coordinates: [[40, 40], [40, -400]] }, { padId: "pad-1" }), id: "bond-1" } as AnyShape;
+  const fillOf = (svg: string) => /<path [^>]*fill="([^"]+)" stroke="#/.exec(svg)?.[1];
+
+  it("fills a pad that carries a bond, even when only the pads are exported", () => {
+    const shown = withShownPadStates([pad, bond]).filter((s) => s.kind === "pad");
+    expect(fillOf(shapeSvg(shown[0], m, style))).toMatch(/^rgba\(.*,0\.35\)$/);
+  });
+
+  it("leaves a pad without a bond hollow, whatever state was stored without a hand choice", () => {
+    const stored = { ...pad, properties: { ...pad.properties, state: "bonded" } } as AnyShape;
+    expect(fillOf(shapeSvg(withShownPadStates([stored])[0], m, style))).toBe("none");
   });
 });

@@ -30,3 +30,12 @@ export function shownPadStates(shapes: readonly AnyShape[]): Map<string, PadStat
   for (const s of shapes) if (s.kind === "pad") out.set(s.id, shownPadState(s, bonded));
   return out;
 }
+
+/**
+ * The shapes with each pad's state replaced by the state it shows, for renderers that see only
+ * some of the shapes (a subset of kinds, one overlay tile) and so cannot count its bonds.
+ */
+export function withShownPadStates(shapes: readonly AnyShape[]): AnyShape[] {
+  const states = shownPadStates(shapes);
+  return shapes.map((s) => (s.kind === "pad" ? { ...s, properties: { ...s.properties, state: states.get(s.id)!, stateByHand: true } } : s));
+}

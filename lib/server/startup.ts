@@ -37,6 +37,8 @@ export async function startServer(): Promise<void> {
       }
     }
     console.log(`[kerfline] database ready (${opened.kind}), data dir ${env().dataDir}`);
+    const { describeLinkOrigin } = await import("./origin");
+    console.log(`[kerfline] ${describeLinkOrigin()}`);
   } catch (e) {
     if (e instanceof DataDirLockedError) {
       console.error(`[kerfline] refusing to start: ${e.message}`);

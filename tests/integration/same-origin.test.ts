@@ -46,7 +46,8 @@ describe("writes from another origin answer 403 and change nothing", () => {
   it("refuses a body-less POST (resolve a thread) from a sibling origin and from Sec-Fetch-Site: same-site", async () => {
     const { dieId } = await freshCase(world.clients.owner, world.teamId);
     const t = await openThread(dieId);
-    for (const headers of [{ origin: sibling() }, { origin: "null" }, { "sec-fetch-site": "same-site" }, { "sec-fetch-site": "cross-site" }]) {
+    const refused: Record<string, string>[] = [{ origin: sibling() }, { origin: "null" }, { "sec-fetch-site": "same-site" }, { "sec-fetch-site": "cross-site" }];
+    for (const headers of refused) {
       const res = await world.clients.reviewer.request<{ error: string }>("POST", `/api/threads/${t.id}/resolve`, undefined, headers);
       expect(res.status, JSON.stringify(headers)).toBe(403);
       expect(res.body.error).toMatch(/another site or port/);

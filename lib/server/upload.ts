@@ -6,6 +6,7 @@ import path from "node:path";
 import { Readable } from "node:stream";
 import { AppError, BadRequestError, PayloadTooLargeError } from "./errors";
 import { detectRasterFormat, MAGIC_BYTES_NEEDED, type RasterFormat } from "@/lib/tiles/magic-bytes";
+import { findUnsafeText } from "@/lib/validation/unsafe-text";
 
 export type ReceivedUpload = {
   fields: Record<string, string>;
@@ -60,6 +61,10 @@ export async function receiveUpload(req: Request, opts: { maxBytes: number; inco
     };
     bb.on("field", (name, value, info) => {
       if (info.valueTruncated) return fail(new BadRequestError(`The field ${name} is too long.`));
+      // The same check as JSON bodies: PostgreSQL text refuses NUL (busboy has already turned
+      // bytes that are not UTF-8 into U+FFFD, so surrogates cannot arrive here).
+      const unsafe = findUnsafeText({ [name]: value });
+      if (unsafe) return fail(new BadRequestError(`Invalid upload: ${unsafe.path} ${unsafe.problem}.`, [{ path: unsafe.path, message: unsafe.problem }]));
       fields[name] = value;
     });
     bb.on("file", (name, stream, info) => {

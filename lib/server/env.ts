@@ -35,6 +35,12 @@ const schema = z.object({
   KERFLINE_SEED: z.enum(["demo", "demo-records", "none"]).default("demo"),
   KERFLINE_MAX_UPLOAD_BYTES: z.coerce.number().int().positive().default(8 * 1024 ** 3),
   KERFLINE_MAX_PIXELS: z.coerce.number().int().positive().default(2_500_000_000),
+  /** Exports one person may have queued or rendering at once (429 beyond). */
+  KERFLINE_EXPORTS_PENDING_PER_USER: z.coerce.number().int().positive().default(10),
+  /** Exports one die may have queued or rendering at once, whoever asked (429 beyond). */
+  KERFLINE_EXPORTS_PENDING_PER_DIE: z.coerce.number().int().positive().default(20),
+  /** Finished exports (file and record) are deleted this many hours after they finished. */
+  KERFLINE_EXPORT_TTL_HOURS: z.coerce.number().positive().default(7 * 24),
 });
 
 export type Env = z.infer<typeof schema> & { dataDir: string };

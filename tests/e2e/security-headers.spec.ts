@@ -7,7 +7,7 @@ import { signInAs } from "./helpers";
 test("the die page hydrates and draws under the Content-Security-Policy", async ({ page }) => {
   const violations: string[] = [];
   page.on("console", (m) => {
-    if (/Content Security Policy|Refused to/i.test(m.text())) violations.push(m.text());
+    if (/Content Security Policy|Refused to|Permissions-Policy/i.test(m.text())) violations.push(m.text());
   });
   await page.addInitScript(() => {
     document.addEventListener("securitypolicyviolation", (e) => console.error(`Refused to load (CSP): ${e.violatedDirective} ${e.blockedURI}`));

@@ -1,4 +1,7 @@
 import type { NextConfig } from "next";
+import { API_CONTENT_SECURITY_POLICY, COMMON_SECURITY_HEADERS } from "./lib/http/security-headers";
+
+const common = Object.entries(COMMON_SECURITY_HEADERS).map(([key, value]) => ({ key, value }));
 
 const nextConfig: NextConfig = {
   // PGlite ships wasm and data files: keep it external so they are not copied into the
@@ -9,6 +12,15 @@ const nextConfig: NextConfig = {
   distDir: process.env.KERFLINE_DIST_DIR || ".next",
   poweredByHeader: false,
   reactStrictMode: true,
+  // Pages get these and a nonce policy from proxy.ts; everything else (API, tiles, static
+  // files) gets them here. The PDF report keeps no policy: Chromium's viewer obeys it and
+  // would show nothing under default-src 'none'.
+  async headers() {
+    return [
+      { source: "/:path*", headers: common },
+      { source: "/api/:path((?!.*\\.pdf$).*)", headers: [{ key: "Content-Security-Policy", value: API_CONTENT_SECURITY_POLICY }] },
+    ];
+  },
   // Types are checked by `npm run check:types` (part of `npm test`), once for the whole tree.
   typescript: { ignoreBuildErrors: true },
 };

@@ -2,6 +2,7 @@
 
 import { QueryClient, QueryClientProvider } from "@tanstack/react-query";
 import { useState } from "react";
+import "./zod-jitless";
 
 /** One TanStack Query client per browser tab. */
 export function QueryProvider({ children }: { children: React.ReactNode }) {

@@ -1,11 +1,11 @@
 import "server-only";
-import { desc, eq } from "drizzle-orm";
+import { and, desc, eq, inArray, lt, sql } from "drizzle-orm";
 import { exports as exportsTable, jobs, users, type MicrographRow } from "../schema";
 import { type Actor, type Db } from "./context";
 import { loadDie, loadDieOf } from "./dies";
 import { loadDieMicrograph, loadMarkupExtent, sourceImageOf } from "./export-sources";
 import type { ExtentUm } from "@/lib/export/view-region";
-import { BadRequestError, ConflictError, NotFoundError } from "@/lib/server/errors";
+import { AppError, BadRequestError, ConflictError, NotFoundError } from "@/lib/server/errors";
 import { planRender, type RenderPlan, type SourceImage } from "@/lib/export/render-plan";
 import type { ExportRequest } from "@/lib/validation/exports";
 
@@ -74,13 +74,42 @@ export function checkRenderable(m: MicrographRow | null, die: { widthUm: number 
   return { m, image, plan: planned.plan };
 }
 
+/** How many exports may wait or render at once, per person and per die. */
+export type ExportQuota = { perUser: number; perDie: number };
+
+const PENDING = ["queued", "running"] as const;
+
+async function pendingCount(db: Db, where: ReturnType<typeof eq>): Promise<number> {
+  const [{ n }] = await db.select({ n: sql<number>`count(*)::int` }).from(exportsTable).where(and(where, inArray(exportsTable.status, [...PENDING])));
+  return n;
+}
+
 /**
- * Queues an annotated PNG export of a die (any member: viewers may export). The plan is checked
- * first; the export row and its job are written in one transaction.
+ * 429 when the caller, or the die, already has as many pending exports as the quota allows.
+ * Advisory locks on the user and the die (taken in that order) make the count and the insert
+ * one step, so parallel requests cannot all pass the same count.
  */
-export async function createExport(db: Db, actor: Actor, dieId: string, req: ExportRequest): Promise<ExportDto> {
+async function assertExportQuota(db: Db, actor: Actor, dieId: string, quota: ExportQuota): Promise<void> {
+  await db.execute(sql`select pg_advisory_xact_lock(hashtext(${`export-user:${actor.userId}`}))`);
+  await db.execute(sql`select pg_advisory_xact_lock(hashtext(${`export-die:${dieId}`}))`);
+  const mine = await pendingCount(db, eq(exportsTable.createdBy, actor.userId));
+  if (mine >= quota.perUser) {
+    throw new AppError(429, `You already have ${mine} exports waiting or rendering (at most ${quota.perUser}): wait for one to finish, then export again.`);
+  }
+  const die = await pendingCount(db, eq(exportsTable.dieId, dieId));
+  if (die >= quota.perDie) {
+    throw new AppError(429, `This die already has ${die} exports waiting or rendering (at most ${quota.perDie}): wait for one to finish, then export again.`);
+  }
+}
+
+/**
+ * Queues an annotated PNG export of a die (any member: viewers may export). The plan and the
+ * quota are checked first; the export row and its job are written in one transaction.
+ */
+export async function createExport(db: Db, actor: Actor, dieId: string, req: ExportRequest, quota: ExportQuota): Promise<ExportDto> {
   return db.transaction(async (tx) => {
     const { row: die } = await loadDie(tx, actor, dieId, "export");
+    await assertExportQuota(tx, actor, dieId, quota);
     const extentUm = await loadMarkupExtent(tx, dieId);
     const warnings = [...checkRenderable(await loadDieMicrograph(tx, dieId, req.micrographId), { ...die, extentUm }, req).plan.warnings];
     const params: ExportParams = { request: req, warnings };
@@ -109,4 +138,19 @@ export async function listExports(db: Db, actor: Actor, dieId: string, limit = 2
     .orderBy(desc(exportsTable.createdAt))
     .limit(limit);
   return rows.map((r) => toDto(r.row, r.name));
+}
+
+/**
+ * Deletes finished exports (done or failed) older than `olderThan`, with their jobs; returns
+ * the deleted rows so the caller removes their files. No caller: the export worker's sweep.
+ */
+export async function expireExports(db: Db, olderThan: Date): Promise<{ id: string; dieId: string }[]> {
+  return db.transaction(async (tx) => {
+    const gone = await tx
+      .delete(exportsTable)
+      .where(and(inArray(exportsTable.status, ["done", "failed"]), lt(exportsTable.finishedAt, olderThan)))
+      .returning({ id: exportsTable.id, dieId: exportsTable.dieId });
+    if (gone.length > 0) await tx.delete(jobs).where(and(eq(jobs.kind, "export"), inArray(jobs.subjectId, gone.map((g) => g.id))));
+    return gone;
+  });
 }

@@ -88,11 +88,40 @@ async function auditCreations(db: Db, actor: Actor, teamId: string, rows: readon
   }
 }
 
-const takenMessage = (id: string) => `A shape with id ${id} already exists; choose another id or leave it out.`;
+// Ids are unique across all teams. A taken id gets this same answer whoever holds it — this
+// team or another — so the answer never says that a shape exists somewhere else.
+const takenMessage = (id: string) => `The id ${id} cannot be used for a new shape: send a fresh random UUID or leave the id out.`;
+
+type WireBondInput = { padId?: string | null };
+
+/**
+ * A wire bond's padId must name a pad of the same die: stored, or created in this same request.
+ * Refused with 400 naming the item, whatever team a foreign id belongs to.
+ */
+async function checkPadReferences(db: Db, dieId: string, shapes: readonly { kind: string; id?: string; properties: unknown }[], batch: boolean): Promise<void> {
+  const wanted = new Map<string, number>();
+  shapes.forEach((s, i) => {
+    const padId = s.kind === "wire_bond" ? (s.properties as WireBondInput | undefined)?.padId : null;
+    if (padId && !wanted.has(padId.toLowerCase())) wanted.set(padId.toLowerCase(), i);
+  });
+  if (wanted.size === 0) return;
+  const known = new Set(shapes.flatMap((s) => (s.kind === "pad" && s.id ? [s.id.toLowerCase()] : [])));
+  const ids = [...wanted.keys()].filter((id) => !known.has(id));
+  for (let i = 0; i < ids.length; i += INSERT_CHUNK) {
+    const chunk = ids.slice(i, i + INSERT_CHUNK);
+    const rows = await db.select({ id: markup.id }).from(markup).where(and(inArray(markup.id, chunk), eq(markup.dieId, dieId), eq(markup.kind, "pad")));
+    for (const row of rows) known.add(row.id);
+  }
+  const missing = ids.find((id) => !known.has(id));
+  if (missing === undefined) return;
+  const where = batch ? `${wanted.get(missing)}.properties.padId` : "properties.padId";
+  throw new BadRequestError(`Invalid body: ${where} does not name a pad of this die.`, [{ path: where, message: "does not name a pad of this die" }]);
+}
 
 /**
  * Creates shapes on a die in one transaction with one audit event each (owner/analyst). A
- * client-chosen id that is taken answers 409 and nothing is written.
+ * client-chosen id that is taken (in any team) answers the same 409 and nothing is written; a
+ * wire bond's padId must name a pad of the same die (400).
  * @param batch whether the client sent an array (messages then name the item index)
  */
 export async function createMarkup(db: Db, actor: Actor, dieId: string, shapes: readonly NewShapeInput[], batch: boolean): Promise<AnyShape[]> {
@@ -101,6 +130,7 @@ export async function createMarkup(db: Db, actor: Actor, dieId: string, shapes: 
       const { row: die, teamId } = await loadDie(tx, actor, dieId, "edit");
       const outside = checkInsideDie(shapes.map((s) => s.geometry), dieBounds(die), batch);
       if (outside) throw refuse(outside);
+      await checkPadReferences(tx, dieId, shapes, batch);
       const chosen = shapes.flatMap((s) => (s.id ? [s.id.toLowerCase()] : []));
       for (let i = 0; i < chosen.length; i += INSERT_CHUNK) {
         const [taken] = await tx.select({ id: markup.id }).from(markup).where(inArray(markup.id, chosen.slice(i, i + INSERT_CHUNK))).limit(1);
@@ -161,6 +191,7 @@ export async function updateMarkup(db: Db, actor: Actor, id: string, patch: Mark
       const outside = checkInsideDie([parsed.value.geometry], dieBounds(die.row), false);
       if (outside) throw refuse(outside);
     }
+    if (patch.properties) await checkPadReferences(tx, row.dieId, [{ kind: row.kind, properties: parsed.value.properties }], false);
     const [after] = await tx
       .update(markup)
       .set({

@@ -4,7 +4,7 @@ import { jobs, micrographs, type MicrographRow } from "../schema";
 import { type Actor, type Db } from "./context";
 import { loadDie, loadDieOf } from "./dies";
 import { recordAudit } from "./audit";
-import { BadRequestError } from "@/lib/server/errors";
+import { BadRequestError, ConflictError } from "@/lib/server/errors";
 import { frameFromScale } from "@/lib/geometry/affine";
 import { scaleFromCalibration } from "@/lib/micrographs/scale";
 import type { MicrographPatch } from "@/lib/validation/micrographs";
@@ -168,4 +168,20 @@ export async function deleteMicrograph(db: Db, actor: Actor, id: string): Promis
     await recordAudit(tx, actor, { teamId: die.teamId, action: "micrograph.deleted", entityType: "micrograph", entityId: id, dieId: row.dieId, before: row });
     return row;
   });
+}
+
+/**
+ * Queues a failed micrograph for tiling again with fresh attempts (owner/analyst); 409 when it
+ * has not failed. Its original is kept on failure, so nothing needs uploading again.
+ */
+export async function retryTiling(db: Db, actor: Actor, id: string): Promise<MicrographDto> {
+  await db.transaction(async (tx) => {
+    const { row, die } = await loadMicrograph(tx, actor, id, "edit");
+    if (row.status !== "failed") throw new ConflictError(`Only a failed micrograph can be tiled again; this one is ${row.status}.`);
+    await tx.delete(jobs).where(and(eq(jobs.subjectId, id), eq(jobs.kind, "tile")));
+    await tx.insert(jobs).values({ kind: "tile", subjectId: id });
+    const [after] = await tx.update(micrographs).set({ status: "queued", progress: 0, error: null, updatedAt: new Date() }).where(eq(micrographs.id, id)).returning();
+    await recordAudit(tx, actor, { teamId: die.teamId, action: "micrograph.retried", entityType: "micrograph", entityId: id, dieId: row.dieId, before: row, after });
+  });
+  return getMicrograph(db, actor, id);
 }

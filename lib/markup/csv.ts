@@ -1,5 +1,14 @@
-/** RFC 4180 §2 rules 5–7: quote a field holding a comma, quote, CR or LF; double inner quotes. */
+// OWASP "CSV Injection": a cell starting with = + - @ tab or CR can be read by spreadsheet
+// programs as a formula. Such text cells get a leading single quote and are always quoted.
+const FORMULA_START = /^[=+\-@\t\r]/;
+
+/**
+ * A text cell: neutralised as OWASP's CSV injection guidance says when it could start a
+ * formula, then RFC 4180 §2 rules 5–7 (quote a field holding a comma, quote, CR or LF; double
+ * inner quotes). Numbers never pass here (`csvNumber`), so negative values stay numbers.
+ */
 export function csvField(text: string): string {
+  if (FORMULA_START.test(text)) return `"'${text.replace(/"/g, '""')}"`;
   return /[",\r\n]/.test(text) ? `"${text.replace(/"/g, '""')}"` : text;
 }
 

@@ -12,6 +12,8 @@ const pads = [
   pad("p4", 400, 60, { label: "crlf\r\ninside", net: "vee", state: "unbonded" }),
   pad("p5", 1200.25, 60, { label: "plain", net: "" }),
 ];
+// OWASP "CSV Injection": text cells that a spreadsheet would read as a formula.
+const formulaPads = [pad("f1", 60, 1400, { label: "=CMD()", net: "-5V" }), pad("f2", 60, 1000, { label: "@VB2", net: "+vcc" })];
 const table = buildPadTable(pads, DIE_OUTLINE);
 const csv = padTableCsv(table);
 
@@ -52,5 +54,15 @@ describe("padTableCsv", () => {
     const oneDecimal = padTableCsv(table, { decimals: 1 });
     const records = parse(oneDecimal, { columns: true }) as Record<string, string>[];
     expect(records[4].x_um).toBe("1200.3"); // ECMA-262 Number.prototype.toFixed: an exact tie (1200.25 is exact in binary) takes the larger n
+  });
+});
+
+describe("padTableCsv against CSV injection (OWASP CSV Injection cheat sheet)", () => {
+  it("prefixes formula-like labels and nets with a single quote; coordinates stay numbers", () => {
+    const t = buildPadTable(formulaPads, DIE_OUTLINE);
+    const records = parse(padTableCsv(t), { columns: true, record_delimiter: "\r\n" }) as Record<string, string>[];
+    expect(records.map((r) => [r.label, r.net])).toEqual([["'=CMD()", "'-5V"], ["'@VB2", "'+vcc"]]);
+    for (const r of records) expect(Number.isFinite(Number(r.x_from_centre_um))).toBe(true);
+    expect(records.some((r) => Number(r.x_from_centre_um) < 0)).toBe(true);
   });
 });

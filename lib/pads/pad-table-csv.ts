@@ -1,4 +1,5 @@
 import type { PadRow, PadTable } from "./types";
+import { csvField } from "../markup/csv";
 
 export type PadTableCsvOptions = {
   /** Decimal places for µm values (default 3: 1 nm, far below optical resolution). */
@@ -21,10 +22,6 @@ const COLUMNS: readonly { header: string; value: (r: PadRow) => string | number 
   { header: "pitch_um", value: (r) => r.pitchUm },
 ];
 
-/** RFC 4180 §2 rules 5–7: quote a field holding a comma, quote, CR or LF; double inner quotes. */
-function field(text: string): string {
-  return /[",\r\n]/.test(text) ? `"${text.replace(/"/g, '""')}"` : text;
-}
 
 /** Fixed decimals with trailing zeros trimmed; −0 written as 0. */
 function formatNumber(value: number, decimals: number): string {
@@ -35,7 +32,7 @@ function formatNumber(value: number, decimals: number): string {
 function cell(value: string | number | null, decimals: number): string {
   if (value === null) return "";
   if (typeof value === "number") return Number.isInteger(value) ? String(value) : formatNumber(value, decimals);
-  return field(value);
+  return csvField(value);
 }
 
 /**

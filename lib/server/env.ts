@@ -9,6 +9,7 @@ import crypto from "node:crypto";
  * Validated once, lazily, so that importing it at build time has no side effects.
  */
 const schema = z.object({
+  NODE_ENV: z.enum(["development", "production", "test"]).default("production"),
   KERFLINE_DATA_DIR: z.string().min(1).default("./storage"),
   PORT: z.coerce.number().int().min(1).max(65535).default(3000),
   AUTH_SECRET: z.string().min(16).optional(),
@@ -26,11 +27,20 @@ const schema = z.object({
   KERFLINE_MAIL_POLL_MS: z.coerce.number().int().positive().default(2_000),
   /** How long an invitation link stays valid (7 days unless a test shortens it). */
   KERFLINE_INVITATION_TTL_SECONDS: z.coerce.number().int().positive().default(7 * 24 * 3600),
-  KERFLINE_PUBLIC_URL: z.string().url().optional(),
+  /** The origin people reach the app at; used for links in mail and IIIF ids. */
+  KERFLINE_PUBLIC_URL: z.string().url().optional().or(z.literal("").transform(() => undefined)),
+  /** 1: trust X-Forwarded-Host/-Proto (and Host) from a reverse proxy in front of the app. */
+  KERFLINE_TRUST_PROXY: z.enum(["0", "1", ""]).default("0").transform((v) => v === "1"),
   /** demo: records and rendered micrographs; demo-records: records only (fast test servers); none. */
   KERFLINE_SEED: z.enum(["demo", "demo-records", "none"]).default("demo"),
   KERFLINE_MAX_UPLOAD_BYTES: z.coerce.number().int().positive().default(8 * 1024 ** 3),
   KERFLINE_MAX_PIXELS: z.coerce.number().int().positive().default(2_500_000_000),
+  /** Exports one person may have queued or rendering at once (429 beyond). */
+  KERFLINE_EXPORTS_PENDING_PER_USER: z.coerce.number().int().positive().default(10),
+  /** Exports one die may have queued or rendering at once, whoever asked (429 beyond). */
+  KERFLINE_EXPORTS_PENDING_PER_DIE: z.coerce.number().int().positive().default(20),
+  /** Finished exports (file and record) are deleted this many hours after they finished. */
+  KERFLINE_EXPORT_TTL_HOURS: z.coerce.number().positive().default(7 * 24),
 });
 
 export type Env = z.infer<typeof schema> & { dataDir: string };

@@ -6,6 +6,7 @@ import { database, type Database } from "@/db/client";
 import type { Actor } from "@/db/access/context";
 import { assertPathMember } from "@/db/access/path-scope";
 import { findUnsafeText } from "@/lib/validation/unsafe-text";
+import { sameOriginVerdict } from "./origin";
 
 /** JSON bodies above this are refused with 413 before parsing. */
 export const MAX_JSON_BYTES = 1024 * 1024;
@@ -73,6 +74,12 @@ async function readJson(req: Request, limit: number): Promise<unknown> {
   return parsed;
 }
 
+/** 403 for a non-GET/HEAD request whose Origin or Sec-Fetch-Site is not ours. */
+export function assertSameOrigin(req: Request): void {
+  const verdict = sameOriginVerdict(req);
+  if (!verdict.ok) throw new AppError(403, verdict.reason);
+}
+
 /** Maps any thrown error to a JSON response; unknown errors become 500 without internals. */
 export function errorResponse(e: unknown): Response {
   if (e instanceof AppError) return Response.json({ error: e.message, ...e.extra }, { status: e.status });
@@ -81,7 +88,7 @@ export function errorResponse(e: unknown): Response {
 }
 
 /**
- * The one wrapper for JSON route handlers: session (401), path params and query parsed with
+ * The one wrapper for JSON route handlers: same-origin check for writes (403), session (401), path params and query parsed with
  * zod (400), membership of what the path names (404) before a body is read, the body parsed
  * (400/413/415), the handler's domain call, and errors mapped to status codes. The specific
  * right (403) is checked in the data-access layer the handler calls.
@@ -93,6 +100,8 @@ export function apiRoute<
 >(opts: Options<P, B, Q>, handler: (ctx: Ctx<z.infer<P>, z.infer<B>, z.infer<Q>>) => Promise<Response | unknown>) {
   return async (req: Request, context: { params: Promise<Record<string, string | string[]>> }): Promise<Response> => {
     try {
+      // Before the session: a cookie sent along by another site's page must not act for anyone.
+      assertSameOrigin(req);
       const actor = opts.signedIn === false ? ({ userId: "" } as Actor) : await requireActor();
       const rawParams = (await context?.params) ?? {};
       const params = opts.params ? opts.params.safeParse(rawParams) : { success: true as const, data: rawParams };

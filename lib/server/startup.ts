@@ -17,9 +17,16 @@ export async function startServer(): Promise<void> {
     g.__kerflineDb ??= openDatabase();
     const opened = await g.__kerflineDb;
     if (opened.kind === "pglite") {
+      const { failExhaustedTiling } = await import("./jobs/tiling");
+      const gaveUp = await failExhaustedTiling(opened.db, true);
+      if (gaveUp) console.log(`[kerfline] gave up ${gaveUp} tiling job(s) that stopped on their last attempt`);
       const requeued = await requeueOrphanedJobs(opened.db);
       if (requeued) console.log(`[kerfline] picked up ${requeued} job(s) left running by an earlier stop`);
     }
+    const { sweepIncoming } = await import("./upload");
+    const { incomingDir } = await import("./storage-paths");
+    const swept = await sweepIncoming(incomingDir(), opened.kind === "pglite" ? 0 : 3600_000);
+    if (swept) console.log(`[kerfline] removed ${swept} unfinished upload part(s) left by an earlier stop`);
     startTilingWorkers(opened.db);
     startExportWorker(opened.db);
     const { startMail } = await import("./mail/start-mail");
@@ -37,6 +44,8 @@ export async function startServer(): Promise<void> {
       }
     }
     console.log(`[kerfline] database ready (${opened.kind}), data dir ${env().dataDir}`);
+    const { describeLinkOrigin } = await import("./origin");
+    console.log(`[kerfline] ${describeLinkOrigin()}`);
   } catch (e) {
     if (e instanceof DataDirLockedError) {
       console.error(`[kerfline] refusing to start: ${e.message}`);

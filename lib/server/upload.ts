@@ -6,6 +6,7 @@ import path from "node:path";
 import { Readable } from "node:stream";
 import { AppError, BadRequestError, PayloadTooLargeError } from "./errors";
 import { detectRasterFormat, MAGIC_BYTES_NEEDED, type RasterFormat } from "@/lib/tiles/magic-bytes";
+import { findUnsafeText } from "@/lib/validation/unsafe-text";
 
 export type ReceivedUpload = {
   fields: Record<string, string>;
@@ -49,17 +50,29 @@ export async function receiveUpload(req: Request, opts: { maxBytes: number; inco
     const source = Readable.fromWeb(req.body as import("node:stream/web").ReadableStream);
     let failed = false;
     let writing: Promise<void> = Promise.resolve();
+    let out: fs.WriteStream | null = null;
     const fail = (e: Error) => {
       if (failed) return;
       failed = true;
+      req.signal?.removeEventListener("abort", onAbort);
       source.unpipe(bb);
       source.destroy();
       bb.removeAllListeners();
       bb.on("error", () => {});
+      // Close the part file's handle now (an open stream would never finish), then delete it.
+      out?.destroy();
       writing.finally(() => fs.rm(tempPath, { force: true }, () => reject(e)));
     };
+    // A client that drops the connection: stop at once rather than wait for a body that never ends.
+    const onAbort = () => fail(new BadRequestError("The upload was interrupted by the client."));
+    if (req.signal?.aborted) return onAbort();
+    req.signal?.addEventListener("abort", onAbort, { once: true });
     bb.on("field", (name, value, info) => {
       if (info.valueTruncated) return fail(new BadRequestError(`The field ${name} is too long.`));
+      // The same check as JSON bodies: PostgreSQL text refuses NUL (busboy has already turned
+      // bytes that are not UTF-8 into U+FFFD, so surrogates cannot arrive here).
+      const unsafe = findUnsafeText({ [name]: value });
+      if (unsafe) return fail(new BadRequestError(`Invalid upload: ${unsafe.path} ${unsafe.problem}.`, [{ path: unsafe.path, message: unsafe.problem }]));
       fields[name] = value;
     });
     bb.on("file", (name, stream, info) => {
@@ -72,12 +85,13 @@ export async function receiveUpload(req: Request, opts: { maxBytes: number; inco
         stream.resume();
         return fail(new BadRequestError("The file name must be a plain name, without folders or “..”."));
       }
-      const out = fs.createWriteStream(tempPath, { flags: "wx" });
+      out = fs.createWriteStream(tempPath, { flags: "wx" });
+      const file$ = out;
       let bytes = 0;
       let head: Buffer = Buffer.alloc(0);
       let format: RasterFormat | null = null;
-      writing = new Promise<void>((res) => out.on("close", () => res()));
-      out.on("error", (e) => fail(e));
+      writing = new Promise<void>((res) => file$.on("close", () => res()));
+      file$.on("error", (e) => fail(e));
       stream.on("data", (chunk: Buffer) => {
         bytes += chunk.length;
         if (!format && head.length < MAGIC_BYTES_NEEDED) {
@@ -86,14 +100,14 @@ export async function receiveUpload(req: Request, opts: { maxBytes: number; inco
             format = detectRasterFormat(head);
             if (!format) {
               stream.resume();
-              out.destroy();
+              file$.destroy();
               return fail(new AppError(415, UNSUPPORTED));
             }
           }
         }
       });
       stream.on("limit", () => {
-        out.destroy();
+        file$.destroy();
         fail(new PayloadTooLargeError(`The file is larger than the limit of ${formatBytes(opts.maxBytes)}.`));
       });
       stream.on("end", () => {
@@ -103,7 +117,7 @@ export async function receiveUpload(req: Request, opts: { maxBytes: number; inco
         if (!format) return fail(new AppError(415, UNSUPPORTED));
         file = { tempPath, bytes, format, clientName: displayName(clientName) };
       });
-      stream.pipe(out);
+      stream.pipe(file$);
     });
     bb.on("error", (e) => fail(new BadRequestError(`The upload could not be read: ${(e as Error).message}.`)));
     bb.on("partsLimit", () => fail(new BadRequestError("Too many parts in the upload.")));
@@ -114,6 +128,7 @@ export async function receiveUpload(req: Request, opts: { maxBytes: number; inco
       writing.then(() => {
         if (failed) return;
         if (!file) return fail(new BadRequestError("No file was sent: put the image in the field “file”."));
+        req.signal?.removeEventListener("abort", onAbort);
         resolve();
       });
     });
@@ -128,4 +143,22 @@ export function formatBytes(n: number): string {
   if (n >= 1024 ** 3) return `${(n / 1024 ** 3).toFixed(n % 1024 ** 3 === 0 ? 0 : 1)} GB`;
   if (n >= 1024 ** 2) return `${(n / 1024 ** 2).toFixed(0)} MB`;
   return `${n} bytes`;
+}
+
+/**
+ * Deletes part files a crash left in the incoming folder. On the embedded database only this
+ * process uses the data dir, so all of them; with a shared server, those untouched for an hour.
+ */
+export async function sweepIncoming(incomingDir: string, onlyOlderThanMs = 0): Promise<number> {
+  const names = await fs.promises.readdir(incomingDir).catch(() => [] as string[]);
+  let removed = 0;
+  for (const name of names) {
+    if (!name.endsWith(".part")) continue;
+    const p = path.join(incomingDir, name);
+    const st = await fs.promises.stat(p).catch(() => null);
+    if (!st || Date.now() - st.mtimeMs < onlyOlderThanMs) continue;
+    await fs.promises.rm(p, { force: true });
+    removed++;
+  }
+  return removed;
 }

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { findUnsafeText } from "./unsafe-text";
+import { findUnsafeText, formTextProblem } from "./unsafe-text";
 
 // Ground truth: PostgreSQL's text type refuses U+0000 (PostgreSQL docs, "Character Types");
 // Unicode 15 §3.9 D76 — surrogate code points are not scalar values, so a lone one is not text.
@@ -15,5 +15,18 @@ describe("findUnsafeText", () => {
   it("passes ordinary values and reports the first bad one in document order", () => {
     expect(findUnsafeText({ a: 1, b: [true, null, "x"] })).toBeNull();
     expect(findUnsafeText({ a: "\u0000", b: "\u0000" })?.path).toBe("a");
+  });
+});
+
+describe("formTextProblem", () => {
+  it("names the form field holding a NUL or a lone surrogate, and passes clean forms", () => {
+    const form = new FormData();
+    form.set("token", "abc");
+    form.set("name", "Demo\u0000Analyst");
+    expect(formTextProblem(form)).toBe("name contains a NUL character.");
+    // FormData itself stores USVStrings (a lone surrogate becomes U+FFFD), so a plain map stands in.
+    expect(formTextProblem(new Map([["name", "half \ud83d pair"]]))).toMatch(/^name contains a lone surrogate/);
+    form.set("name", "Demo Analyst 🔬");
+    expect(formTextProblem(form)).toBeNull();
   });
 });

@@ -45,3 +45,11 @@ export function findUnsafeText(value: unknown): UnsafeText | null {
   }
   return null;
 }
+
+/** The same check for the text fields of a form (server actions): a message naming the field, or null. */
+export function formTextProblem(form: { entries(): IterableIterator<[string, unknown]> }): string | null {
+  const texts: Record<string, string> = {};
+  for (const [k, v] of form.entries()) if (typeof v === "string") texts[k] = v;
+  const unsafe = findUnsafeText(texts);
+  return unsafe ? `${unsafe.path} ${unsafe.problem}.` : null;
+}

@@ -115,7 +115,7 @@ describe("optimistic concurrency", () => {
     expect(again.body).toMatchObject({ id: shape.id, version: 1, geometry: shape.geometry, properties: shape.properties });
     const taken = await world.clients.owner.request<{ error: string }>("POST", `/api/dies/${dieId}/markup`, [noteAt(1, 1), { ...noteAt(2, 2), id: shape.id }]);
     expect(taken.status).toBe(409);
-    expect(taken.body.error).toMatch(/already exists/);
+    expect(taken.body.error).toMatch(/cannot be used for a new shape/);
     expect((await shapesOf(dieId)).length).toBe(1);
   });
 });

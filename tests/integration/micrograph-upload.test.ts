@@ -52,6 +52,7 @@ const CORPUS: BadCase[] = [
   { name: "a file name with ../", form: () => uploadForm(jpeg, "../../etc/die.jpg"), status: 400, message: /plain name/ },
   { name: "a wrong field type", form: () => uploadForm(jpeg, "die.jpg", { objectiveMag: "twenty" }), status: 400, message: /objectiveMag must be a number/ },
   { name: "an unknown illumination", form: () => uploadForm(jpeg, "die.jpg", { illumination: "uv" }), status: 400, message: /illumination must be one of/ },
+  { name: "a label with a NUL character", form: () => uploadForm(jpeg, "die.jpg", { label: "bright\u0000field" }), status: 400, message: /label contains a NUL character/ },
   { name: "a missing file", form: () => uploadForm(null, "", { label: "no file" }), status: 400, message: /No file was sent/ },
   { name: "a file in the wrong field", form: () => { const f = new FormData(); f.append("image", new Blob([new Uint8Array(jpeg)]), "die.jpg"); return f; }, status: 400, message: /field “file”/ },
 ];

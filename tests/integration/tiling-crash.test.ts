@@ -20,6 +20,20 @@ async function bigJpeg(): Promise<Buffer> {
     .toBuffer();
 }
 
+type Client = Awaited<ReturnType<typeof demoClients>>["analyst"];
+
+/** Waits until the pyramid of `id` is under way (tiling, at least 3 %). */
+async function waitUnderWay(analyst: Client, id: string): Promise<void> {
+  const deadline = Date.now() + 90_000;
+  for (;;) {
+    const m = (await analyst.get<{ status: string; progress: number }>(`/api/micrographs/${id}`)).body;
+    if (m.status === "tiling" && m.progress >= 3) return;
+    if (m.status === "ready") throw new Error("tiling finished before the kill: make the test image larger");
+    if (Date.now() > deadline) throw new Error(`never saw tiling under way: ${JSON.stringify(m)}`);
+    await new Promise((r) => setTimeout(r, 50));
+  }
+}
+
 describe.skipIf(inject("databaseKind") === "postgres")("tiling survives a crash (SIGKILL)", () => {
   it("never serves a partial pyramid, and completes the job after a restart", async () => {
     const dataDir = tempDataDir();
@@ -62,4 +76,41 @@ describe.skipIf(inject("databaseKind") === "postgres")("tiling survives a crash 
       await server.stop();
     }
   }, 240_000);
+
+  it("gives up after three kills: failed with the reason, no folder left, and the user can retry", async () => {
+    const dataDir = tempDataDir();
+    const image = await bigJpeg();
+    let server = await startServer({ dataDir, env: { KERFLINE_SEED: "demo-records" } });
+    try {
+      let { analyst } = await demoClients(server.url);
+      const teamId = (await analyst.get<{ teams: { id: string }[] }>("/api/me")).body.teams[0].id;
+      const c = await analyst.request<{ id: string }>("POST", `/api/teams/${teamId}/cases`, { title: "Thrice-killed case" });
+      const d = await analyst.request<{ id: string }>("POST", `/api/cases/${c.body.id}/dies`, { name: "crash die" });
+      const up = await analyst.upload<{ id: string }>(`/api/dies/${d.body.id}/micrographs`, uploadForm(image, "big.jpg", { scaleUmPerPx: "0.5" }));
+      expect(up.status).toBe(202);
+      const id = up.body.id;
+      for (let kill = 1; kill <= 3; kill++) {
+        await waitUnderWay(analyst, id);
+        await server.kill();
+        server = await startServer({ dataDir, env: { KERFLINE_SEED: "demo-records" } });
+        ({ analyst } = await demoClients(server.url));
+      }
+      const failed = (await analyst.get<{ status: string; error?: string }>(`/api/micrographs/${id}`)).body;
+      expect(failed.status).toBe("failed");
+      expect(failed.error).toMatch(/stopped 3 times/);
+      expect(server.logs()).toMatch(/gave up 1 tiling job/);
+      const tilesDir = path.join(dataDir, "tiles", d.body.id);
+      const left = fs.existsSync(tilesDir) ? fs.readdirSync(tilesDir) : [];
+      expect(left.filter((n) => n.startsWith(id))).toEqual([]);
+      // The original is kept, so a retry needs no new upload.
+      expect(fs.readdirSync(path.join(dataDir, "originals", d.body.id)).some((n) => n.startsWith(id))).toBe(true);
+
+      expect((await analyst.request("POST", `/api/micrographs/${id}/retry`)).status).toBe(200);
+      expect((await analyst.request<{ error: string }>("POST", `/api/micrographs/${id}/retry`)).status).toBe(409);
+      const ready = await waitForStatus(analyst, id, "ready", 150_000);
+      expect(ready.progress).toBe(100);
+    } finally {
+      await server.stop();
+    }
+  }, 420_000);
 });

@@ -28,6 +28,11 @@ export class ApiClient {
     }
   }
 
+  /** The Cookie header this client sends (for hand-made requests). */
+  get cookie(): string {
+    return this.cookieHeader();
+  }
+
   /** Signs in; returns the redirect target (contains `error=` on failure). `headers` go with the sign-in POST. */
   async signIn(email: string, password = DEMO_PASSWORD, headers: Record<string, string> = {}): Promise<string> {
     const csrfRes = await fetch(`${this.baseUrl}/api/auth/csrf`, { headers: { cookie: this.cookieHeader() } });
@@ -89,8 +94,8 @@ export class ApiClient {
   }
 
   /** A multipart upload (FormData) with the session cookie. */
-  async upload<T = unknown>(path: string, form: FormData): Promise<ApiResponse<T>> {
-    const res = await fetch(`${this.baseUrl}${path}`, { method: "POST", headers: { cookie: this.cookieHeader() }, body: form });
+  async upload<T = unknown>(path: string, form: FormData, headers: Record<string, string> = {}): Promise<ApiResponse<T>> {
+    const res = await fetch(`${this.baseUrl}${path}`, { method: "POST", headers: { cookie: this.cookieHeader(), ...headers }, body: form });
     const text = await res.text();
     let parsed: unknown = text;
     try {

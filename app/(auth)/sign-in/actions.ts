@@ -2,11 +2,14 @@
 
 import { AuthError } from "next-auth";
 import { signIn } from "@/auth";
+import { formTextProblem } from "@/lib/validation/unsafe-text";
 
 export type SignInState = { ok: boolean; message?: string };
 
 /** Signs in with e-mail and password; returns a message the form shows on failure. */
 export async function signInAction(_prev: SignInState, form: FormData): Promise<SignInState> {
+  const unsafe = formTextProblem(form);
+  if (unsafe) return { ok: false, message: `Invalid form: ${unsafe}` };
   const email = String(form.get("email") ?? "");
   const password = String(form.get("password") ?? "");
   const next = String(form.get("next") ?? "/cases");

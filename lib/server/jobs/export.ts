@@ -1,10 +1,10 @@
 import "server-only";
-import { mkdir } from "node:fs/promises";
+import { mkdir, rm } from "node:fs/promises";
 import path from "node:path";
 import { eq } from "drizzle-orm";
 import { exports as exportsTable, users } from "@/db/schema";
 import type { Database } from "@/db/client";
-import type { ExportParams, ExportResult } from "@/db/access/exports";
+import { expireExports, type ExportParams, type ExportResult } from "@/db/access/exports";
 import { loadDieMicrograph, loadDieSources, loadThreadMarks, shapesOfKinds, sourceImageOf, titleBlockFor } from "@/db/access/export-sources";
 import { planRender } from "@/lib/export/render-plan";
 import { renderAnnotatedPngFile } from "@/lib/export/render-png";
@@ -13,6 +13,9 @@ import { micrographPaths, EXTENSION } from "../storage-paths";
 import { exportFilePath } from "../export-paths";
 import { env } from "../env";
 import { claimJob, finishJob, keepAlive, waitForJob } from "./queue";
+
+/** How often the export worker deletes expired exports: every 10 minutes, or twice per lifetime when that is shorter. */
+const expirySweepMs = () => Math.min(10 * 60_000, (env().KERFLINE_EXPORT_TTL_HOURS * 3600_000) / 2);
 
 /** The download name: case-die-micrograph-date.png, in safe ASCII. */
 export function exportFileName(caseTitle: string, dieName: string, micrograph: string, date: string): string {
@@ -82,8 +85,21 @@ export async function runExport(db: Database, exportId: string): Promise<void> {
   });
 }
 
+/** Deletes exports finished more than KERFLINE_EXPORT_TTL_HOURS ago, rows and files. */
+export async function sweepExpiredExports(db: Database): Promise<number> {
+  const olderThan = new Date(Date.now() - env().KERFLINE_EXPORT_TTL_HOURS * 3600_000);
+  const gone = await expireExports(db, olderThan);
+  await Promise.all(gone.map((g) => rm(exportFilePath(g.dieId, g.id), { force: true })));
+  return gone.length;
+}
+
 async function workerLoop(db: Database, stopped: () => boolean): Promise<void> {
+  let lastSweep = 0;
   while (!stopped()) {
+    if (Date.now() - lastSweep > expirySweepMs()) {
+      lastSweep = Date.now();
+      await sweepExpiredExports(db).catch((e) => console.error("[kerfline] could not expire old exports:", e));
+    }
     const job = await claimJob(db, "export").catch(() => null);
     if (!job) {
       await waitForJob(1_000);

@@ -1,7 +1,7 @@
 import "server-only";
 import os from "node:os";
 import { EventEmitter } from "node:events";
-import { and, eq, sql } from "drizzle-orm";
+import { and, eq, gte, lt, sql } from "drizzle-orm";
 import { jobs, type JobRow } from "@/db/schema";
 import type { Database } from "@/db/client";
 
@@ -75,9 +75,33 @@ export async function finishJob(db: Database, jobId: string, error?: string): Pr
 
 /**
  * On the embedded database only this process can hold the data dir, so jobs marked running
- * were left by a crash of this same installation: queue them again at once.
+ * were left by a crash of this same installation: queue them again at once (those at the
+ * attempt limit are left for `giveUpExhaustedJobs`).
  */
 export async function requeueOrphanedJobs(db: Database): Promise<number> {
-  const rows = await db.update(jobs).set({ status: "queued", lockedBy: null }).where(eq(jobs.status, "running")).returning({ id: jobs.id });
+  const rows = await db
+    .update(jobs)
+    .set({ status: "queued", lockedBy: null })
+    .where(and(eq(jobs.status, "running"), lt(jobs.attempts, MAX_ATTEMPTS)))
+    .returning({ id: jobs.id });
   return rows.length;
+}
+
+export const exhaustedMessage = (kind: string) =>
+  `${kind === "tile" ? "Tiling" : "The job"} stopped ${MAX_ATTEMPTS} times without finishing (the server was stopped or ran out of memory while working on it); retry it, or upload a smaller image.`;
+
+/**
+ * Jobs that crashed on their last allowed attempt are never claimed again: marks them failed
+ * with the reason and returns their subjects so the caller can fail those too. A job counts
+ * as crashed when it is left running with a stale heartbeat, or (`orphaned`, the embedded
+ * database at start) whenever it is still marked running.
+ */
+export async function giveUpExhaustedJobs(db: Database, kind: string, orphaned = false): Promise<{ id: string; subjectId: string; error: string }[]> {
+  const error = exhaustedMessage(kind);
+  const stale = orphaned ? sql`true` : sql`${jobs.heartbeatAt} < now() - make_interval(secs => ${STALE_AFTER_SECONDS})`;
+  return db
+    .update(jobs)
+    .set({ status: "failed", error, lockedBy: null, updatedAt: new Date() })
+    .where(and(eq(jobs.kind, kind), eq(jobs.status, "running"), gte(jobs.attempts, MAX_ATTEMPTS), stale))
+    .returning({ id: jobs.id, subjectId: jobs.subjectId, error: sql<string>`${jobs.error}` });
 }

@@ -8,7 +8,7 @@ import type { Database } from "@/db/client";
 import { buildPreview, buildPyramid, buildThumbnail } from "@/lib/tiles/pyramid";
 import { micrographPaths, EXTENSION } from "../storage-paths";
 import { env } from "../env";
-import { claimJob, finishJob, keepAlive, waitForJob } from "./queue";
+import { claimJob, finishJob, giveUpExhaustedJobs, keepAlive, waitForJob } from "./queue";
 
 /** Removes work folders a killed tiler left beside the pyramid (they are never served). */
 async function removeLeftovers(tilesDir: string, micrographId: string): Promise<void> {
@@ -60,9 +60,36 @@ async function markFailed(db: Database, micrographId: string, message: string) {
   await db.update(micrographs).set({ status: "failed", error: message, updatedAt: new Date() }).where(eq(micrographs.id, micrographId));
 }
 
+/**
+ * Tiling jobs that crashed on their last attempt: the micrograph is marked failed with the
+ * reason (the user can retry) and every file the attempts left — work folders, a half-written
+ * pyramid, preview and thumbnail — is removed. The original stays for the retry.
+ */
+export async function failExhaustedTiling(db: Database, orphaned = false): Promise<number> {
+  const given = await giveUpExhaustedJobs(db, "tile", orphaned);
+  for (const job of given) {
+    const [m] = await db
+      .update(micrographs)
+      .set({ status: "failed", error: job.error, updatedAt: new Date() })
+      .where(eq(micrographs.id, job.subjectId))
+      .returning();
+    if (!m) continue;
+    const p = micrographPaths(m.dieId, m.id, (m.format ?? undefined) as keyof typeof EXTENSION | undefined);
+    await removeLeftovers(p.tilesDir, m.id);
+    await Promise.all([p.pyramid, p.preview, p.thumbnail].map((f) => fs.rm(f, { recursive: true, force: true })));
+    console.error(`[kerfline] gave up tiling ${m.id}: ${job.error}`);
+  }
+  return given.length;
+}
+
 /** One worker loop: claim, tile, repeat; sleeps until notified or for a second when idle. */
 async function workerLoop(db: Database, stopped: () => boolean): Promise<void> {
+  let lastSweep = 0;
   while (!stopped()) {
+    if (Date.now() - lastSweep > 30_000) {
+      lastSweep = Date.now();
+      await failExhaustedTiling(db).catch((e) => console.error("[kerfline] could not sweep exhausted jobs:", e));
+    }
     const job = await claimJob(db, "tile").catch((e) => {
       console.error("[kerfline] could not claim a job:", e);
       return null;

@@ -2,6 +2,7 @@
 
 import { AuthError } from "next-auth";
 import { signIn } from "@/auth";
+import { formTextProblem } from "@/lib/validation/unsafe-text";
 import { database } from "@/db/client";
 import { acceptInvitation } from "@/db/access/invitations";
 import { AppError } from "@/lib/server/errors";
@@ -12,6 +13,8 @@ export type AcceptState = { ok: boolean; message?: string };
 
 /** Accepts the invitation (a new person sets name and password), then signs in and opens the cases. */
 export async function acceptInvitationAction(_prev: AcceptState, form: FormData): Promise<AcceptState> {
+  const unsafe = formTextProblem(form);
+  if (unsafe) return { ok: false, message: `Invalid form: ${unsafe}` };
   const raw = { token: String(form.get("token") ?? ""), name: form.get("name") ? String(form.get("name")) : undefined, password: form.get("password") ? String(form.get("password")) : undefined };
   const parsed = acceptInvitationSchema.safeParse(raw);
   if (!parsed.success) return { ok: false, message: parsed.error.issues.map((i) => `${i.path.join(".")}: ${i.message}`).join("; ") };

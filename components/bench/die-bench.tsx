@@ -189,7 +189,12 @@ export function DieBench({ initial, userId, linkedThreadId = null }: { initial: 
                           </Button>
                         )}
                       </div>
-                      {micrographs.isPending ? <p className="text-sm text-ink-400">Loading…</p> : <MicrographList items={micrographs.data ?? []} selectedId={shown?.id ?? null} onSelect={(id) => { setSelectedId(id); setWork({ kind: "view" }); }} />}
+                      {micrographs.isPending ? <p className="text-sm text-ink-400">Loading…</p> : <MicrographList
+                          items={micrographs.data ?? []}
+                          selectedId={shown?.id ?? null}
+                          onSelect={(id) => { setSelectedId(id); setWork({ kind: "view" }); }}
+                          onRetry={editable ? async (id) => { await apiFetch(`/api/micrographs/${id}/retry`, { method: "POST" }); await qc.invalidateQueries({ queryKey: ["micrographs", die.id] }); } : undefined}
+                        />}
                     </section>
                     <MicrographsManager dieId={die.id} items={list} editable={editable} onWork={setWork} />
                   </div>

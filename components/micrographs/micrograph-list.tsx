@@ -1,6 +1,8 @@
 "use client";
 
+import { useState } from "react";
 import type { MicrographDto } from "@/db/access/micrographs";
+import { Button } from "@/components/ui/button";
 import { ILLUMINATION_LABELS } from "@/lib/validation/micrographs";
 
 function StatusLine({ m }: { m: MicrographDto }) {
@@ -16,8 +18,34 @@ function StatusLine({ m }: { m: MicrographDto }) {
   );
 }
 
-/** A die's micrographs with thumbnail, illumination, scale and status; click to show one. */
-export function MicrographList({ items, selectedId, onSelect }: { items: MicrographDto[]; selectedId: string | null; onSelect: (id: string) => void }) {
+/** Tiles a failed micrograph again from its kept original; shows the server's refusal. */
+function RetryTiling({ m, onRetry }: { m: MicrographDto; onRetry: (id: string) => Promise<void> }) {
+  const [busy, setBusy] = useState(false);
+  const [error, setError] = useState<string | null>(null);
+  return (
+    <span className="mt-1 flex items-center gap-2">
+      <Button
+        className="px-1.5 py-0.5 text-xs"
+        disabled={busy}
+        aria-label={`Tile ${m.label} again`}
+        onClick={() => {
+          setBusy(true);
+          setError(null);
+          onRetry(m.id).catch((e: Error) => setError(e.message)).finally(() => setBusy(false));
+        }}
+      >
+        {busy ? "Queuing…" : "Tile again"}
+      </Button>
+      {error && <span role="alert" className="text-xs text-danger-400">{error}</span>}
+    </span>
+  );
+}
+
+/**
+ * A die's micrographs with thumbnail, illumination, scale and status; click to show one. A
+ * failed one offers tiling again (beside its button, not inside it) when `onRetry` is given.
+ */
+export function MicrographList({ items, selectedId, onSelect, onRetry }: { items: MicrographDto[]; selectedId: string | null; onSelect: (id: string) => void; onRetry?: (id: string) => Promise<void> }) {
   if (items.length === 0) return <p className="text-sm text-ink-400">No micrographs yet.</p>;
   return (
     <ul className="flex flex-col gap-2" aria-label="Micrographs">
@@ -50,6 +78,7 @@ export function MicrographList({ items, selectedId, onSelect }: { items: Microgr
               <StatusLine m={m} />
             </span>
           </button>
+          {m.status === "failed" && onRetry && <RetryTiling m={m} onRetry={onRetry} />}
         </li>
       ))}
     </ul>

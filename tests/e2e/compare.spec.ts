@@ -48,6 +48,7 @@ async function alignDarkByTruth(page: Page, dieId: string) {
 async function openCompare(page: Page, mode: "Side by side" | "Blend" | "Swipe", first: RegExp) {
   await page.getByRole("tab", { name: "Die & micrographs" }).click();
   const firstSelect = page.getByLabel("First micrograph");
+  await expect(firstSelect.locator("option", { hasText: first })).toHaveCount(1);
   const options = await firstSelect.locator("option").allTextContents();
   const want = options.find((o) => first.test(o))!;
   const other = options.find((o) => o !== want)!;

@@ -80,7 +80,6 @@ test.describe.serial("comparing the demo micrographs", () => {
     test.setTimeout(240_000); // the seeded micrographs are still being tiled
     const errors: string[] = [];
     page.on("pageerror", (e) => errors.push(`${e.message} ${e.stack?.split("\n").slice(1, 6).join(" ")}`));
-    page.on("pageerror", (e) => console.log("PAGEERROR", e.message, e.stack));
     const dieId = await openDie(page);
     await alignDarkByTruth(page, dieId);
     for (const mode of ["Side by side", "Blend"] as const) {
@@ -170,6 +169,22 @@ test.describe.serial("comparing the demo micrographs", () => {
       expect(samples, `step ${step}`).toBeGreaterThan(3000);
       expect(wrong, `step ${step}: ${wrong} of ${samples} samples wrong, e.g. ${bad.join("; ")}`).toBe(0);
     }
+  });
+
+  test("a refinement that does not lower the RMS on the control points is not offered for acceptance", async ({ page }) => {
+    await openDie(page);
+    await page.getByRole("tab", { name: "Die & micrographs" }).click();
+    await page.locator('[data-testid^="manage-"]', { hasText: "dark field" }).getByRole("button", { name: /align/i }).click();
+    // The stored control points are the pads' true positions: the fit is exact (RMS near 0),
+    // so correlation cannot lower it by the 0.01 µm that counts as an improvement.
+    await expect(page.getByTestId("alignment-rms")).toBeVisible();
+    await page.getByRole("button", { name: "Refine automatically" }).click();
+    await expect(page.getByTestId("refinement")).toHaveAttribute("data-proposed", "false", { timeout: 60_000 });
+    await expect(page.getByTestId("refinement-verdict")).toContainText("does not improve the fit");
+    await expect(page.getByTestId("refinement")).toContainText("phase-correlation peak");
+    await expect(page.getByRole("button", { name: "Accept refined" })).toHaveCount(0);
+    await page.getByRole("button", { name: "Keep the control-point fit" }).click();
+    await expect(page.getByTestId("refinement")).toHaveCount(0);
   });
 
   test("an alignment session survives reload, Back and Forward with its clicked points", async ({ page }) => {

@@ -129,10 +129,7 @@ export function MarkupOverlay({ api, editor, state, imageToDie, hiddenKinds, lab
       onWheel={(e) => {
         // The overlay takes the pointer, so it hands wheel zoom on to the viewer.
         const rect = (e.currentTarget as HTMLElement).getBoundingClientRect();
-        const vp = api.viewer.viewport;
-        const at = vp.pointFromPixel(new (vp.getCenter().constructor as new (x: number, y: number) => OpenSeadragon.Point)(e.clientX - rect.left, e.clientY - rect.top));
-        vp.zoomBy(e.deltaY < 0 ? 1.2 : 1 / 1.2, at);
-        vp.applyConstraints();
+        api.zoomAt(e.deltaY < 0 ? 1.2 : 1 / 1.2, e.clientX - rect.left, e.clientY - rect.top);
       }}
     >
       <Stage width={size.width} height={size.height} listening={false}>

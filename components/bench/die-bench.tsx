@@ -42,7 +42,7 @@ import { ExportPanel } from "@/components/export/export-panel";
 import { useSymmetryView } from "@/components/layout-reading/use-symmetry-view";
 import { CompareWorkArea } from "@/components/compare/compare-work-area";
 import { MicrographsManager } from "@/components/compare/micrographs-manager";
-import type { WorkMode } from "@/components/compare/work-mode";
+import { useWorkModeInUrl } from "@/components/compare/use-work-mode-url";
 
 /** The die bench: a top bar with the die's identity, the work area, and a side panel. */
 export function DieBench({ initial, userId, linkedThreadId = null }: { initial: DieDto; userId: string; linkedThreadId?: string | null }) {
@@ -55,11 +55,14 @@ export function DieBench({ initial, userId, linkedThreadId = null }: { initial: 
   // Show the chosen micrograph, else the reference one, else the first.
   const shown = list.find((m) => m.id === selectedId) ?? list.find((m) => m.isReference) ?? list[0] ?? null;
   // Aligning or comparing replaces the single view; markup then edits on the top micrograph.
-  const [work, setWork] = useState<WorkMode>({ kind: "view" });
+  const [work, setWork] = useWorkModeInUrl();
   const compareTop = work.kind === "compare" ? (list.find((m) => m.id === work.topId) ?? null) : null;
   const die = useQuery({ queryKey: ["die", initial.id], queryFn: () => apiFetch<DieDto>(`/api/dies/${initial.id}`), initialData: initial }).data;
   const editable = can(die.yourRole, "edit");
-  const [api, setApi] = useState<ViewerApi | null>(null);
+  const [viewerApi, setApi] = useState<ViewerApi | null>(null);
+  // A viewer destroyed by a change of work area (single view ↔ alignment or comparison) until
+  // the new one reports: never hand it on (OpenSeadragon clears its element on destroy).
+  const api = viewerApi?.viewer.element ? viewerApi : null;
   const dieSize = useMemo(() => ({ widthUm: die.widthUm, heightUm: die.heightUm }), [die.widthUm, die.heightUm]);
   const { editor, save, loadError } = useMarkupEditor(die.id, editable, userId, dieSize);
   // µm shown to people get the decimals the reference micrograph's scale resolves.

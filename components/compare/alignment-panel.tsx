@@ -8,7 +8,17 @@ import type { Affine2x3 } from "@/lib/geometry/types";
 import type { useAlignmentSession } from "./use-alignment-session";
 
 type Session = ReturnType<typeof useAlignmentSession>;
-type Refined = { transform: Affine2x3; rmsBeforeUm: number | null; rmsAfterUm: number | null; shiftUm: [number, number]; peak: number };
+type Refined = {
+  transform: Affine2x3;
+  rmsBeforeUm: number | null;
+  rmsAfterUm: number | null;
+  shiftUm: [number, number];
+  peak: number;
+  minMatchStrength: number;
+  improved: boolean | null;
+  proposed: boolean;
+  reason: string;
+};
 
 const um = (v: number) => `${v.toFixed(2)} µm`;
 
@@ -109,16 +119,25 @@ export function AlignmentPanel({ movingId, fixedId, session, onAccepted, onCance
         <Button onClick={onCancel}>Close</Button>
       </div>
       {refined && (
-        <section aria-label="Refinement" className="rounded border border-ink-700 p-2 text-xs" data-testid="refinement">
+        <section aria-label="Refinement" className="rounded border border-ink-700 p-2 text-xs" data-testid="refinement" data-proposed={refined.proposed}>
           <p>
-            Image correlation moves the transform by {um(Math.hypot(...refined.shiftUm))}. RMS on the control points: {refined.rmsBeforeUm === null ? "–" : um(refined.rmsBeforeUm)} before,{" "}
-            {refined.rmsAfterUm === null ? "–" : um(refined.rmsAfterUm)} after (match strength {refined.peak.toFixed(2)}).
+            Image correlation would move the transform by {um(Math.hypot(...refined.shiftUm))}. RMS on the control points: {refined.rmsBeforeUm === null ? "–" : um(refined.rmsBeforeUm)} before,{" "}
+            {refined.rmsAfterUm === null ? "–" : um(refined.rmsAfterUm)} after. Match strength {refined.peak.toFixed(2)}.
+          </p>
+          <p className={`mt-1 ${refined.proposed ? "text-ok-400" : "text-danger-400"}`} role="status" data-testid="refinement-verdict">
+            {refined.reason}
+          </p>
+          <p className="mt-1 text-ink-400">
+            Match strength is the height of the phase-correlation peak between the two micrographs&apos; edges in the die frame: 1 when they are the same picture
+            shifted, near 0 when nothing lines up. Below {refined.minMatchStrength.toFixed(2)} it is too weak to use (our rule of thumb, not a standard).
           </p>
           <div className="mt-2 flex gap-2">
-            <Button variant="primary" disabled={busy} onClick={() => save(refined.transform)}>
-              Accept refined
-            </Button>
-            <Button onClick={() => setRefined(null)}>Discard</Button>
+            {refined.proposed && (
+              <Button variant="primary" disabled={busy} onClick={() => save(refined.transform)}>
+                Accept refined
+              </Button>
+            )}
+            <Button onClick={() => setRefined(null)}>{refined.proposed ? "Discard" : "Keep the control-point fit"}</Button>
           </div>
         </section>
       )}

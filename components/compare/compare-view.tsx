@@ -27,7 +27,7 @@ function Pane({ m, onApi, children, style, testId }: { m: MicrographDto; onApi: 
   if (!source || !m.width || !m.height) return <p className="p-4 text-sm text-ink-400">“{m.label}” is still being prepared.</p>;
   return (
     <div className="absolute inset-0" style={style} data-testid={testId} data-micrograph-id={m.id}>
-      <MicrographViewer source={source} imageWidth={m.width} imageHeight={m.height} umPerPx={m.scaleUmPerPx} transform={m.transform} onReady={onApi}>
+      <MicrographViewer source={source} imageWidth={m.width} imageHeight={m.height} umPerPx={m.scaleUmPerPx} transform={m.transform} onReady={onApi} drawer="canvas">
         {children}
       </MicrographViewer>
     </div>
@@ -47,7 +47,10 @@ export function CompareView({ top, bottom, mode, overlay, onTopViewer }: Props) 
   const [vertical, setVertical] = useState(true);
   const host = useRef<HTMLDivElement>(null);
   useViewLock({ api: apiTop, imageToDie: top.transform }, { api: apiBottom, imageToDie: bottom.transform });
-  useEffect(() => onTopViewer?.(apiTop), [apiTop, onTopViewer]);
+  useEffect(() => {
+    onTopViewer?.(apiTop);
+    return () => onTopViewer?.(null);
+  }, [apiTop, onTopViewer]);
 
   useEffect(() => {
     const onKey = (e: KeyboardEvent) => {

@@ -56,7 +56,8 @@ export function CompareWorkArea({ work, items, onWork, onAligned, overlay, onTop
         </Button>
       </div>
       <div className="min-h-0 flex-1">
-        <CompareView key={`${top.id}-${bottom.id}`} top={top} bottom={bottom} mode={work.mode} overlay={overlay} onTopViewer={onTopViewer} />
+        {/* Side by side and stacked hold different viewers: a new view (and viewer APIs) for each. */}
+        <CompareView key={`${top.id}-${bottom.id}-${work.mode === "side_by_side" ? "pair" : "stack"}`} top={top} bottom={bottom} mode={work.mode} overlay={overlay} onTopViewer={onTopViewer} />
       </div>
     </div>
   );

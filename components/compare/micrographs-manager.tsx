@@ -77,13 +77,13 @@ export function MicrographsManager({ dieId, items, editable, onWork }: Props) {
         <div className="flex flex-col gap-2 rounded border border-ink-800 p-2">
           <label className="flex items-center gap-2">
             First
-            <select aria-label="First micrograph" value={top} onChange={(e) => setPick({ ...pick, top: e.target.value })} className="min-w-0 flex-1 rounded bg-ink-800 px-1 py-0.5">
+            <select aria-label="First micrograph" value={top} onChange={(e) => { const top = e.target.value; setPick((p) => ({ ...p, top })); }} className="min-w-0 flex-1 rounded bg-ink-800 px-1 py-0.5">
               {aligned.map((m) => <option key={m.id} value={m.id}>{m.label}</option>)}
             </select>
           </label>
           <label className="flex items-center gap-2">
             Second
-            <select aria-label="Second micrograph" value={bottom} onChange={(e) => setPick({ ...pick, bottom: e.target.value })} className="min-w-0 flex-1 rounded bg-ink-800 px-1 py-0.5">
+            <select aria-label="Second micrograph" value={bottom} onChange={(e) => { const bottom = e.target.value; setPick((p) => ({ ...p, bottom })); }} className="min-w-0 flex-1 rounded bg-ink-800 px-1 py-0.5">
               {aligned.map((m) => <option key={m.id} value={m.id}>{m.label}</option>)}
             </select>
           </label>

@@ -1,12 +1,15 @@
 "use client";
 
 import { useEffect, useState } from "react";
+import { useSearchParams } from "next/navigation";
 import { useQuery } from "@tanstack/react-query";
 import type { AlignmentDto } from "@/db/access/alignment";
 import { apiFetch } from "@/lib/client/api";
 import { applyAffine, invertAffine } from "@/lib/geometry/affine";
 import type { Affine2x3 } from "@/lib/geometry/types";
 import { MIN_PAIRS, type AlignmentModel } from "@/lib/alignment/fit";
+import { writeSearchParams } from "./use-work-mode-url";
+import { paramsWithSession, sessionFromParams } from "./work-mode-url";
 
 /** One pair being placed: a point on the new micrograph and the same feature on the aligned one. */
 export type SessionPair = { imagePx: [number, number]; fixedPx: [number, number] };
@@ -19,12 +22,22 @@ export type Solve = { transform: Affine2x3; residualsUm: number[]; rmsUm: number
  */
 export function useAlignmentSession(movingId: string, fixedToDie: Affine2x3) {
   const stored = useQuery({ queryKey: ["alignment", movingId], queryFn: () => apiFetch<AlignmentDto>(`/api/micrographs/${movingId}/alignment`) });
-  const [pairs, setPairs] = useState<SessionPair[] | null>(null);
-  const [pending, setPending] = useState<[number, number] | null>(null);
-  const [model, setModel] = useState<AlignmentModel>("similarity");
-  const [mirrored, setMirrored] = useState(false);
+  // A session kept in the URL (reload, Back then Forward) wins over the stored control points.
+  const params = useSearchParams();
+  const [fromUrl] = useState(() => sessionFromParams(new URLSearchParams(params.toString())));
+  const [pairs, setPairs] = useState<SessionPair[] | null>(fromUrl?.pairs ?? null);
+  const [pending, setPending] = useState<[number, number] | null>(fromUrl?.pending ?? null);
+  const [model, setModel] = useState<AlignmentModel>(fromUrl?.model ?? "similarity");
+  const [mirrored, setMirrored] = useState(fromUrl?.mirrored ?? false);
   const [solve, setSolve] = useState<Solve | null>(null);
   const [error, setError] = useState<string | null>(null);
+
+  useEffect(() => {
+    // Every change is written back into this session's history entry (never a new entry).
+    const now = new URLSearchParams(window.location.search);
+    if (!pairs || now.get("work") !== "align" || now.get("moving") !== movingId) return;
+    writeSearchParams(paramsWithSession(now, { pairs, pending, model, mirrored }), false);
+  }, [pairs, pending, model, mirrored, movingId]);
 
   useEffect(() => {
     if (!stored.data || pairs) return;

@@ -22,14 +22,10 @@ export function applyLock(leader: ViewerApi, leaderT: Affine2x3, follower: Viewe
   const want = followerView(leaderT, followerT, { imagePoint: [p.x, p.y], imageZoom: leader.imageZoom(), rotationDeg: leader.viewer.viewport.getRotation(true) });
   vp.setRotation(want.rotationDeg, true);
   const now = follower.imageZoom();
+  // No reference point: zoomTo then keeps the viewport centre, which is re-set just below.
   if (now > 0 && Number.isFinite(now)) vp.zoomTo(vp.getZoom(true) * (want.imageZoom / now), undefined, true);
-  // Pan so the wanted image point sits at the follower's centre (its size may differ). Points
-  // are cloned from one the viewport made: OpenSeadragon's classes load only at run time.
-  const fs = vp.getContainerSize();
-  const at = follower.imageToScreen(want.imagePoint[0], want.imagePoint[1]);
-  const point = (x: number, y: number) => Object.assign(vp.getCenter(true).clone(), { x, y });
-  const moved = vp.pointFromPixel(point(at.x, at.y), true).minus(vp.pointFromPixel(point(fs.x / 2, fs.y / 2), true));
-  vp.panBy(moved, true);
+  // The wanted image point goes to the follower's centre (its size may differ from the leader's).
+  follower.centreOnImagePoint(want.imagePoint[0], want.imagePoint[1]);
   follower.viewer.forceRedraw();
 }
 

@@ -32,17 +32,22 @@ export type MicrographViewerProps = {
    */
   children?: ReactNode;
   className?: string;
+  /**
+   * OpenSeadragon's renderer. Viewers that are drawn turned (a comparison's follower) use
+   * "canvas": the WebGL one misplaces and drops tiles under a viewport rotation.
+   */
+  drawer?: "webgl" | "canvas";
 };
 
 const SHORTCUTS = "Plus or equals zooms in, minus zooms out, 0 fits the die, arrow keys pan. Drag to pan, scroll to zoom.";
 
 /** The micrograph viewer: deep-zoom image, our own controls, scale bar, cursor readout, overlay layer. */
-export function MicrographViewer({ source, imageWidth, imageHeight, umPerPx, transform, numericalAperture, onReady, children, className = "" }: MicrographViewerProps) {
+export function MicrographViewer({ source, imageWidth, imageHeight, umPerPx, transform, numericalAperture, onReady, children, className = "", drawer }: MicrographViewerProps) {
   const keysId = useId();
   const hostRef = useRef<HTMLDivElement>(null);
   const [surface, setSurface] = useState<HTMLDivElement | null>(null);
   const [showPixels, setShowPixels] = useState(false);
-  const { api, osd, status } = useOsdViewer(hostRef, source, imageWidth, imageHeight);
+  const { api, osd, status } = useOsdViewer(hostRef, source, imageWidth, imageHeight, drawer);
   const fullScreen = useFullScreen(surface);
 
   const onReadyRef = useRef(onReady);

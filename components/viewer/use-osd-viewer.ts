@@ -12,9 +12,10 @@ export const MAX_SCREEN_PX_PER_IMAGE_PX = 8;
 
 export type ViewerStatus = { state: "loading" } | { state: "ready" } | { state: "failed"; message: string };
 
-function viewerOptions(element: HTMLElement): OpenSeadragon.Options {
+function viewerOptions(element: HTMLElement, drawer?: "webgl" | "canvas"): OpenSeadragon.Options {
   return {
     element,
+    ...(drawer ? { drawer } : {}),
     showNavigationControl: false,
     showNavigator: true,
     navigatorPosition: "BOTTOM_RIGHT",
@@ -88,7 +89,7 @@ function showSource(viewer: OpenSeadragon.Viewer, source: MicrographSource, size
  * Creates an OpenSeadragon viewer inside host, keeps it showing source, and destroys it on
  * unmount. Returns the viewer's API once it exists, the loaded namespace, and the load status.
  */
-export function useOsdViewer(host: RefObject<HTMLDivElement | null>, source: MicrographSource, imageWidth: number, imageHeight: number) {
+export function useOsdViewer(host: RefObject<HTMLDivElement | null>, source: MicrographSource, imageWidth: number, imageHeight: number, drawer?: "webgl" | "canvas") {
   const [api, setApi] = useState<ViewerApi | null>(null);
   const [osd, setOsd] = useState<OsdNamespace | null>(null);
   const [status, setStatus] = useState<ViewerStatus>({ state: "loading" });
@@ -107,7 +108,7 @@ export function useOsdViewer(host: RefObject<HTMLDivElement | null>, source: Mic
       (ns) => {
         if (cancelled || !host.current) return;
         const getSize: ImageSizeGetter = () => sizeRef.current;
-        viewer = new ns.Viewer(viewerOptions(host.current));
+        viewer = new ns.Viewer(viewerOptions(host.current, drawer));
         watchOpen(viewer, getSize, setStatus);
         markViewIdle(viewer);
         setOsd(() => ns);
@@ -120,7 +121,7 @@ export function useOsdViewer(host: RefObject<HTMLDivElement | null>, source: Mic
       viewer?.destroy();
       setApi(null);
     };
-  }, [host]);
+  }, [host, drawer]);
 
   const key = sourceKey(source);
   useEffect(() => {

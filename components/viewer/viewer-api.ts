@@ -19,6 +19,14 @@ export type ViewerApi = {
   screenToImage(x: number, y: number): XY;
   /** Screen px per full-resolution image px at the current view. */
   imageZoom(): number;
+  /**
+   * Zooms by factor keeping the image point under screen (x, y) in place, as the wheel does.
+   * Callers must not build OpenSeadragon points themselves: its Point prototype is a plain
+   * object, so `point.constructor` is Object and `new` on it gives a point without methods.
+   */
+  zoomAt(factor: number, x: number, y: number): void;
+  /** Moves the view at once so the full-resolution image point (x, y) is at the centre. */
+  centreOnImagePoint(x: number, y: number): void;
   /** Animates the view to show a rectangle given in full-resolution image px. */
   flyToImageRect(x: number, y: number, w: number, h: number): void;
   /** Calls cb whenever the view moves or resizes; returns the unsubscribe function. */
@@ -79,6 +87,20 @@ export function createViewerApi(osd: OsdNamespace, viewer: OpenSeadragon.Viewer,
     return Math.hypot(b.x - a.x, b.y - a.y) / w;
   };
 
+  const zoomAt = (factor: number, x: number, y: number): void => {
+    if (!(factor > 0) || !Number.isFinite(x) || !Number.isFinite(y)) return;
+    const vp = viewer.viewport;
+    vp.zoomBy(factor, vp.pointFromPixel(new osd.Point(mirrorX(viewer, x), y), true));
+    vp.applyConstraints();
+  };
+
+  const centreOnImagePoint = (x: number, y: number): void => {
+    const s = sourceScale(viewer, size);
+    if (!s || !Number.isFinite(x) || !Number.isFinite(y)) return;
+    // The viewport centre is also the rotation (and flip) pivot, so this holds at any rotation.
+    viewer.viewport.panTo(s.item.imageToViewportCoordinates(x * s.kx, y * s.ky, true), true);
+  };
+
   const flyToImageRect = (x: number, y: number, w: number, h: number): void => {
     const s = sourceScale(viewer, size);
     if (!s) return;
@@ -93,5 +115,5 @@ export function createViewerApi(osd: OsdNamespace, viewer: OpenSeadragon.Viewer,
     };
   };
 
-  return { viewer, imageToScreen, screenToImage, imageZoom, flyToImageRect, onViewChange };
+  return { viewer, imageToScreen, screenToImage, imageZoom, zoomAt, centreOnImagePoint, flyToImageRect, onViewChange };
 }

@@ -4,6 +4,7 @@ import { composeAffine } from "@/lib/geometry/affine";
 import type { Affine2x3 } from "@/lib/geometry/types";
 import { alignmentResiduals, type ControlPointPair } from "@/lib/alignment";
 import { refineTranslation } from "@/lib/alignment/refine-translation";
+import { judgeRefinement, MIN_MATCH_STRENGTH } from "@/lib/alignment/refinement-verdict";
 import type { GreyImage } from "@/lib/alignment/resample";
 import { configureSharp, sharpInputOptions } from "@/lib/tiles/limits";
 import { BadRequestError } from "./errors";
@@ -42,6 +43,8 @@ const plain = (t: Affine2x3): Transform => [
  * Proposes a refined transform for a roughly aligned micrograph by phase correlation of both
  * previews in the die frame: the rough transform with its translation corrected, and the RMS
  * on the control points before and after. Nothing is stored; the analyst accepts or discards it.
+ * `proposed` says whether it may be offered at all: only when the match is strong enough
+ * (`peak` ≥ `minMatchStrength`) and the RMS on the control points did not get worse.
  */
 export async function proposeRefinement(moving: MicrographRow, against: MicrographRow, rough: Affine2x3, pairs: readonly ControlPointPair[]) {
   if (!moving.width || !moving.height || !against.width || !against.height) throw new BadRequestError("Both micrographs must have been read before refining.");
@@ -60,13 +63,21 @@ export async function proposeRefinement(moving: MicrographRow, against: Microgra
   ];
   const before = pairs.length ? alignmentResiduals(rough, pairs) : null;
   const after = pairs.length ? alignmentResiduals(transform, pairs) : null;
+  const rmsBeforeUm = before?.rmsUm ?? null;
+  const rmsAfterUm = after?.rmsUm ?? null;
+  const verdict = judgeRefinement({ rmsBeforeUm, rmsAfterUm, peak: result.peak });
   return {
     againstId: against.id,
     transform: plain(transform),
     shiftUm: [result.shiftUm[0], result.shiftUm[1]],
     peak: result.peak,
-    rmsBeforeUm: before?.rmsUm ?? null,
-    rmsAfterUm: after?.rmsUm ?? null,
+    minMatchStrength: MIN_MATCH_STRENGTH,
+    rmsBeforeUm,
+    rmsAfterUm,
     residualsUm: after?.residualsUm ?? [],
+    improved: verdict.improved,
+    strongEnough: verdict.strongEnough,
+    proposed: verdict.proposed,
+    reason: verdict.reason,
   };
 }

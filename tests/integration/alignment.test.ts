@@ -3,11 +3,13 @@ import sharp from "sharp";
 import { applyAffine, determinant } from "@/lib/geometry/affine";
 import { demoWorld, EVERYONE, expectedStatus, freshCase } from "./fixtures";
 import { NV24R_LAYOUT } from "@/lib/demo-die/layout";
+import { MIN_MATCH_STRENGTH } from "@/lib/alignment/refinement-verdict";
 import { padPairs, uploadDemoMicrograph, type UploadedDemo } from "../support/demo-micrographs";
 
 // The demo die rendered twice (the seed's bright-field and dark-field settings at 3000 px
 // wide): the renderer's placement is the ground truth (lib/demo-die/placement.ts), so control
 // points are the layout's pad centres where the renderer drew them, paired with their die µm.
+type Refined = { transform: number[][]; rmsBeforeUm: number; rmsAfterUm: number; peak: number; minMatchStrength: number; improved: boolean | null; strongEnough: boolean; proposed: boolean; reason: string; againstId: string; error?: string };
 type Alignment = { transform: number[][]; residualsUm: number[]; rmsUm: number; pairs?: unknown[]; model?: string | null; mirrored?: boolean };
 let world: Awaited<ReturnType<typeof demoWorld>>;
 let dieId: string;
@@ -70,7 +72,7 @@ describe("aligning the demo dark-field micrograph", () => {
     const truth = dark.render.imageToDie;
     // A rough alignment 12 µm right and 9 µm down of the truth.
     const rough = [[truth[0][0], truth[0][1], truth[0][2] + 12], [truth[1][0], truth[1][1], truth[1][2] - 9]];
-    const res = await world.clients.analyst.request<{ transform: number[][]; rmsBeforeUm: number; rmsAfterUm: number; againstId: string; error?: string }>(
+    const res = await world.clients.analyst.request<Refined>(
       "POST",
       `/api/micrographs/${dark.id}/alignment/refine`,
       { transform: rough, pairs: padPairs(dark.render), againstId: bright.id },
@@ -78,6 +80,9 @@ describe("aligning the demo dark-field micrograph", () => {
     expect(res.status, res.body.error).toBe(200);
     expect(res.body.rmsBeforeUm).toBeCloseTo(15, 6); // √(12² + 9²), by hand
     expect(res.body.rmsAfterUm).toBeLessThan(2);
+    expect(res.body).toMatchObject({ improved: true, strongEnough: true, proposed: true, minMatchStrength: MIN_MATCH_STRENGTH });
+    expect(res.body.peak).toBeGreaterThanOrEqual(MIN_MATCH_STRENGTH);
+    expect(res.body.reason).toMatch(/improves the fit/);
     expect((await stored()).transform).not.toEqual(res.body.transform); // proposed, not stored
     const accepted = await put("analyst", dark.id, { model: "similarity", pairs: padPairs(dark.render, FOUR), transform: res.body.transform });
     expect(accepted.status).toBe(200);
@@ -86,6 +91,26 @@ describe("aligning the demo dark-field micrograph", () => {
     const refused = await put("analyst", dark.id, { model: "similarity", pairs: padPairs(dark.render, FOUR), transform: flipped });
     expect(refused.status).toBe(400);
     expect(refused.body.error).toMatch(/transform fits a mirrored photo/);
+  });
+});
+
+describe("a refinement that does not improve the fit", () => {
+  it("is reported as not improving and not proposed, and nothing is stored", async () => {
+    const truth = dark.render.imageToDie;
+    // Control points entered 8 µm right and 6 µm down of the true pad centres (say, pad
+    // corners clicked), and the rough transform fitted to them: RMS 0 on those points. The
+    // correlation moves the transform back to the true picture, so on these points it is
+    // worse by √(8² + 6²) = 10 µm (by hand): no improvement of the fit.
+    const pairs = padPairs(dark.render).map((p) => ({ ...p, dieUm: [p.dieUm[0] + 8, p.dieUm[1] - 6] }));
+    const rough = [[truth[0][0], truth[0][1], truth[0][2] + 8], [truth[1][0], truth[1][1], truth[1][2] - 6]];
+    const before = await stored();
+    const res = await world.clients.analyst.request<Refined>("POST", `/api/micrographs/${dark.id}/alignment/refine`, { transform: rough, pairs, againstId: bright.id });
+    expect(res.status, res.body.error).toBe(200);
+    expect(res.body.rmsBeforeUm).toBeLessThan(1e-6);
+    expect(res.body.rmsAfterUm).toBeGreaterThan(8);
+    expect(res.body).toMatchObject({ improved: false, proposed: false });
+    expect(res.body.reason).toMatch(/does not improve the fit/);
+    expect(await stored()).toEqual(before);
   });
 });
 

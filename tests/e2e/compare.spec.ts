@@ -3,7 +3,7 @@ import fs from "node:fs";
 import os from "node:os";
 import path from "node:path";
 import sharp from "sharp";
-import { signInAs } from "./helpers";
+import { signInAs, waitForStillView } from "./helpers";
 import { NV24R_LAYOUT } from "../../lib/demo-die/layout";
 import { demoMicrographOptions, renderDemoMicrograph } from "../../lib/demo-die/render";
 import { placeDie, pxPerUmForWidth, type Placement } from "../../lib/demo-die/placement";
@@ -84,7 +84,7 @@ test.describe.serial("comparing the demo micrographs", () => {
     await alignDarkByTruth(page, dieId);
     for (const mode of ["Side by side", "Blend"] as const) {
       await openCompare(page, mode, /dark field/);
-      await page.waitForTimeout(1500);
+      await waitForStillView(page);
       const before = await dieToScreen(page, "compare-top");
       const box = (await page.getByTestId("compare-top").boundingBox())!;
       await page.mouse.move(box.x + box.width / 2, box.y + box.height / 2);
@@ -92,7 +92,7 @@ test.describe.serial("comparing the demo micrographs", () => {
         await page.mouse.wheel(0, -120);
         await page.waitForTimeout(150);
       }
-      await page.waitForTimeout(1500);
+      await waitForStillView(page);
       const after = await dieToScreen(page, "compare-top");
       expect(scaleOf(after) / scaleOf(before), `${mode}; page errors: ${errors.slice(0, 2).join(" / ")}`).toBeGreaterThan(1.3);
       if (mode === "Side by side") {
@@ -131,7 +131,7 @@ test.describe.serial("comparing the demo micrographs", () => {
     for (const [step, zoomIns] of [0, 2, 2].entries()) {
       await topViewer.focus();
       for (let i = 0; i < zoomIns; i++) await page.keyboard.press("=");
-      await page.waitForTimeout(5000); // the zoom animation ends and the new level's tiles load
+      await waitForStillView(page);
       const get = await pixels(page, `test-results/compare-turned-reference-${step}.png`);
       const m = await dieToScreen(page, "compare-top");
       const o = (await page.getByTestId("compare-top").getByTestId("markup-overlay").boundingBox())!;
@@ -194,7 +194,7 @@ test.describe.serial("comparing the demo micrographs", () => {
     await expect(page.getByTestId("alignment-workspace")).toBeVisible();
     const rows = page.getByRole("table", { name: "Control-point pairs" }).locator("tbody tr");
     await expect(rows).toHaveCount(8); // the control points stored by the first test
-    await page.waitForTimeout(1500);
+    await waitForStillView(page);
     for (const [side, dx] of [["align-left", 0], ["align-right", 0], ["align-left", 40], ["align-right", 40]] as const) {
       const box = (await page.getByTestId(side).boundingBox())!;
       await page.mouse.click(box.x + box.width / 2 + dx, box.y + box.height / 2);
@@ -225,7 +225,7 @@ test.describe.serial("comparing the demo micrographs", () => {
     await openDie(page);
     for (const mode of ["Side by side", "Blend", "Swipe"] as const) {
       await openCompare(page, mode, /dark field/);
-      await page.waitForTimeout(4000);
+      await waitForStillView(page);
       await page.screenshot({ path: `test-results/compare-mode-${mode.replace(/ /g, "-").toLowerCase()}.png` });
       await page.getByRole("button", { name: "Back to one micrograph" }).click();
     }

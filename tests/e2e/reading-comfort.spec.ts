@@ -1,6 +1,6 @@
 import { expect, test, type Page } from "@playwright/test";
 import fs from "node:fs";
-import { signInAs } from "./helpers";
+import { signInAs, waitForStillView } from "./helpers";
 import { NV24R_LAYOUT } from "../../lib/demo-die/layout";
 
 // Deep links without hydration errors, the resizable side panel and its tables, the readable
@@ -77,7 +77,7 @@ test("a link to a thread opens it without a hydration error", async ({ page }) =
   for (let i = 0; i < 2; i++) {
     await page.goto(`/dies/${dieId}?thread=${threadId}`);
     await expect(page.getByText("Deep-link check: is the mixer core symmetric?")).toBeVisible({ timeout: 30_000 });
-    await page.waitForTimeout(1500);
+    await waitForStillView(page);
   }
   expect(errors.filter((e) => /hydrat|#418|did not match/i.test(e))).toEqual([]);
   expect(errors.filter((e) => e.startsWith("pageerror"))).toEqual([]);
@@ -152,7 +152,7 @@ test("a half-drawn block and an uncommitted inspector edit make a reload ask fir
   await page.reload();
   await expect(page.getByTestId("markup-overlay")).toBeVisible({ timeout: 30_000 });
   await page.getByRole("button", { name: "Fit die" }).click();
-  await page.waitForTimeout(800);
+  await waitForStillView(page);
   expect(await wouldAsk(page)).toBe(false);
   const box = (await page.getByRole("application", { name: "Micrograph viewer" }).boundingBox())!;
   await page.getByRole("toolbar", { name: "Markup tools" }).getByRole("button", { name: /^Block/ }).click();
@@ -250,7 +250,7 @@ test("a whole-die export takes in the bond wires with a margin; the PNG and the 
     await page.reload();
     await expect(page.getByTestId("markup-overlay")).toBeVisible({ timeout: 30_000 });
     await page.getByRole("button", { name: "Fit die" }).click();
-    await page.waitForTimeout(1500);
+    await waitForStillView(page);
     await shot(page, "canvas-ruler-note");
   }
   await removeShapes(page, ids);

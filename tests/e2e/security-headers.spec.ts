@@ -1,5 +1,5 @@
 import { expect, test } from "@playwright/test";
-import { signInAs } from "./helpers";
+import { signInAs, waitForStillView } from "./helpers";
 
 // Issue #13 item 7: under the nonce Content-Security-Policy the pages still hydrate and the
 // die page's viewer (OpenSeadragon tiles, the Konva markup canvas) still draws; Chromium
@@ -18,7 +18,7 @@ test("the die page hydrates and draws under the Content-Security-Policy", async 
   await expect(page.getByTestId("markup-overlay")).toBeVisible();
   // Hydrated: a client-side button answers.
   await page.getByRole("button", { name: "Fit die" }).click();
-  await page.waitForTimeout(2500);
+  await waitForStillView(page);
   const viewer = page.getByRole("application", { name: "Micrograph viewer" });
   const drawn = await viewer.evaluate((root) => {
     const canvases = [...root.querySelectorAll("canvas")] as HTMLCanvasElement[];

@@ -1,16 +1,11 @@
+import { stringify, type Options } from "csv-stringify/sync";
+
 // OWASP "CSV Injection": a cell starting with = + - @ tab or CR can be read by spreadsheet
 // programs as a formula. Such text cells get a leading single quote and are always quoted.
 const FORMULA_START = /^[=+\-@\t\r]/;
 
-/**
- * A text cell: neutralised as OWASP's CSV injection guidance says when it could start a
- * formula, then RFC 4180 §2 rules 5–7 (quote a field holding a comma, quote, CR or LF; double
- * inner quotes). Numbers never pass here (`csvNumber`), so negative values stay numbers.
- */
-export function csvField(text: string): string {
-  if (FORMULA_START.test(text)) return `"'${text.replace(/"/g, '""')}"`;
-  return /[",\r\n]/.test(text) ? `"${text.replace(/"/g, '""')}"` : text;
-}
+/** A cell value before writing: text, a number (rounded), or null for an empty cell. */
+export type CsvValue = string | number | null;
 
 /** Fixed decimals with trailing zeros trimmed; −0 written as 0. */
 export function csvNumber(value: number, decimals: number): string {
@@ -19,13 +14,31 @@ export function csvNumber(value: number, decimals: number): string {
   return text === "-0" ? "0" : text;
 }
 
-/** One CSV cell: empty for null, numbers rounded to `decimals`, text quoted when needed. */
-export function csvCell(value: string | number | null, decimals: number): string {
-  if (value === null) return "";
-  return typeof value === "number" ? csvNumber(value, decimals) : csvField(value);
+/**
+ * csv-stringify options: RFC 4180 quoting (§2 rules 5–7) is the library's; our cast rounds
+ * numbers and neutralises formula-like text (OWASP). Numbers never pass the text cast, so a
+ * negative value stays a number.
+ */
+function options(decimals: number, eof: boolean): Options {
+  return {
+    record_delimiter: "\r\n", // RFC 4180 §2 rules 1–2: CRLF after every record
+    // RFC 4180 §2 rule 6: a field holding a lone LF or CR is quoted too (csv-stringify stops
+    // doing so by default once record_delimiter is set).
+    quote_record_delimiter: true,
+    eof,
+    cast: {
+      number: (value) => csvNumber(value, decimals),
+      string: (value) => (FORMULA_START.test(value) ? { value: `'${value}`, quoted: true } : value),
+    },
+  };
 }
 
-/** Records joined with CRLF, each line ended by CRLF (RFC 4180 §2 rules 1–2). */
-export function csvLines(lines: readonly string[]): string {
-  return lines.map((line) => `${line}\r\n`).join("");
+/** Records as RFC 4180 CSV: each record ended by CRLF, null cells empty. */
+export function csvRecords(records: readonly (readonly CsvValue[])[], decimals: number): string {
+  return stringify(records.map((r) => [...r]), options(decimals, true));
+}
+
+/** One text cell as it appears in a record (neutralised, quoted when needed). */
+export function csvField(text: string): string {
+  return stringify([[text]], options(0, false));
 }

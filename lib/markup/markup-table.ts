@@ -1,6 +1,6 @@
 import { boundingBox, geometryCentre, polygonArea, polylineLength } from "@/lib/geometry/measure";
 import { summariseSavedEstimates } from "@/lib/layout-reading/saved-estimates";
-import { csvCell, csvLines } from "./csv";
+import { csvRecords } from "./csv";
 import type { AnyShape, MarkupKind } from "./types";
 
 /** One line of the markup table; lengths in µm, areas in µm², in the die frame. */
@@ -92,7 +92,5 @@ export const MARKUP_TABLE_HEADERS: readonly string[] = COLUMNS.map((c) => c.head
  * where a column does not apply.
  */
 export function markupTableCsv(rows: readonly MarkupTableRow[], decimals = 3): string {
-  const lines = [MARKUP_TABLE_HEADERS.join(",")];
-  for (const row of rows) lines.push(COLUMNS.map((c) => csvCell(c.value(row), decimals)).join(","));
-  return csvLines(lines);
+  return csvRecords([MARKUP_TABLE_HEADERS, ...rows.map((row) => COLUMNS.map((c) => c.value(row)))], decimals);
 }

@@ -1,5 +1,5 @@
 import type { PadRow, PadTable } from "./types";
-import { csvField } from "../markup/csv";
+import { csvRecords } from "../markup/csv";
 
 export type PadTableCsvOptions = {
   /** Decimal places for µm values (default 3: 1 nm, far below optical resolution). */
@@ -23,25 +23,11 @@ const COLUMNS: readonly { header: string; value: (r: PadRow) => string | number 
 ];
 
 
-/** Fixed decimals with trailing zeros trimmed; −0 written as 0. */
-function formatNumber(value: number, decimals: number): string {
-  const text = value.toFixed(decimals).replace(/(\.\d*?)0+$/, "$1").replace(/\.$/, "");
-  return text === "-0" ? "0" : text;
-}
-
-function cell(value: string | number | null, decimals: number): string {
-  if (value === null) return "";
-  if (typeof value === "number") return Number.isInteger(value) ? String(value) : formatNumber(value, decimals);
-  return csvField(value);
-}
-
 /**
  * The pad table as CSV (RFC 4180): a header row, one record per pad in pad-number order,
  * CRLF line ends, an empty pitch for the last pad on a side.
  */
 export function padTableCsv(table: PadTable, options: PadTableCsvOptions = {}): string {
   const decimals = options.decimals ?? 3;
-  const lines = [COLUMNS.map((c) => c.header).join(",")];
-  for (const row of table.rows) lines.push(COLUMNS.map((c) => cell(c.value(row), decimals)).join(","));
-  return lines.map((line) => `${line}\r\n`).join("");
+  return csvRecords([COLUMNS.map((c) => c.header), ...table.rows.map((row) => COLUMNS.map((c) => c.value(row)))], decimals);
 }

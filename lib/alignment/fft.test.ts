@@ -34,6 +34,24 @@ describe("fft1d", () => {
     outIm.forEach((v, k) => expect(b[k]).toBeCloseTo(v, 10));
   });
 
+  it("matches the DFT definition forward and back on sizes 1 to 512 (radix-4 and odd powers of two)", () => {
+    const rnd = seededRandom(11);
+    for (const n of [1, 2, 4, 8, 32, 128, 512]) {
+      const re = Array.from({ length: n }, () => rnd() - 0.5);
+      const im = Array.from({ length: n }, () => rnd() - 0.5);
+      const { outRe, outIm } = naiveDft(re, im);
+      const a = Float64Array.from(re);
+      const b = Float64Array.from(im);
+      fft1d(a, b);
+      const tol = 1e-9 * n;
+      outRe.forEach((v, k) => expect(Math.abs(a[k] - v), `n=${n} re[${k}]`).toBeLessThan(tol));
+      outIm.forEach((v, k) => expect(Math.abs(b[k] - v), `n=${n} im[${k}]`).toBeLessThan(tol));
+      fft1d(a, b, true); // the inverse DFT, x[n] = (1/N)·Σ X[k]·e^(+2πikn/N), gives the samples back
+      re.forEach((v, k) => expect(a[k]).toBeCloseTo(v, 12));
+      im.forEach((v, k) => expect(b[k]).toBeCloseTo(v, 12));
+    }
+  });
+
   it("transforms a unit impulse to all ones and back (DFT definition)", () => {
     const re = new Float64Array(8);
     const im = new Float64Array(8);

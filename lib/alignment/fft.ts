@@ -1,48 +1,39 @@
+import FFT from "fft.js";
+
 /**
- * Radix-2 fast Fourier transform (Cooley & Tukey, Math. Comp. 19, 1965), in place on separate
- * real and imaginary arrays. Sizes must be powers of two; the refinement picks its grid so.
+ * Fast Fourier transforms on separate real and imaginary arrays, computed by the `fft.js`
+ * library (radix-4). Sizes must be powers of two; the refinement picks its grid so.
  * Forward: X[k] = Σ x[n]·e^(−2πikn/N); inverse divides by N.
  */
+
+type Plan = { fft: FFT; input: number[]; output: number[] };
+const plans = new Map<number, Plan>();
+
+function planFor(n: number): Plan {
+  let plan = plans.get(n);
+  if (!plan) {
+    const fft = new FFT(n);
+    plan = { fft, input: fft.createComplexArray(), output: fft.createComplexArray() };
+    plans.set(n, plan);
+  }
+  return plan;
+}
+
+/** 1-D FFT in place. */
 export function fft1d(re: Float64Array, im: Float64Array, inverse = false): void {
   const n = re.length;
   if (n !== im.length || n === 0 || (n & (n - 1)) !== 0) throw new RangeError("FFT length must be a power of two");
-  for (let i = 1, j = 0; i < n; i++) {
-    let bit = n >> 1;
-    for (; j & bit; bit >>= 1) j ^= bit;
-    j ^= bit;
-    if (i < j) {
-      [re[i], re[j]] = [re[j], re[i]];
-      [im[i], im[j]] = [im[j], im[i]];
-    }
+  if (n === 1) return; // the DFT of one sample is that sample
+  const { fft, input, output } = planFor(n);
+  for (let i = 0; i < n; i++) {
+    input[2 * i] = re[i];
+    input[2 * i + 1] = im[i];
   }
-  const sign = inverse ? 1 : -1;
-  for (let len = 2; len <= n; len <<= 1) {
-    const angle = (sign * 2 * Math.PI) / len;
-    const wr = Math.cos(angle);
-    const wi = Math.sin(angle);
-    for (let start = 0; start < n; start += len) {
-      let cr = 1;
-      let ci = 0;
-      for (let k = 0; k < len / 2; k++) {
-        const a = start + k;
-        const b = a + len / 2;
-        const tr = re[b] * cr - im[b] * ci;
-        const ti = re[b] * ci + im[b] * cr;
-        re[b] = re[a] - tr;
-        im[b] = im[a] - ti;
-        re[a] += tr;
-        im[a] += ti;
-        const next = cr * wr - ci * wi;
-        ci = cr * wi + ci * wr;
-        cr = next;
-      }
-    }
-  }
-  if (inverse) {
-    for (let i = 0; i < n; i++) {
-      re[i] /= n;
-      im[i] /= n;
-    }
+  if (inverse) fft.inverseTransform(output, input);
+  else fft.transform(output, input);
+  for (let i = 0; i < n; i++) {
+    re[i] = output[2 * i];
+    im[i] = output[2 * i + 1];
   }
 }
 

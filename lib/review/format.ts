@@ -1,22 +1,21 @@
 /**
- * Safe formatting of comment bodies. A comment is stored verbatim and turned here into a small
- * tree of our own node types (paragraphs, lists, text, code, links, mentions); the page renders
- * that tree as React elements and e-mail renders it through `toSafeHtml`, which escapes every
- * character of user text. Nothing the user typed is ever passed on as HTML.
+ * Safe formatting of comment bodies. A comment is stored verbatim and read here as CommonMark
+ * with the GFM extensions (tables, strikethrough, task lists, autolinks) by micromark through
+ * `mdast-util-from-markdown`; raw HTML and footnotes are switched off at the parser. A pass of
+ * ours over the syntax tree keeps only absolute http(s) links, shows images and unsafe links as
+ * the literal text that was typed, turns line breaks into breaks and marks @mentions. The tree
+ * then becomes HTML elements (`mdast-util-to-hast`), passes `hast-util-sanitize`, and is
+ * rendered by React on the page (`hast-util-to-jsx-runtime`) and by `hast-util-to-html` for
+ * e-mail: one tree for both, and nothing the user typed is ever passed on as HTML.
  */
-
-export type Inline =
-  | { readonly type: "text"; readonly text: string }
-  | { readonly type: "code"; readonly text: string }
-  | { readonly type: "link"; readonly href: string; readonly text: string }
-  | { readonly type: "mention"; readonly text: string };
-
-export type Block =
-  | { readonly type: "paragraph"; readonly lines: readonly (readonly Inline[])[] }
-  | { readonly type: "list"; readonly ordered: boolean; readonly items: readonly (readonly Inline[])[] };
-
-const BULLET = /^\s*[-*]\s+(.*)$/;
-const NUMBERED = /^\s*\d{1,4}[.)]\s+(.*)$/;
+import { fromMarkdown } from "mdast-util-from-markdown";
+import { gfm } from "micromark-extension-gfm";
+import { gfmFromMarkdown } from "mdast-util-gfm";
+import { toHast } from "mdast-util-to-hast";
+import { defaultSchema, sanitize, type Schema } from "hast-util-sanitize";
+import { toHtml } from "hast-util-to-html";
+import type { Definition, Nodes as MdNodes, Parent as MdParent, PhrasingContent, Root as MdRoot, RootContent } from "mdast";
+import type { Element, Nodes as HastNodes, Root as HastRoot } from "hast";
 
 /** Only absolute http(s) URLs become links; everything else (javascript:, data:, …) stays text. */
 export function safeHref(raw: string): string | null {
@@ -30,9 +29,17 @@ export function safeHref(raw: string): string | null {
   return url.href;
 }
 
-// `code`, [text](url), a bare http(s) URL, or an @mention start.
-const TOKEN = /`([^`\n]+)`|\[([^\]\n]{1,200})\]\(([^)\s]{1,2000})\)|(https?:\/\/[^\s<>"'`]+)|@/g;
-const TRAILING = /[.,;:!?)\]]+$/;
+const ESCAPES: Record<string, string> = { "&": "&amp;", "<": "&lt;", ">": "&gt;", '"': "&quot;", "'": "&#39;" };
+
+/** Escapes text for HTML element content and double-quoted attributes (for our own mail frame). */
+export function escapeHtml(text: string): string {
+  return text.replace(/[&<>"']/g, (c) => ESCAPES[c]);
+}
+
+// Raw HTML (block and inline) and GFM footnotes are not constructs of a comment: `<b>` is text.
+const NO_HTML_NO_FOOTNOTES = {
+  disable: { null: ["htmlFlow", "htmlText", "gfmFootnoteDefinition", "gfmFootnoteCall", "gfmPotentialFootnoteCall"] },
+};
 
 function mentionAt(text: string, at: number, names: readonly string[]): string | null {
   if (at > 0 && !/\s|[(\[]/.test(text[at - 1])) return null;
@@ -48,111 +55,114 @@ function mentionAt(text: string, at: number, names: readonly string[]): string |
   return best;
 }
 
-/** Splits one line into inline nodes; `names` are the display names and e-mails to mark as mentions. */
-export function parseInline(text: string, names: readonly string[] = []): Inline[] {
-  const out: Inline[] = [];
+/** A text run split into text, breaks (for its line ends) and, outside links, mentions. */
+function splitText(value: string, names: readonly string[], mentions: boolean): PhrasingContent[] {
+  const out: PhrasingContent[] = [];
   let plain = "";
   const flush = () => {
-    if (plain) out.push({ type: "text", text: plain });
+    if (plain) out.push({ type: "text", value: plain });
     plain = "";
   };
-  let last = 0;
-  for (const m of text.matchAll(TOKEN)) {
-    const at = m.index ?? 0;
-    if (at < last) continue;
-    plain += text.slice(last, at);
-    last = at + m[0].length;
-    if (m[1] !== undefined) {
+  for (let i = 0; i < value.length; i++) {
+    const c = value[i];
+    if (c === "\n") {
       flush();
-      out.push({ type: "code", text: m[1] });
-    } else if (m[2] !== undefined) {
-      const href = safeHref(m[3]);
-      // An image trick (![x](…)) or an unsafe target shows as the literal text it was.
-      if (!href || text[at - 1] === "!") plain += m[0];
-      else {
-        flush();
-        out.push({ type: "link", href, text: m[2] });
-      }
-    } else if (m[4] !== undefined) {
-      const url = m[4].replace(TRAILING, "");
-      const href = safeHref(url);
-      last = at + url.length;
-      if (!href) plain += url;
-      else {
-        flush();
-        out.push({ type: "link", href, text: url });
-      }
-    } else {
-      const name = mentionAt(text, at, names);
-      if (!name) plain += "@";
-      else {
-        flush();
-        out.push({ type: "mention", text: `@${name}` });
-        last = at + 1 + name.length;
-      }
+      out.push({ type: "break" });
+      continue;
     }
+    const name = c === "@" && mentions ? mentionAt(value, i, names) : null;
+    if (!name) {
+      plain += c;
+      continue;
+    }
+    flush();
+    const text = `@${name}`;
+    out.push({ type: "strong", data: { hProperties: { className: ["mention"] } }, children: [{ type: "text", value: text }] });
+    i += name.length;
   }
-  plain += text.slice(last);
   flush();
   return out;
 }
 
-/** Parses a comment body into blocks: runs of list lines become lists, the rest paragraphs. */
-export function parseComment(body: string, names: readonly string[] = []): Block[] {
-  const blocks: Block[] = [];
-  const lines = body.replace(/\r\n?/g, "\n").split("\n");
-  let para: Inline[][] = [];
-  let list: { ordered: boolean; items: Inline[][] } | null = null;
-  const end = () => {
-    if (para.length) blocks.push({ type: "paragraph", lines: para });
-    if (list) blocks.push({ type: "list", ordered: list.ordered, items: list.items });
-    para = [];
-    list = null;
-  };
-  for (const line of lines) {
-    const bullet = BULLET.exec(line);
-    const numbered = bullet ? null : NUMBERED.exec(line);
-    const item = bullet ?? numbered;
-    if (item) {
-      const ordered = !!numbered;
-      if (para.length || (list && list.ordered !== ordered)) end();
-      list ??= { ordered, items: [] };
-      list.items.push(parseInline(item[1], names));
-    } else if (line.trim() === "") end();
-    else {
-      if (list) end();
-      para.push(parseInline(line, names));
+type Pass = { source: string; names: readonly string[]; definitions: Map<string, Definition> };
+
+/** The characters the user typed for a node, to show it literally. */
+function literal(node: MdNodes, pass: Pass): PhrasingContent {
+  const start = node.position?.start.offset;
+  const end = node.position?.end.offset;
+  return { type: "text", value: start !== undefined && end !== undefined ? pass.source.slice(start, end) : "" };
+}
+
+function rewrite(node: RootContent, pass: Pass): RootContent | null {
+  switch (node.type) {
+    case "definition": // used by the references that name it; an unsafe one shows as typed
+      return safeHref(node.url) ? null : { type: "paragraph", children: [literal(node, pass)] };
+    case "html":
+    case "image":
+    case "imageReference":
+    case "footnoteReference":
+      return literal(node, pass);
+    case "link": {
+      const href = safeHref(node.url);
+      return href ? { ...node, url: href } : literal(node, pass);
     }
+    case "linkReference": {
+      const href = safeHref(pass.definitions.get(node.identifier)?.url ?? "");
+      return href ? { type: "link", url: href, children: node.children, position: node.position } : literal(node, pass);
+    }
+    default:
+      return node;
   }
-  end();
-  return blocks;
 }
 
-const ESCAPES: Record<string, string> = { "&": "&amp;", "<": "&lt;", ">": "&gt;", '"': "&quot;", "'": "&#39;" };
-
-/** Escapes text for HTML element content and double-quoted attributes. */
-export function escapeHtml(text: string): string {
-  return text.replace(/[&<>"']/g, (c) => ESCAPES[c]);
+function walk(parent: MdParent, pass: Pass, inLink: boolean): void {
+  const kept: RootContent[] = [];
+  for (const child of parent.children) {
+    const next = rewrite(child, pass);
+    if (!next) continue;
+    const last = kept[kept.length - 1];
+    if (next.type === "text" && last?.type === "text") kept[kept.length - 1] = { type: "text", value: last.value + next.value };
+    else kept.push(next);
+  }
+  parent.children = kept.flatMap((child): RootContent[] => {
+    if (child.type === "text") return splitText(child.value, pass.names, !inLink);
+    if ("children" in child) walk(child, pass, inLink || child.type === "link");
+    return [child];
+  }) as MdParent["children"];
 }
 
-function inlineHtml(nodes: readonly Inline[]): string {
-  return nodes
-    .map((n) => {
-      if (n.type === "code") return `<code>${escapeHtml(n.text)}</code>`;
-      if (n.type === "link") return `<a href="${escapeHtml(n.href)}" rel="noopener noreferrer">${escapeHtml(n.text)}</a>`;
-      if (n.type === "mention") return `<strong>${escapeHtml(n.text)}</strong>`;
-      return escapeHtml(n.text);
-    })
-    .join("");
+const SCHEMA: Schema = {
+  ...defaultSchema,
+  tagNames: (defaultSchema.tagNames ?? []).filter((t) => t !== "img"),
+  protocols: { ...defaultSchema.protocols, href: ["http", "https"], src: [] },
+  attributes: { ...defaultSchema.attributes, strong: [["className", "mention"]] },
+};
+
+function addRel(node: HastNodes): void {
+  if (node.type === "element" && node.tagName === "a") node.properties.rel = ["noopener", "noreferrer"];
+  if ("children" in node) for (const c of node.children) addRel(c as Element);
 }
 
-/** HTML built by us from the tree (for e-mail): every piece of user text is escaped. */
-export function toSafeHtml(blocks: readonly Block[]): string {
-  return blocks
-    .map((b) => {
-      if (b.type === "paragraph") return `<p>${b.lines.map(inlineHtml).join("<br>")}</p>`;
-      const tag = b.ordered ? "ol" : "ul";
-      return `<${tag}>${b.items.map((i) => `<li>${inlineHtml(i)}</li>`).join("")}</${tag}>`;
-    })
-    .join("\n");
+/**
+ * A comment as a sanitised HTML syntax tree (hast). `names` are the display names and e-mails
+ * to mark as @mentions (`<strong class="mention">`).
+ */
+export function commentTree(body: string, names: readonly string[] = []): HastRoot {
+  const source = body.replace(/\r\n?/g, "\n");
+  const mdast: MdRoot = fromMarkdown(source, { extensions: [gfm(), NO_HTML_NO_FOOTNOTES], mdastExtensions: [gfmFromMarkdown()] });
+  const definitions = new Map<string, Definition>();
+  const collect = (n: MdNodes) => {
+    if (n.type === "definition") definitions.set(n.identifier, n);
+    if ("children" in n) n.children.forEach(collect);
+  };
+  collect(mdast);
+  walk(mdast, { source, names, definitions }, false);
+  const tree = sanitize(toHast(mdast), SCHEMA) as HastRoot;
+  addRel(tree);
+  return tree;
+}
+
+/** A comment as HTML for e-mail, from the same tree the page renders. */
+export function commentHtml(body: string, names: readonly string[] = []): string {
+  return toHtml(commentTree(body, names), { characterReferences: { useNamedReferences: true } });
 }

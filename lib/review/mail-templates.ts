@@ -1,4 +1,4 @@
-import { escapeHtml, parseComment, toSafeHtml } from "./format";
+import { commentHtml, escapeHtml } from "./format";
 
 /** One message as the outbox stores it. */
 export type MailContent = { readonly subject: string; readonly text: string; readonly html: string };
@@ -29,7 +29,7 @@ export function commentMail(p: { kind: "comment" | "mention"; author: string; di
   return {
     subject: p.kind === "mention" ? `[Kerfline] ${p.author} mentioned you on ${p.dieName}` : `[Kerfline] New comment on ${p.dieName}`,
     text: `${heading}:\n\n${quote(p.body)}\n\nOpen the thread: ${p.link}\n\n${FOOTER_TEXT}\n`,
-    html: wrapHtml(heading, `<blockquote>${toSafeHtml(parseComment(p.body))}</blockquote>`, { href: p.link, label: "Open the thread" }),
+    html: wrapHtml(heading, `<blockquote>${commentHtml(p.body)}</blockquote>`, { href: p.link, label: "Open the thread" }),
   };
 }
 
@@ -41,7 +41,7 @@ export function reviewMail(p: { action: "submit" | "approve" | "request_changes"
   return {
     subject: `[Kerfline] ${p.dieName} ${what}`,
     text: `${heading}.${message}\n\nOpen the die: ${p.link}\n\n${FOOTER_TEXT}\n`,
-    html: wrapHtml(heading, p.message.trim() ? `<blockquote>${toSafeHtml(parseComment(p.message))}</blockquote>` : "", { href: p.link, label: "Open the die" }),
+    html: wrapHtml(heading, p.message.trim() ? `<blockquote>${commentHtml(p.message)}</blockquote>` : "", { href: p.link, label: "Open the die" }),
   };
 }
 

@@ -281,7 +281,9 @@ describe("mail notifications", () => {
     const t = await newThread(dieId, `please check, @Demo Analyst <b>now</b>`);
     const mail = await waitForMail(world.clients.owner, DEMO_EMAILS.analyst, (m) => m.subject.includes("mentioned you"), `?thread=${t.id}`);
     expect(mail.text).toContain(`/dies/${dieId}?thread=${t.id}`);
-    expect(mail.html).toContain("&lt;b&gt;now&lt;/b&gt;");
+    // The tag arrives as visible text (HTML Standard §13.1.2: "<" escaped, ">" may stay).
+    expect(mail.html).toContain("&lt;b>now&lt;/b>");
+    expect(mail.html).not.toContain("<b>");
     const outbox = await world.clients.owner.get<{ toEmail: string; status: string }[]>(`/api/teams/${world.teamId}/outbox`);
     expect(outbox.status).toBe(200);
     expect(outbox.body.some((o) => o.toEmail === DEMO_EMAILS.analyst && o.status === "sent")).toBe(true);

@@ -5,7 +5,7 @@ import { stringify, type Options } from "csv-stringify/sync";
 const FORMULA_START = /^[=+\-@\t\r]/;
 
 /** A cell value before writing: text, a number (rounded), or null for an empty cell. */
-export type CsvValue = string | number | null;
+type CsvValue = string | number | null;
 
 /** Fixed decimals with trailing zeros trimmed; −0 written as 0. */
 export function csvNumber(value: number, decimals: number): string {

@@ -113,10 +113,15 @@ async function workerLoop(db: Database, stopped: () => boolean): Promise<void> {
   }
 }
 
-/** Starts the in-process tiling workers: at most one per core. */
+/** How many in-process tiling workers run: one per core this process may use. */
+export function tilingWorkerCount(): number {
+  return Math.max(1, os.availableParallelism());
+}
+
+/** Starts the in-process tiling workers (tilingWorkerCount of them). */
 export function startTilingWorkers(db: Database): () => void {
   let stopped = false;
-  const count = Math.max(1, Math.min(2, os.availableParallelism?.() ?? os.cpus().length));
+  const count = tilingWorkerCount();
   for (let i = 0; i < count; i++) void workerLoop(db, () => stopped);
   return () => {
     stopped = true;

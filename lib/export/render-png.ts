@@ -43,7 +43,7 @@ function kindsShown(shapes: readonly AnyShape[]): MarkupKind[] {
 const CONCURRENCY = 2;
 
 /** Rows of output drawn per band, and the height of the markup tiles. */
-export const BAND_ROWS = 512;
+const BAND_ROWS = 512;
 
 /** Runs `job` over `items`, `CONCURRENCY` at a time, keeping the results in order. */
 async function inTurn<T, R>(items: readonly T[], job: (item: T, index: number) => Promise<R>): Promise<R[]> {
@@ -138,7 +138,7 @@ async function cleanUp(scratch: Scratch) {
 }
 
 /** The PNG text chunks an export carries (title, scale, software). */
-export function exportTextChunks(title: TitleBlock, umPerPx: number): Record<string, string> {
+function exportTextChunks(title: TitleBlock, umPerPx: number): Record<string, string> {
   return {
     Title: `${title.caseTitle} – ${title.dieName} – ${title.micrograph}`,
     Description: `Scale ${umPerPx} um/px (${formatScale(umPerPx).replace("µ", "u")}); die frame in um, origin lower-left, y up`,

@@ -35,7 +35,7 @@ function progressReporter(db: Database, id: string) {
  * pyramid (built aside and renamed into place), then the thumbnail. The micrograph goes
  * queued → tiling → ready, or failed with a reason the UI shows.
  */
-export async function tileMicrograph(db: Database, micrographId: string): Promise<void> {
+async function tileMicrograph(db: Database, micrographId: string): Promise<void> {
   const [m] = await db.select().from(micrographs).where(eq(micrographs.id, micrographId));
   if (!m || !m.format) return; // deleted meanwhile
   const p = micrographPaths(m.dieId, m.id, m.format as keyof typeof EXTENSION);

@@ -1,4 +1,5 @@
 import { defineConfig } from "vitest/config";
+import os from "node:os";
 import path from "node:path";
 
 const alias = {
@@ -13,7 +14,7 @@ export default defineConfig({
     testTimeout: 60_000,
     hookTimeout: 180_000,
     pool: "forks",
-    maxWorkers: 2,
+    maxWorkers: os.availableParallelism(),
     projects: [
       {
         resolve: { alias },

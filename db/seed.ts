@@ -6,7 +6,7 @@ import { hashPassword } from "./access/users";
 import { recordAudit } from "./access/audit";
 
 /** The password of every demo account (documented in the README). */
-export const DEMO_PASSWORD = "fjordlight-demo";
+const DEMO_PASSWORD = "fjordlight-demo";
 
 /** The invented demo scenario: team, users, case and die. Names are fiction. */
 export const DEMO = {

@@ -14,7 +14,7 @@ const KIND_LABELS: Record<InboxItemDto["kind"], string> = {
 };
 
 /** Where an item leads: the exact thread on the die bench, or the die for review events. */
-export function inboxHref(item: InboxItemDto): string {
+function inboxHref(item: InboxItemDto): string {
   return item.threadId ? `/dies/${item.dieId}?thread=${item.threadId}` : `/dies/${item.dieId}`;
 }
 

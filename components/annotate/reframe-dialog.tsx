@@ -9,7 +9,7 @@ import type { Editor, EditorState } from "./editor/types";
 type DieSize = { readonly widthUm: number | null; readonly heightUm: number | null };
 
 /** What re-framing from this outline does, in words, with µm rounded to what the scale resolves. */
-export function reframeEffect(outline: NonNullable<EditorState["confirmation"]>["geometry"], die: DieSize, umPerPx: number | null): { shift: string; size: string } {
+function reframeEffect(outline: NonNullable<EditorState["confirmation"]>["geometry"], die: DieSize, umPerPx: number | null): { shift: string; size: string } {
   const f = dieFrameFromOutline(outline);
   const um = (v: number) => formatUm(v, umPerPx);
   const was = die.widthUm && die.heightUm ? ` (now ${um(die.widthUm)} × ${um(die.heightUm)} µm)` : " (not recorded yet)";

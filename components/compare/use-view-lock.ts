@@ -13,7 +13,7 @@ type Side = { api: ViewerApi | null; imageToDie: Affine2x3 | null };
  * the centre, same µm per screen px, same die-frame rotation. All changes are immediate, so the
  * follower is never a spring step behind.
  */
-export function applyLock(leader: ViewerApi, leaderT: Affine2x3, follower: ViewerApi, followerT: Affine2x3): void {
+function applyLock(leader: ViewerApi, leaderT: Affine2x3, follower: ViewerApi, followerT: Affine2x3): void {
   const vp: OpenSeadragon.Viewport = follower.viewer.viewport;
   const size = leader.viewer.viewport.getContainerSize();
   const centre = { x: size.x / 2, y: size.y / 2 };

@@ -9,7 +9,7 @@ import { BondWireEstimate } from "./bond-wire-estimate";
 import { SpiralEstimate } from "./spiral-estimate";
 import { TraceEstimates } from "./trace-estimates";
 
-export const ESTIMATE_CAUTION = "First-order estimates for reading a layout, not a substitute for electromagnetic simulation or measurement.";
+const ESTIMATE_CAUTION = "First-order estimates for reading a layout, not a substitute for electromagnetic simulation or measurement.";
 
 /**
  * Estimates for the selected shape, recomputed in the browser with the same pure functions as

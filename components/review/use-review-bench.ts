@@ -10,7 +10,7 @@ import { threadPinsDrawer } from "./thread-pins";
 import { useThreads } from "./use-threads";
 
 /** Animates the viewer to a die-µm box with room around it. */
-export function flyToDieBox(api: ViewerApi, transform: Affine2x3, b: BoundingBox) {
+function flyToDieBox(api: ViewerApi, transform: Affine2x3, b: BoundingBox) {
   const inv = invertAffine(transform);
   const p = [applyAffine(inv, b.minX, b.minY), applyAffine(inv, b.maxX, b.maxY)];
   const x0 = Math.min(p[0][0], p[1][0]);

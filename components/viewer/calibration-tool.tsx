@@ -8,7 +8,7 @@ import { usePointPicker } from "./use-point-picker";
 import type { ViewerApi } from "./viewer-api";
 
 /** A two-point calibration in full-resolution image px and the true length between them. */
-export type Calibration = { p1: [number, number]; p2: [number, number]; lengthUm: number };
+type Calibration = { p1: [number, number]; p2: [number, number]; lengthUm: number };
 
 type Props = {
   api: ViewerApi | null;

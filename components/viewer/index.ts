@@ -1,13 +1,6 @@
-export { MicrographViewer, type MicrographViewerProps } from "./micrograph-viewer";
+export { MicrographViewer } from "./micrograph-viewer";
 export type { MicrographSource } from "./micrograph-source";
-export type { ViewerApi, XY } from "./viewer-api";
-export { ScaleBar, SCALE_BAR_TARGET_PX } from "./scale-bar";
-export { CursorReadout } from "./cursor-readout";
-export { cursorReading, type CursorReading } from "./cursor-format";
-export { ResolutionNote } from "./resolution-note";
-export { DEFAULT_WAVELENGTH_NM, isUnderSampled, rayleighResolutionUm } from "@/lib/micrographs/resolution";
-export { CalibrationTool, type Calibration } from "./calibration-tool";
-export { parseKnownLength, type LengthParse } from "./known-length";
+export type { ViewerApi } from "./viewer-api";
+export { CalibrationTool } from "./calibration-tool";
 export { useViewVersion } from "./use-view-version";
-export { MAX_SCREEN_PX_PER_IMAGE_PX } from "./use-osd-viewer";
 export { usePointPicker } from "./use-point-picker";

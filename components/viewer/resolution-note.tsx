@@ -2,8 +2,6 @@
 
 import { isUnderSampled, rayleighResolutionUm, DEFAULT_WAVELENGTH_NM } from "@/lib/micrographs/resolution";
 
-export { isUnderSampled, rayleighResolutionUm } from "@/lib/micrographs/resolution";
-
 /** The smallest distance the objective resolves, and a warning when pixels are too coarse for it. */
 export function ResolutionNote({ umPerPx, numericalAperture }: { umPerPx: number | null; numericalAperture: number | null | undefined }) {
   if (numericalAperture == null || !(numericalAperture > 0) || !Number.isFinite(numericalAperture)) return null;

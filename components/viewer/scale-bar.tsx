@@ -5,7 +5,7 @@ import { useViewVersion } from "./use-view-version";
 import type { ViewerApi } from "./viewer-api";
 
 /** The longest bar the layout allows, in CSS px. */
-export const SCALE_BAR_TARGET_PX = 160;
+const SCALE_BAR_TARGET_PX = 160;
 
 const BOX = "pointer-events-none select-none rounded-md bg-ink-950/80 px-2 py-1 text-ink-100 shadow-sm";
 

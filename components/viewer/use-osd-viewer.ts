@@ -8,7 +8,7 @@ import { createViewerApi, type ImageSizeGetter, type OsdNamespace, type ViewerAp
 import { markViewIdle } from "./view-idle-marker";
 
 /** Deepest zoom, in screen px per full-resolution image px: far enough to see single pixels. */
-export const MAX_SCREEN_PX_PER_IMAGE_PX = 8;
+const MAX_SCREEN_PX_PER_IMAGE_PX = 8;
 
 export type ViewerStatus = { state: "loading" } | { state: "ready" } | { state: "failed"; message: string };
 

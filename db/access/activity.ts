@@ -25,7 +25,7 @@ function detailOf(action: string, before: unknown, after: unknown): string {
 }
 
 /** Cursor of an item: its time and id, so items sharing a timestamp are neither lost nor repeated. */
-export const cursorOf = (item: { at: string; id: string }) => `${item.at}~${item.id}`;
+const cursorOf = (item: { at: string; id: string }) => `${item.at}~${item.id}`;
 
 /**
  * The die's activity from the audit trail (markup, threads, comments, review), newest first,

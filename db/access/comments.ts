@@ -1,6 +1,6 @@
 import "server-only";
 import { eq } from "drizzle-orm";
-import { commentMentions, comments, users, type ThreadRow } from "../schema";
+import { commentMentions, comments, type ThreadRow } from "../schema";
 import { type Actor, type Db } from "./context";
 import { recordAudit } from "./audit";
 import { enqueueMail, teamPeople, wantingMail, type TeamPerson } from "./notify";
@@ -12,7 +12,7 @@ import { inboxText } from "@/lib/review/inbox-text";
 import { addInboxItems } from "./inbox";
 
 /** The deep link to one thread: the die bench opens zoomed to it. */
-export function threadLink(origin: string, dieId: string, threadId: string): string {
+function threadLink(origin: string, dieId: string, threadId: string): string {
   return `${origin}/dies/${dieId}?thread=${threadId}`;
 }
 
@@ -112,8 +112,3 @@ export async function deleteComment(db: Db, actor: Actor, commentId: string): Pr
   });
 }
 
-/** Display name of a user (for mails sent outside a comment's own transaction). */
-export async function userName(db: Db, userId: string): Promise<string> {
-  const [u] = await db.select({ name: users.name }).from(users).where(eq(users.id, userId));
-  return u?.name ?? "Someone";
-}

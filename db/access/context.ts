@@ -12,7 +12,7 @@ export type Actor = { readonly userId: string };
 export type Db = Database | Parameters<Parameters<Database["transaction"]>[0]>[0];
 
 /** The caller's role in a team, or null when not a member. */
-export async function roleIn(db: Db, actor: Actor, teamId: string): Promise<TeamRole | null> {
+async function roleIn(db: Db, actor: Actor, teamId: string): Promise<TeamRole | null> {
   const [row] = await db
     .select({ role: memberships.role })
     .from(memberships)

@@ -39,7 +39,7 @@ export async function loadDieSources(db: Db, dieId: string): Promise<DieSources 
 }
 
 /** What the shapes cover in die µm (null without shapes): a whole-die export takes it in. */
-export function markupExtent(shapes: readonly AnyShape[]): ExtentUm | null {
+function markupExtent(shapes: readonly AnyShape[]): ExtentUm | null {
   if (shapes.length === 0) return null;
   const boxes = shapes.map((s) => boundingBox(s.geometry));
   return { minX: Math.min(...boxes.map((b) => b.minX)), minY: Math.min(...boxes.map((b) => b.minY)), maxX: Math.max(...boxes.map((b) => b.maxX)), maxY: Math.max(...boxes.map((b) => b.maxY)) };

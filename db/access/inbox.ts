@@ -4,14 +4,14 @@ import { inboxItems, memberships } from "../schema";
 import type { Actor, Db } from "./context";
 import { NotFoundError } from "@/lib/server/errors";
 
-export type InboxKind = "mention" | "comment" | "review_submitted" | "review_decision";
+type InboxKind = "mention" | "comment" | "review_submitted" | "review_decision";
 
 export type InboxItemDto = { id: string; kind: InboxKind; dieId: string; threadId?: string; text: string; createdAt: string; readAt: string | null };
 
 export type NewInboxItem = { userId: string; teamId: string; kind: InboxKind; dieId: string; threadId?: string; text: string; dedupeKey: string };
 
 /** How many items the inbox lists (newest first). */
-export const INBOX_LIMIT = 200;
+const INBOX_LIMIT = 200;
 
 /**
  * Puts items in people's inboxes, in the caller's transaction, next to the mail of the same

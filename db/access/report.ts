@@ -19,7 +19,7 @@ import type { AnyShape } from "@/lib/markup/types";
 import { withShownPadStates } from "@/lib/markup/pad-state";
 
 /** Width of the report's overview image: sharp enough for print at the page's text width. */
-export const OVERVIEW_WIDTH_PX = 1600;
+const OVERVIEW_WIDTH_PX = 1600;
 
 const day = (d: Date) => d.toISOString().slice(0, 16).replace("T", " ");
 
@@ -74,7 +74,7 @@ async function reviewParts(db: Db, dieId: string, shapes: readonly AnyShape[]): 
 const UNIT_SUFFIX: Record<string, string> = { Um: "µm", Nh: "nH", Ph: "pH", Ohm: "Ω", Mm: "mm", Ghz: "GHz", Mhz: "MHz", Deg: "°", Um2: "µm²" };
 
 /** "innerDiameterUm" → "inner diameter (µm)": the saved field's name for people. */
-export function estimateFieldName(key: string): string {
+function estimateFieldName(key: string): string {
   const m = /^(.*?)(Um2|Um|Nh|Ph|Ohm|Mm|Ghz|Mhz|Deg)$/.exec(key);
   const base = (m ? m[1] : key).replace(/([a-z0-9])([A-Z])/g, "$1 $2").toLowerCase();
   return m ? `${base} (${UNIT_SUFFIX[m[2]]})` : base;

@@ -12,7 +12,7 @@ import type { Geometry } from "@/lib/geometry/types";
 import type { TeamAction } from "@/lib/auth/permissions";
 import type { NewThreadInput } from "@/lib/validation/review";
 
-export type CommentDto = {
+type CommentDto = {
   id: string;
   threadId: string;
   authorId: string | null;
@@ -85,7 +85,7 @@ export async function listThreads(db: Db, actor: Actor, dieId: string): Promise<
 }
 
 /** The same DTOs for given rows (one query per table, whatever the number of threads). */
-export async function threadDtos(db: Db, rows: ThreadRow[]): Promise<ThreadDto[]> {
+async function threadDtos(db: Db, rows: ThreadRow[]): Promise<ThreadDto[]> {
   const shapeIds = rows.flatMap((r) => (r.shapeId ? [r.shapeId] : []));
   const alive = new Set(shapeIds.length ? (await db.select({ id: markup.id }).from(markup).where(inArray(markup.id, shapeIds))).map((s) => s.id) : []);
   const userIds = [...new Set(rows.flatMap((r) => [r.resolvedBy, r.createdBy].filter((x): x is string => !!x)))];

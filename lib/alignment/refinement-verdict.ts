@@ -8,7 +8,7 @@
 export const MIN_MATCH_STRENGTH = 0.1;
 
 /** The smallest drop in RMS (µm) that counts as an improvement: one unit of the 2 decimals shown. */
-export const MIN_RMS_GAIN_UM = 0.01;
+const MIN_RMS_GAIN_UM = 0.01;
 
 export type RefinementVerdict = {
   /** RMS on the control points went down by at least MIN_RMS_GAIN_UM; null without control points. */

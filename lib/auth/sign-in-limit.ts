@@ -9,11 +9,11 @@
 
 export const SIGN_IN_WINDOW_MS = 15 * 60 * 1000;
 /** Failures for one account from one address before that pair is refused. */
-export const MAX_FAILED_PER_ACCOUNT_ADDRESS = 10;
+const MAX_FAILED_PER_ACCOUNT_ADDRESS = 10;
 /** Failures for one account from all its unknown addresses before those are refused. */
-export const MAX_FAILED_PER_ACCOUNT_UNKNOWN = 10;
+const MAX_FAILED_PER_ACCOUNT_UNKNOWN = 10;
 /** Failures from one address, whatever the account, before that address is refused. */
-export const MAX_FAILED_PER_ADDRESS = 30;
+const MAX_FAILED_PER_ADDRESS = 30;
 /** An address is "known" for an account after a successful sign-in from it in this time. */
 export const KNOWN_ADDRESS_MS = 30 * 24 * 60 * 60 * 1000;
 

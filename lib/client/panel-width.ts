@@ -6,8 +6,8 @@ export const PANEL_WIDTH_KEY = "kerfline.side-panel-width";
 export const DEFAULT_PANEL_WIDTH = 384;
 export const MIN_PANEL_WIDTH = 320;
 /** The panel never takes more than this share of the window, nor more than MAX_PANEL_WIDTH. */
-export const MAX_PANEL_SHARE = 0.7;
-export const MAX_PANEL_WIDTH = 1100;
+const MAX_PANEL_SHARE = 0.7;
+const MAX_PANEL_WIDTH = 1100;
 
 /** The width clamped to what the window allows; anything unreadable becomes the default. */
 export function clampPanelWidth(width: number, windowWidth: number): number {

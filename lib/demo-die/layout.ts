@@ -12,7 +12,7 @@ import type { Position } from "../geometry/types";
  * states with the wire bonds that follow them (VB1S and VB2S are only probed, NC1 is open).
  */
 
-export type PadState = "bonded" | "probed" | "unbonded";
+type PadState = "bonded" | "probed" | "unbonded";
 export type DieSide = "left" | "right" | "top" | "bottom";
 
 export type Pad = {
@@ -29,7 +29,7 @@ export type Pad = {
 export type WireBond = { readonly pad: string; readonly fromUm: Position; readonly toUm: Position; readonly diameterUm: number };
 
 /** A functional block; the polygon ring is closed (first position repeated, as in RFC 7946). */
-export type Block = { readonly name: string; readonly function: string; readonly polygonUm: readonly Position[] };
+type Block = { readonly name: string; readonly function: string; readonly polygonUm: readonly Position[] };
 
 /** A square spiral inductor drawn as a symmetric (centre-tapped) winding. */
 export type Spiral = {
@@ -44,10 +44,10 @@ export type Spiral = {
 /** A metal line given by its centre line and width. */
 export type Trace = { readonly name: string; readonly pointsUm: readonly Position[]; readonly widthUm: number };
 
-export type Capacitor = { readonly name: string; readonly function: string; readonly centreUm: Position; readonly sizeUm: Position };
+type Capacitor = { readonly name: string; readonly function: string; readonly centreUm: Position; readonly sizeUm: Position };
 
 /** Text in top metal; `positionUm` is the left end of the baseline. */
-export type TextMark = {
+type TextMark = {
   readonly kind: "maker" | "part" | "mask_id" | "date_code";
   readonly text: string;
   readonly positionUm: Position;
@@ -83,7 +83,7 @@ const PAD_IN = 70;
 const BOND_REACH = 220;
 
 /** Mirrors a die position across the symmetry axis y = 800 µm. */
-export function mirrorAcrossAxis([x, y]: Position): Position {
+function mirrorAcrossAxis([x, y]: Position): Position {
   return [x, 2 * AXIS - y];
 }
 

@@ -5,7 +5,7 @@
 export const MU0 = 4 * Math.PI * 1e-7;
 
 /** Speed of light in vacuum, m/s (exact). */
-export const SPEED_OF_LIGHT = 299_792_458;
+const SPEED_OF_LIGHT = 299_792_458;
 
 /** Impedance of free space η0 = µ0·c ≈ 376.73 Ω. */
 export const ETA0 = MU0 * SPEED_OF_LIGHT;

@@ -10,12 +10,12 @@ export type ModulusPair = { k: number; kPrime: number };
 const LN2 = Math.LN2;
 
 /** ln sinh x for x > 0. */
-export function logSinh(x: number): number {
+function logSinh(x: number): number {
   return x < 20 ? Math.log(Math.sinh(x)) : x - LN2 + Math.log1p(-Math.exp(-2 * x));
 }
 
 /** ln cosh x for x ≥ 0. */
-export function logCosh(x: number): number {
+function logCosh(x: number): number {
   return x < 20 ? Math.log(Math.cosh(x)) : x - LN2 + Math.log1p(Math.exp(-2 * x));
 }
 

@@ -15,7 +15,7 @@ import { stripInductance, type StripEstimate } from "./strip";
 import { waferEstimate, YIELD_MODELS, type WaferEstimate } from "./wafer";
 
 export const ESTIMATE_KINDS = ["bond-wire", "strip", "spiral", "microstrip", "cpw", "optics", "wafer"] as const;
-export type EstimateKind = (typeof ESTIMATE_KINDS)[number];
+type EstimateKind = (typeof ESTIMATE_KINDS)[number];
 
 export type AnyEstimate =
   | BondWireEstimate

@@ -11,13 +11,13 @@ export type MicrostripInput = { widthUm: number; heightUm: number; er: number; t
 export type MicrostripEstimate = EstimateMeta & { z0Ohm: number; effectivePermittivity: number; widthOverHeight: number };
 
 /** Impedance of the strip in air, Z01(u), u = W/h (H&J eqs 1–2). */
-export function airImpedance(u: number): number {
+function airImpedance(u: number): number {
   const f = 6 + (2 * Math.PI - 6) * Math.exp(-Math.pow(30.666 / u, 0.7528));
   return (ETA0 / (2 * Math.PI)) * Math.log(f / u + Math.sqrt(1 + 4 / (u * u)));
 }
 
 /** Effective permittivity εe(u, εr) for a zero-thickness strip (H&J eqs 3–5). */
-export function zeroThicknessPermittivity(u: number, er: number): number {
+function zeroThicknessPermittivity(u: number, er: number): number {
   const u4 = u ** 4;
   const a = 1 + Math.log((u4 + (u / 52) ** 2) / (u4 + 0.432)) / 49 + Math.log(1 + (u / 18.1) ** 3) / 18.7;
   const b = 0.564 * Math.pow((er - 0.9) / (er + 3), 0.053);

@@ -43,14 +43,14 @@ const CURRENT_SHEET: Record<SpiralShape, [number, number, number, number]> = {
 };
 
 /** Modified Wheeler: L = K1·µ0·n²·d_avg/(1 + K2·ρ) (SI). */
-export function modifiedWheeler(shape: SpiralShape, n: number, dAvg: number, rho: number): number {
+function modifiedWheeler(shape: SpiralShape, n: number, dAvg: number, rho: number): number {
   const k = WHEELER[shape];
   if (!k) throw new EstimateInputError("method", "the modified Wheeler expression has no coefficients for circular spirals; use current-sheet");
   return (k[0] * MU0 * n * n * dAvg) / (1 + k[1] * rho);
 }
 
 /** Current sheet: L = µ0·n²·d_avg·c1/2·[ln(c2/ρ) + c3·ρ + c4·ρ²] (SI). */
-export function currentSheet(shape: SpiralShape, n: number, dAvg: number, rho: number): number {
+function currentSheet(shape: SpiralShape, n: number, dAvg: number, rho: number): number {
   const [c1, c2, c3, c4] = CURRENT_SHEET[shape];
   return ((MU0 * n * n * dAvg * c1) / 2) * (Math.log(c2 / rho) + c3 * rho + c4 * rho * rho);
 }

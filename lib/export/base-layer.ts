@@ -17,7 +17,7 @@ export const BACKGROUND = { r: 40, g: 44, b: 48 };
 export type Scratch = { readonly dir: string | null; readonly stem: string; readonly files: string[] };
 
 /** Runs a pipeline to its end and reopens the result for random access. */
-export async function materialise(p: Sharp, scratch: Scratch, tag: string): Promise<Sharp> {
+async function materialise(p: Sharp, scratch: Scratch, tag: string): Promise<Sharp> {
   if (!scratch.dir) {
     const { data, info } = await p.raw().toBuffer({ resolveWithObject: true });
     return sharp(data, { raw: { width: info.width, height: info.height, channels: info.channels }, limitInputPixels: false });

@@ -15,9 +15,9 @@ export type TitleBlock = {
   readonly reviewStatus: string;
 };
 
-export const FOOTER_BACKGROUND = "#15191d";
+const FOOTER_BACKGROUND = "#15191d";
 /** The bar is pure white on the dark footer, so tests (and readers) can find it exactly. */
-export const SCALE_BAR_COLOUR = "#ffffff";
+const SCALE_BAR_COLOUR = "#ffffff";
 
 /** Where the scale bar was drawn, in output pixels of the whole image (footer included). */
 export type PlacedScaleBar = ScaleBar & { readonly x: number; readonly y: number; readonly thickness: number };
@@ -25,7 +25,7 @@ export type PlacedScaleBar = ScaleBar & { readonly x: number; readonly y: number
 export type Footer = { readonly svg: string; readonly height: number; readonly scaleBar: PlacedScaleBar };
 
 /** The footer's height for an output this wide: room for four lines of the title block. */
-export function footerHeight(width: number): number {
+function footerHeight(width: number): number {
   return Math.round(Math.max(110, Math.min(900, width * 0.075)));
 }
 

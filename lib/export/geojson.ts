@@ -7,12 +7,10 @@ import { MARKUP_SCHEMA_VERSION, type AnyShape, type MarkupKind } from "@/lib/mar
  * so; readers that ignore it still get valid GeoJSON structure.
  */
 
-/** The foreign member name at the top level of an exported collection. */
-export const GEOJSON_MEMBER = "kerfline";
-export const GEOJSON_FRAME = "die, origin lower-left, y up";
+const GEOJSON_FRAME = "die, origin lower-left, y up";
 
 /** What the top-level `kerfline` member states about the coordinates. */
-export type GeoJsonFrameInfo = {
+type GeoJsonFrameInfo = {
   readonly units: "µm";
   readonly frame: typeof GEOJSON_FRAME;
   readonly schemaVersion: number;

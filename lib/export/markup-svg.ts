@@ -77,7 +77,7 @@ const umPerPxOf = (m: Affine2x3) => 1 / Math.hypot(m[0][0], m[1][0]);
  * The text a shape carries in an export: a ruler its length (with its label when it has one),
  * in the decimals the output scale resolves; a note its whole text; others their label.
  */
-export function exportLabelText(shape: AnyShape, m: Affine2x3): string {
+function exportLabelText(shape: AnyShape, m: Affine2x3): string {
   if (shape.kind === "ruler" && shape.geometry.type === "LineString") {
     const length = `${formatUm(polylineLength(shape.geometry.coordinates), umPerPxOf(m))} µm`;
     const label = shapeLabel(shape).trim();
@@ -165,7 +165,7 @@ export function placeThreadMarks(threads: readonly ThreadMark[], shapes: readonl
  * The leader of a moved thread marker: a line from the place it marks to the marker, and a dot
  * there. Drawn under the labels, so the plate it was moved off stays readable.
  */
-export function threadLeaderSvg(t: ThreadMark, m: Affine2x3, style: MarkupStyle): string {
+function threadLeaderSvg(t: ThreadMark, m: Affine2x3, style: MarkupStyle): string {
   if (!t.offsetPx) return "";
   const [ax, ay] = applyAffine(m, t.at[0], t.at[1]);
   const x = ax + t.offsetPx[0];
@@ -174,7 +174,7 @@ export function threadLeaderSvg(t: ThreadMark, m: Affine2x3, style: MarkupStyle)
 }
 
 /** A numbered marker for a review thread (filled when open, hollow when resolved). */
-export function threadSvg(t: ThreadMark, m: Affine2x3, style: MarkupStyle): string {
+function threadSvg(t: ThreadMark, m: Affine2x3, style: MarkupStyle): string {
   const [ax, ay] = applyAffine(m, t.at[0], t.at[1]);
   const x = ax + (t.offsetPx?.[0] ?? 0);
   const y = ay + (t.offsetPx?.[1] ?? 0);

@@ -14,8 +14,8 @@ import { labelBox, markupLayerSvg, markupStyle, placeThreadMarks, threadRadius, 
 /** One tile of markup: an SVG document and where its top-left corner goes on the output. */
 export type OverlayTile = { readonly svg: string; readonly left: number; readonly top: number; readonly width: number; readonly height: number };
 
-export const TILE_WIDTH = 1024;
-export const TILE_HEIGHT = 512;
+const TILE_WIDTH = 1024;
+const TILE_HEIGHT = 512;
 
 /** SVG text of the export asks for the face the app ships (lib/fonts), by name. */
 export const EXPORT_FONT_FAMILY = `${APP_FONT_FAMILY}, sans-serif`;
@@ -23,7 +23,7 @@ export const EXPORT_FONT_FAMILY = `${APP_FONT_FAMILY}, sans-serif`;
 type Box = readonly [number, number, number, number];
 
 /** Output-pixel box a shape and its label may paint, strokes and halo included. */
-export function shapeReach(shape: AnyShape, m: Affine2x3, style: MarkupStyle, labels: boolean): Box {
+function shapeReach(shape: AnyShape, m: Affine2x3, style: MarkupStyle, labels: boolean): Box {
   const b = boundingBox(shape.geometry);
   const pts = [applyAffine(m, b.minX, b.minY), applyAffine(m, b.maxX, b.minY), applyAffine(m, b.minX, b.maxY), applyAffine(m, b.maxX, b.maxY)];
   const stroke = style.stroke * 4;

@@ -16,7 +16,7 @@ const MARGIN = 50;
 const LINE = 1.35;
 
 /** Text as `font` can draw it on one line: line breaks become spaces, missing glyphs "?". */
-export function printable(text: string, font: PDFFont): string {
+function printable(text: string, font: PDFFont): string {
   const known = charactersOf(font);
   return [...text.replace(/[\t\r\n]+/g, " ")].map((c) => (known.has(c.codePointAt(0)!) ? c : "?")).join("");
 }

@@ -6,8 +6,6 @@ import { crc32 } from "node:zlib";
  * so they are spliced in after IHDR, each with its CRC-32 over type and data (§5.3).
  */
 
-const SIGNATURE = Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]);
-
 /** Characters outside Latin-1 cannot be stored in tEXt; they become "?". */
 function latin1(text: string): Buffer {
   return Buffer.from(text.replace(/[^\u0000-\u00ff]/g, "?"), "latin1");
@@ -31,14 +29,4 @@ export function textChunk(keyword: string, text: string): Buffer {
   const crc = Buffer.alloc(4);
   crc.writeUInt32BE(crc32(typed) >>> 0);
   return Buffer.concat([head, typed, crc]);
-}
-
-/** Returns a copy of `png` with the given keyword/text pairs as tEXt chunks right after IHDR. */
-export function withPngText(png: Buffer, entries: Readonly<Record<string, string>>): Buffer {
-  if (!png.subarray(0, 8).equals(SIGNATURE)) throw new Error("not a PNG");
-  // IHDR is always the first chunk (§5.6): 4 length + 4 type + 13 data + 4 CRC after the signature.
-  if (png.toString("ascii", 12, 16) !== "IHDR") throw new Error("PNG without IHDR first");
-  const ihdrEnd = 8 + 12 + png.readUInt32BE(8);
-  const chunks = Object.entries(entries).map(([k, v]) => textChunk(k, v));
-  return Buffer.concat([png.subarray(0, ihdrEnd), ...chunks, png.subarray(ihdrEnd)]);
 }

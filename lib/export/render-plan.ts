@@ -10,7 +10,7 @@ import { wholeDieRegion, type ExtentUm } from "./view-region";
 /** Widest output the renderer accepts (and its tallest). */
 export const MAX_OUTPUT_PX = 16_384;
 /** Width used when the request gives neither a width nor a scale (capped at the native one). */
-export const DEFAULT_OUTPUT_WIDTH = 4096;
+const DEFAULT_OUTPUT_WIDTH = 4096;
 
 /** A rectangle in die µm: lower-left corner, width to the right, height upwards. */
 export type DieRegion = { readonly x: number; readonly y: number; readonly width: number; readonly height: number };
@@ -23,7 +23,7 @@ export type SourceImage = { readonly width: number; readonly height: number; rea
  * An axis-aligned transform (x from a, y from d; either may mirror): an integer rectangle of
  * source pixels and where (and how large) it lands in the output once resized.
  */
-export type AxisWindow = {
+type AxisWindow = {
   readonly kind: "axis";
   readonly left: number;
   readonly top: number;
@@ -44,7 +44,7 @@ export type AxisWindow = {
  * factor to about the output scale (so the resampling filters, not the affine interpolator,
  * do the shrinking), then mapped by a residual affine whose output is placed on the canvas.
  */
-export type AffineWindow = {
+type AffineWindow = {
   readonly kind: "affine";
   readonly left: number;
   readonly top: number;
@@ -65,7 +65,7 @@ export type AffineWindow = {
   readonly outTop: number;
 };
 
-export type SourceWindow = AxisWindow | AffineWindow;
+type SourceWindow = AxisWindow | AffineWindow;
 
 export type RenderPlan = {
   readonly region: DieRegion;
@@ -90,7 +90,7 @@ function corners(width: number, height: number): [number, number][] {
 }
 
 /** The die rectangle the micrograph covers (its bounding box when rotated), for dies of unknown size. */
-export function imageExtentUm(image: SourceImage): DieRegion {
+function imageExtentUm(image: SourceImage): DieRegion {
   const pts = corners(image.width, image.height).map(([x, y]) => applyAffine(image.transform, x, y));
   const xs = pts.map((p) => p[0]);
   const ys = pts.map((p) => p[1]);

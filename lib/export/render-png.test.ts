@@ -5,7 +5,7 @@ import path from "node:path";
 import sharp from "sharp";
 import { planRender, type RenderPlan } from "./render-plan";
 import { renderAnnotatedPngBuffer, renderAnnotatedPngFile, type RenderInput } from "./render-png";
-import type { AnyShape } from "@/lib/markup/types";
+import { MARKUP_KINDS, type AnyShape } from "@/lib/markup/types";
 
 // Pixel checks of the annotated PNG. Expected positions come from the affine maps written out
 // by hand below (image px → die µm as PRODUCT.md's coordinates define it), and the image area
@@ -241,6 +241,16 @@ describe("renderAnnotatedPngFile over several bands", () => {
     // The resolved one is hollow: its centre keeps the micrograph's ramp colour (blue 60).
     const hollow = img.at(Math.round(1210 / 2 + r * 0.5), Math.round((1800 - 505) / 2));
     expect(Math.abs(hollow[2] - 60)).toBeLessThan(8);
+  });
+
+  // The legend's order is MARKUP_KINDS (lib/markup/types.ts), whatever order the shapes come in.
+  it("lists each kind present once in the legend, in MARKUP_KINDS order", async () => {
+    const shape = (kind: AnyShape["kind"], geometry: AnyShape["geometry"]) => ({ ...pad, id: crypto.randomUUID(), kind, geometry, properties: {} }) as unknown as AnyShape;
+    const line = { type: "LineString", coordinates: [[100, 100], [300, 100]] } as AnyShape["geometry"];
+    const shapes = [shape("note", { type: "Point", coordinates: [50, 50] } as AnyShape["geometry"]), shape("ruler", line), pad, shape("trace", line), pad];
+    const { info } = await renderAnnotatedPngBuffer(input(plan({ widthPx: 300 }), shapes));
+    expect(info.kinds).toEqual(MARKUP_KINDS.filter((k) => ["note", "ruler", "pad", "trace"].includes(k)));
+    expect(info.kinds).toEqual(["pad", "trace", "ruler", "note"]);
   });
 
   it("leaves no intermediate files behind, after success and after a failure", async () => {

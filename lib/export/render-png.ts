@@ -3,7 +3,7 @@ import { open, rm, stat } from "node:fs/promises";
 import path from "node:path";
 import { pipeline } from "node:stream/promises";
 import sharp, { type OverlayOptions, type Sharp } from "sharp";
-import type { AnyShape, MarkupKind } from "@/lib/markup/types";
+import { MARKUP_KINDS, type AnyShape, type MarkupKind } from "@/lib/markup/types";
 import { BACKGROUND, baseLayer, blank, type Scratch } from "./base-layer";
 import { footerSvg, formatScale, type PlacedScaleBar, type TitleBlock } from "./footer-svg";
 import type { ThreadMark } from "./markup-svg";
@@ -33,17 +33,17 @@ export type RenderInput = {
 
 export type RenderInfo = { readonly width: number; readonly height: number; readonly imageHeight: number; readonly scaleBar: PlacedScaleBar; readonly kinds: readonly MarkupKind[] };
 
-/** The kinds present among the shapes, in the palette's order, for the legend. */
+/** The kinds present among the shapes, in MARKUP_KINDS order (the palette's), for the legend. */
 function kindsShown(shapes: readonly AnyShape[]): MarkupKind[] {
   const present = new Set(shapes.map((s) => s.kind));
-  return (Object.keys({ pad: 1, wire_bond: 1, block: 1, symmetry_axis: 1, trace: 1, ruler: 1, note: 1, die_outline: 1 }) as MarkupKind[]).filter((k) => present.has(k));
+  return MARKUP_KINDS.filter((k) => present.has(k));
 }
 
 /** SVG rasterisations and bands run this many at a time (one per core). */
 const CONCURRENCY = 2;
 
 /** Rows of output drawn per band, and the height of the markup tiles. */
-export const BAND_ROWS = 512;
+const BAND_ROWS = 512;
 
 /** Runs `job` over `items`, `CONCURRENCY` at a time, keeping the results in order. */
 async function inTurn<T, R>(items: readonly T[], job: (item: T, index: number) => Promise<R>): Promise<R[]> {
@@ -138,7 +138,7 @@ async function cleanUp(scratch: Scratch) {
 }
 
 /** The PNG text chunks an export carries (title, scale, software). */
-export function exportTextChunks(title: TitleBlock, umPerPx: number): Record<string, string> {
+function exportTextChunks(title: TitleBlock, umPerPx: number): Record<string, string> {
   return {
     Title: `${title.caseTitle} – ${title.dieName} – ${title.micrograph}`,
     Description: `Scale ${umPerPx} um/px (${formatScale(umPerPx).replace("µ", "u")}); die frame in um, origin lower-left, y up`,

@@ -31,7 +31,7 @@ export type ReportData = {
 };
 
 /** One review thread with every message in order (the first is the remark, the rest replies). */
-export type ReportThread = {
+type ReportThread = {
   readonly number: number;
   readonly status: string;
   readonly author: string;
@@ -42,7 +42,7 @@ export type ReportThread = {
 };
 
 /** One estimate saved on a shape. */
-export type ReportEstimate = {
+type ReportEstimate = {
   readonly shape: string;
   readonly formula: string;
   readonly summary: string;

@@ -19,12 +19,12 @@ export function dieRegionOfImageCorners(transform: Affine2x3, corners: readonly 
 export type ExtentUm = { readonly minX: number; readonly minY: number; readonly maxX: number; readonly maxY: number };
 
 /** Margin around a whole-die export's markup, as a fraction of its larger side. */
-export const WHOLE_DIE_MARGIN = 0.03;
+const WHOLE_DIE_MARGIN = 0.03;
 /**
  * Room kept around the die itself, as a fraction of its larger side: bond wires leave the die
  * edge for the package, and a photo shows them whether or not they are marked up.
  */
-export const DIE_SURROUND = 0.1;
+const DIE_SURROUND = 0.1;
 
 /**
  * The region of a "whole die" export: the die rectangle with 10 % of its larger side around it

@@ -16,7 +16,7 @@ const FILES: Record<AppFontFace, string> = { regular: "DejaVuSans.ttf", bold: "D
 export const APP_FONT_FAMILY = "DejaVu Sans";
 
 /** Path of a face's TrueType file (resolved from the working directory: the app's root). */
-export function appFontPath(face: AppFontFace): string {
+function appFontPath(face: AppFontFace): string {
   return path.join(/*turbopackIgnore: true*/ process.cwd(), "node_modules", "dejavu-fonts-ttf", "ttf", FILES[face]);
 }
 

@@ -90,7 +90,7 @@ export function polygonCentroid(polygon: PolygonGeometry): Position {
 }
 
 /** Bounding box of a list of positions; throws on an empty list. */
-export function boundingBoxOf(positions: readonly Position[]): BoundingBox {
+function boundingBoxOf(positions: readonly Position[]): BoundingBox {
   if (positions.length === 0) throw new RangeError("no positions");
   let minX = Infinity;
   let minY = Infinity;
@@ -106,7 +106,7 @@ export function boundingBoxOf(positions: readonly Position[]): BoundingBox {
 }
 
 /** All positions of a geometry, rings flattened (closing repeats included). */
-export function geometryPositions(geometry: Geometry): readonly Position[] {
+function geometryPositions(geometry: Geometry): readonly Position[] {
   switch (geometry.type) {
     case "Point":
       return [geometry.coordinates];

@@ -3,17 +3,14 @@
  *
  * - ImagePoint: pixels of one micrograph, origin top-left, x right, y down.
  * - DiePoint: micrometres in the die frame, origin at the die's lower-left corner, x right, y up.
- * - ScreenPoint: CSS pixels of the viewer element.
  */
 declare const space: unique symbol;
 
 export type ImagePoint = { readonly x: number; readonly y: number; readonly [space]: "image" };
 export type DiePoint = { readonly x: number; readonly y: number; readonly [space]: "die" };
-export type ScreenPoint = { readonly x: number; readonly y: number; readonly [space]: "screen" };
 
 export const imagePoint = (x: number, y: number) => ({ x, y }) as ImagePoint;
 export const diePoint = (x: number, y: number) => ({ x, y }) as DiePoint;
-export const screenPoint = (x: number, y: number) => ({ x, y }) as ScreenPoint;
 
 /**
  * A 2x3 affine matrix [[a, b, tx], [c, d, ty]]: out = [[a, b], [c, d]]·in + [tx, ty].

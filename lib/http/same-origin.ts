@@ -11,7 +11,7 @@ export type OriginVerdict = { ok: true } | { ok: false; reason: string };
 
 const SAFE_METHODS = new Set(["GET", "HEAD", "OPTIONS"]);
 
-export const CROSS_ORIGIN_MESSAGE = "This request came from another site or port and was refused: changes are accepted only from Kerfline's own pages.";
+const CROSS_ORIGIN_MESSAGE = "This request came from another site or port and was refused: changes are accepted only from Kerfline's own pages.";
 
 export function checkSameOrigin(req: { method: string; origin: string | null; secFetchSite: string | null }, ownOrigins: readonly string[]): OriginVerdict {
   if (SAFE_METHODS.has(req.method.toUpperCase())) return { ok: true };

@@ -6,7 +6,7 @@
 import type { SavedEstimate, SavedEstimates } from "../markup/types";
 
 /** The estimate kinds a shape can carry, with the name shown for each formula. */
-export const SAVED_ESTIMATE_NAMES = {
+const SAVED_ESTIMATE_NAMES = {
   "bond-wire": "Bond-wire inductance (Rosa; Grover)",
   strip: "Straight bar inductance (Grover; Terman)",
   spiral: "Planar spiral inductance (Mohan et al. 1999)",

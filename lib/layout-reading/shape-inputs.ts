@@ -7,7 +7,7 @@ import { boundingBox, polylineLength } from "../geometry/measure";
 import type { AnyShape } from "../markup/types";
 
 /** Wire diameter assumed when a wire bond has none recorded: the common 25 µm gold wire. */
-export const DEFAULT_WIRE_DIAMETER_UM = 25;
+const DEFAULT_WIRE_DIAMETER_UM = 25;
 
 /** Which estimate forms a shape of this kind offers; empty for kinds with none. */
 export type ShapeEstimateRole = "wire-bond" | "trace" | "spiral-block" | null;

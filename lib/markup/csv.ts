@@ -8,7 +8,7 @@ const FORMULA_START = /^[=+\-@\t\r]/;
 type CsvValue = string | number | null;
 
 /** Fixed decimals with trailing zeros trimmed; −0 written as 0. */
-export function csvNumber(value: number, decimals: number): string {
+function csvNumber(value: number, decimals: number): string {
   if (Number.isInteger(value)) return Object.is(value, -0) ? "0" : String(value);
   const text = value.toFixed(decimals).replace(/(\.\d*?)0+$/, "$1").replace(/\.$/, "");
   return text === "-0" ? "0" : text;

@@ -10,10 +10,10 @@ export type DieBounds = { readonly minX: number; readonly minY: number; readonly
 export const UNKNOWN_DIE_LIMIT_UM = 200_000;
 
 /** Smallest margin around a die: room for notes and rulers beside a small die. */
-export const MIN_MARGIN_UM = 500;
+const MIN_MARGIN_UM = 500;
 
 /** Margin as a fraction of the die's size along the same axis. */
-export const MARGIN_FRACTION = 0.25;
+const MARGIN_FRACTION = 0.25;
 
 function axis(size: number | null): [number, number] {
   if (size === null || !(size > 0)) return [-UNKNOWN_DIE_LIMIT_UM, UNKNOWN_DIE_LIMIT_UM];

@@ -34,7 +34,7 @@ export type History = {
 };
 
 /** The least number of steps a history keeps, whatever limit is asked for. */
-export const MIN_HISTORY_LIMIT = 100;
+const MIN_HISTORY_LIMIT = 100;
 
 const changeId = (c: Change): string => (c.after ?? c.before)!.id;
 

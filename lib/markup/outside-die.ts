@@ -7,7 +7,7 @@ import type { AnyShape, MarkupKind } from "./types";
  * Kinds that belong on the die and are flagged when drawn off it. Wire bonds, notes and rulers
  * leave the die by nature (a bond runs to the package, a note sits beside the die) and are not.
  */
-export const ON_DIE_KINDS: readonly MarkupKind[] = ["pad", "block", "trace"];
+const ON_DIE_KINDS: readonly MarkupKind[] = ["pad", "block", "trace"];
 
 /** Slack at the edge, in µm: a pad drawn flush with the outline is on the die. */
 const EDGE_SLACK_UM = 1e-6;
@@ -28,14 +28,14 @@ export function dieFrameOf(shapes: Iterable<AnyShape>, die: { readonly widthUm: 
 }
 
 /** A shape's centre: centre of area for polygons, of the bounding box for lines and points. */
-export function shapeCentre(shape: AnyShape): Position {
+function shapeCentre(shape: AnyShape): Position {
   if (shape.geometry.type === "Polygon") return polygonCentroid(shape.geometry);
   const b = boundingBox(shape.geometry);
   return [(b.minX + b.maxX) / 2, (b.minY + b.maxY) / 2];
 }
 
 /** Whether a point (die µm) lies outside the die frame's rectangle. */
-export function pointOutside(frame: DieFrame, p: Position): boolean {
+function pointOutside(frame: DieFrame, p: Position): boolean {
   const [x, y] = toOutlineAxes(frame, p);
   return x < -EDGE_SLACK_UM || y < -EDGE_SLACK_UM || x > frame.widthUm + EDGE_SLACK_UM || y > frame.heightUm + EDGE_SLACK_UM;
 }

@@ -24,7 +24,7 @@ export function shownPadState(pad: { readonly id: string; readonly properties: P
 }
 
 /** The shown state of every pad in `shapes`, by pad id. */
-export function shownPadStates(shapes: readonly AnyShape[]): Map<string, PadState> {
+function shownPadStates(shapes: readonly AnyShape[]): Map<string, PadState> {
   const bonded = bondedPadIds(shapes);
   const out = new Map<string, PadState>();
   for (const s of shapes) if (s.kind === "pad") out.set(s.id, shownPadState(s, bonded));

@@ -4,7 +4,7 @@ import { bondedPadIds, shownPadState } from "./pad-state";
 import type { AnyShape, Shape } from "./types";
 
 /** Where the die outline of a pad table came from. */
-export type OutlineSource = "die_outline" | "die_size";
+type OutlineSource = "die_outline" | "die_size";
 
 export type PadTableResult =
   | { readonly ok: true; readonly table: PadTable; readonly outlineSource: OutlineSource }

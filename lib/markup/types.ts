@@ -25,13 +25,13 @@ export type PadProperties = {
   /** Numbered in the pad table even though its centre lies outside the die outline. */
   numberOutside?: boolean;
 };
-export type WireBondProperties = { label?: string; diameterUm: number; padId?: string | null };
+type WireBondProperties = { label?: string; diameterUm: number; padId?: string | null };
 export type BlockProperties = { name: string; function: string };
-export type SymmetryAxisProperties = { name?: string; label?: string };
-export type TraceProperties = { label?: string; widthUm: number; layerNote?: string };
-export type RulerProperties = { label?: string };
-export type NoteProperties = { text: string };
-export type DieOutlineProperties = { label?: string };
+type SymmetryAxisProperties = { name?: string; label?: string };
+type TraceProperties = { label?: string; widthUm: number; layerNote?: string };
+type RulerProperties = { label?: string };
+type NoteProperties = { text: string };
+type DieOutlineProperties = { label?: string };
 
 export type PropertiesOf = {
   pad: PadProperties;
@@ -68,8 +68,6 @@ export type Shape<K extends MarkupKind = MarkupKind> = {
 
 export type AnyShape = { [K in MarkupKind]: Shape<K> }[MarkupKind];
 
-/** What a client sends to create a shape (the id may be chosen by the client, as a UUID). */
-export type NewShape = { id?: string; kind: MarkupKind; geometry: Geometry; properties: Record<string, unknown> };
 
 /** One saved estimate result: a flat record of small values (inputs, outputs, units). */
 export type SavedEstimate = Readonly<Record<string, number | string | boolean | null>>;

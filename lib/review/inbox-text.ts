@@ -1,7 +1,7 @@
 // The one-line text of an inbox item: who did what on which die, and the start of what they wrote.
 
 /** Longest excerpt of a comment or review message kept in an inbox item, in characters. */
-export const INBOX_EXCERPT_CHARS = 160;
+const INBOX_EXCERPT_CHARS = 160;
 
 /** White space collapsed, cut at a word boundary near the limit with an ellipsis. */
 export function excerpt(text: string, max = INBOX_EXCERPT_CHARS): string {

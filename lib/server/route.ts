@@ -9,7 +9,7 @@ import { findUnsafeText } from "@/lib/validation/unsafe-text";
 import { sameOriginVerdict } from "./origin";
 
 /** JSON bodies above this are refused with 413 before parsing. */
-export const MAX_JSON_BYTES = 1024 * 1024;
+const MAX_JSON_BYTES = 1024 * 1024;
 
 type Ctx<P, B, Q> = { actor: Actor; db: Database; params: P; body: B; query: Q; req: Request };
 

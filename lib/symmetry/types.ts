@@ -19,7 +19,7 @@ export type SymmetryOptions = {
   maxDistanceUm?: number;
 };
 
-export type Vector = { readonly x: number; readonly y: number };
+type Vector = { readonly x: number; readonly y: number };
 
 /** Size difference A − mirror(B): bounding-box width and height, or length for traces. */
 export type SizeDifference = { readonly widthUm: number; readonly heightUm: number } | { readonly lengthUm: number };

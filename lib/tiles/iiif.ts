@@ -9,14 +9,14 @@
  * (8.18) and as `0,0,W,H` by the older Debian CLI (8.14); both spellings are supported.
  */
 
-export const IIIF_IMAGE_CONTEXT = "http://iiif.io/api/image/3/context.json";
-export const IIIF_IMAGE_PROTOCOL = "http://iiif.io/api/image";
+const IIIF_IMAGE_CONTEXT = "http://iiif.io/api/image/3/context.json";
+const IIIF_IMAGE_PROTOCOL = "http://iiif.io/api/image";
 export const DEFAULT_TILE_SIZE = 512;
 
 /** A region of the full-resolution image in pixels. */
-export type TileRegion = { readonly x: number; readonly y: number; readonly w: number; readonly h: number };
+type TileRegion = { readonly x: number; readonly y: number; readonly w: number; readonly h: number };
 /** The pixel size a region is delivered at. */
-export type TileSize = { readonly w: number; readonly h: number };
+type TileSize = { readonly w: number; readonly h: number };
 
 /** One tile of the pyramid: its scale factor, region and delivered size. */
 export type Tile = { readonly scaleFactor: number; readonly region: TileRegion; readonly size: TileSize };

@@ -1,8 +1,9 @@
 import { readdir, writeFile } from "node:fs/promises";
+import os from "node:os";
 import path from "node:path";
 import { crc32, deflateSync } from "node:zlib";
 import sharp from "sharp";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import { DEFAULT_PIXEL_CAP, ImageRejectedError, probeImage, sharpInputOptions } from "./limits";
 import { buildPyramid } from "./pyramid";
 import { run, tempDir } from "./test-helpers";
@@ -114,4 +115,22 @@ describe("unsupported and damaged inputs", () => {
       expect(await readdir(folder)).toEqual([]);
     });
   }
+});
+
+describe("configureSharp", () => {
+  // The process's core count comes from Node (os.availableParallelism); a stand-in of 3 shows
+  // the setting follows it rather than a fixed number.
+  it("gives libvips one thread per core the process may use", async () => {
+    const before = sharp.concurrency();
+    const spy = vi.spyOn(os, "availableParallelism").mockReturnValue(3);
+    try {
+      vi.resetModules();
+      const fresh = await import("./limits");
+      fresh.configureSharp();
+      expect(sharp.concurrency()).toBe(3);
+    } finally {
+      spy.mockRestore();
+      sharp.concurrency(before);
+    }
+  });
 });

@@ -1,4 +1,5 @@
 import { open } from "node:fs/promises";
+import os from "node:os";
 import sharp, { type Metadata, type Sharp, type SharpOptions } from "sharp";
 import { useAppFontsForSvg } from "../fonts/app-fonts";
 import { AppError } from "../server/errors";
@@ -31,11 +32,14 @@ export class ImageRejectedError extends AppError {
 
 let configured = false;
 
-/** Sets process-wide sharp options once (glibc builds default to 1 thread here; libvips uses 2). */
+/**
+ * Sets process-wide sharp options once: one libvips thread per core this process may use
+ * (glibc builds of sharp default to 1 thread).
+ */
 export function configureSharp(): void {
   if (configured) return;
   useAppFontsForSvg();
-  sharp.concurrency(2);
+  sharp.concurrency(os.availableParallelism());
   configured = true;
 }
 

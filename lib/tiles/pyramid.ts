@@ -12,7 +12,7 @@ import { DEFAULT_PIXEL_CAP, probeImage, rejectionFrom, sharpInput } from "./limi
  */
 
 /** Name of our own description of a pyramid, written beside sharp's `info.json`. */
-export const PYRAMID_JSON = "pyramid.json";
+const PYRAMID_JSON = "pyramid.json";
 
 export type BuildPyramidOptions = {
   tileSize?: number;

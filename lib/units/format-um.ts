@@ -5,7 +5,7 @@
  * larger than one pixel (0.45 µm/px → 1 decimal, 1.33 µm/px → 0, 0.05 µm/px → 2). Without a known
  * scale, 2 decimals. Float noise from frame arithmetic (2393.9998965514333) disappears.
  */
-export const DEFAULT_UM_DECIMALS = 2;
+const DEFAULT_UM_DECIMALS = 2;
 const MAX_UM_DECIMALS = 4;
 
 /** Decimals that a scale of `umPerPx` µm per pixel supports. */

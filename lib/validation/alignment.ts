@@ -8,7 +8,7 @@ const xy = z.tuple([coordinate, coordinate], "a point is [x, y]");
 
 const affineSchema = z.tuple([z.tuple([coordinate, coordinate, coordinate]), z.tuple([coordinate, coordinate, coordinate])]);
 
-export const controlPointPairSchema = z.strictObject({ imagePx: xy, dieUm: xy });
+const controlPointPairSchema = z.strictObject({ imagePx: xy, dieUm: xy });
 
 /** PUT /api/micrographs/{id}/alignment and its dry run. */
 export const alignmentBodySchema = z.strictObject({
@@ -29,7 +29,6 @@ export const refineBodySchema = z.strictObject({
   pairs: z.array(controlPointPairSchema).max(200).optional(),
   againstId: uuidSchema.optional(),
 });
-export type RefineBody = z.infer<typeof refineBodySchema>;
 
 /** PUT /api/dies/{id}/micrographs/order: every micrograph of the die, in the new order. */
 export const micrographOrderSchema = z.strictObject({

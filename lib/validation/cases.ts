@@ -9,7 +9,6 @@ export const caseInputSchema = z.strictObject({
   sampleId: line(100).default(""),
   notes: z.string().max(10_000, "must be at most 10000 characters").default(""),
 });
-export type CaseInput = z.input<typeof caseInputSchema>;
 
 export const casePatchSchema = z.strictObject({
   title: line(200).min(1, "a title is required").optional(),

@@ -15,7 +15,6 @@ export const dieInputSchema = z.strictObject({
   heightUm: dimension.default(null),
   notes: z.string().max(10_000, "must be at most 10000 characters").default(""),
 });
-export type DieInput = z.input<typeof dieInputSchema>;
 
 export const diePatchSchema = z.strictObject({
   name: line(200).min(1, "a name is required").optional(),

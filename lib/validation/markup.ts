@@ -6,14 +6,14 @@ import { MARKUP_KINDS, PAD_STATES, type MarkupKind } from "@/lib/markup/types";
 import { UNKNOWN_DIE_LIMIT_UM } from "@/lib/markup/die-bounds";
 
 /** Most positions one geometry may hold (all rings together, as sent). */
-export const MAX_VERTICES = 10_000;
+const MAX_VERTICES = 10_000;
 /** Most shapes one POST may create. */
 export const MAX_BATCH = 10_000;
 /** A polygon's outer ring plus at most this many holes. */
-export const MAX_RINGS = 100;
+const MAX_RINGS = 100;
 /** Most saved estimates on one shape, and most values in one estimate. */
-export const MAX_ESTIMATES = 50;
-export const MAX_ESTIMATE_FIELDS = 32;
+const MAX_ESTIMATES = 50;
+const MAX_ESTIMATE_FIELDS = 32;
 
 const coordinate = z
   .number({ error: (iss) => (iss.input === undefined ? "is required" : typeof iss.input === "number" ? "must be finite" : "must be a number") })
@@ -51,7 +51,7 @@ const polygonSchema = (message: string) =>
     .transform((g) => ({ type: "Polygon" as const, coordinates: g.coordinates.map((r) => closeRing(r as Position[])) }));
 
 /** The geometry type each kind of markup has (as lib/markup/types.ts GeometryOf). */
-export const MARKUP_GEOMETRY_TYPE: Readonly<Record<MarkupKind, "Point" | "LineString" | "Polygon">> = {
+const MARKUP_GEOMETRY_TYPE: Readonly<Record<MarkupKind, "Point" | "LineString" | "Polygon">> = {
   pad: "Polygon",
   wire_bond: "LineString",
   block: "Polygon",

@@ -35,7 +35,6 @@ export const captureSchema = z
     scaleUmPerPx: optionalNumber("scaleUmPerPx", 1000),
   })
   .refine((c) => !(c.cameraPixelPitchUm && !c.objectiveMag), { message: "objectiveMag is needed with cameraPixelPitchUm", path: ["objectiveMag"] });
-export type CaptureInput = z.infer<typeof captureSchema>;
 
 const finite = z.number().finite();
 /** PATCH /api/micrographs/{id}: rename, set the scale, or calibrate by two points. */

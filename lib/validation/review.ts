@@ -4,7 +4,7 @@ import { roleSchema } from "./teams";
 import { anyGeometrySchema } from "./markup";
 
 /** Longest comment or review message accepted. */
-export const MAX_COMMENT_CHARS = 10_000;
+const MAX_COMMENT_CHARS = 10_000;
 
 const body = z
   .string({ error: "must be text" })
@@ -53,4 +53,3 @@ export const notificationPrefsSchema = z.strictObject(
   Object.fromEntries(NOTIFICATION_KINDS.map((k) => [k, z.boolean().optional()])) as Record<NotificationKind, z.ZodOptional<z.ZodBoolean>>,
 );
 
-export const idParam = (name: string) => z.object({ [name]: uuidSchema });

@@ -5,6 +5,7 @@ import fs from "node:fs";
 import os from "node:os";
 import path from "node:path";
 import sharp from "sharp";
+import { configureSharp } from "@/lib/tiles/limits";
 import { benchImage } from "./tiling";
 
 const ROOT = path.resolve(import.meta.dirname, "../..");
@@ -20,7 +21,7 @@ function renderOnce(input: string, widthPx: number, shapes: number) {
 /** The floor on this machine right now: sharp resizing the same image to a plain PNG, no markup. */
 async function plainResizeSeconds(input: string, widthPx: number): Promise<number> {
   const out = path.join(os.tmpdir(), "kerfline-bench", `plain-${widthPx}.png`);
-  sharp.concurrency(2);
+  configureSharp(); // the same libvips threads as the export it is compared with
   const t0 = performance.now();
   await sharp(input, { limitInputPixels: false }).resize(widthPx).png({ compressionLevel: 6, adaptiveFiltering: false }).toFile(out);
   fs.rmSync(out, { force: true });

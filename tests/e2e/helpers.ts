@@ -1,6 +1,6 @@
 import { expect, type Page } from "@playwright/test";
 
-export const PASSWORD = "fjordlight-demo";
+const PASSWORD = "fjordlight-demo";
 
 /** Signs in through the form, as a person would. */
 export async function signIn(page: Page, email: string, password = PASSWORD) {

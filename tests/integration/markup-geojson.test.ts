@@ -1,6 +1,8 @@
 import { beforeAll, describe, expect, it } from "vitest";
 import { demoWorld, EVERYONE, expectedStatus, freshCase } from "./fixtures";
 import type { AnyShape } from "@/lib/markup/types";
+// A static import: a missing validator fails the file instead of skipping the check.
+import { check as checkGeojson } from "@placemarkio/check-geojson";
 
 // GeoJSON export and import over HTTP: a lossless round trip into a fresh die, the export
 // checked by an independent GeoJSON validator, a corpus of bad files that import nothing, and
@@ -44,16 +46,6 @@ async function countOf(dieId: string) {
   return (await world.clients.owner.get<AnyShape[]>(`/api/dies/${dieId}/markup`)).body.length;
 }
 
-/** Loads a package the lead adds as a dev dependency; null until it is installed. */
-async function optional<T>(name: string): Promise<T | null> {
-  try {
-    return (await import(/* @vite-ignore */ name)) as T;
-  } catch {
-    return null;
-  }
-}
-const checkGeojson = await optional<{ check: (text: string) => unknown }>("@placemarkio/check-geojson");
-
 describe("GeoJSON export and import", () => {
   it("round-trips every kind into a fresh die without loss", async () => {
     const { dieId } = await dieWithSample();
@@ -76,10 +68,10 @@ describe("GeoJSON export and import", () => {
   });
 
   // @placemarkio/check-geojson checks RFC 7946 structure (types, positions, closed rings); not our code.
-  it.skipIf(!checkGeojson)("writes a collection an independent RFC 7946 validator accepts", async () => {
+  it("writes a collection an independent RFC 7946 validator accepts", async () => {
     const { dieId } = await dieWithSample();
     const res = await world.clients.owner.request<string>("GET", `/api/dies/${dieId}/markup.geojson`, undefined, { accept: "application/geo+json" });
-    expect(() => checkGeojson!.check(JSON.stringify(res.body))).not.toThrow();
+    expect(() => checkGeojson(JSON.stringify(res.body))).not.toThrow();
   });
 
   it("previews a dry run and writes nothing", async () => {

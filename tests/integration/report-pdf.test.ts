@@ -1,6 +1,7 @@
 import { beforeAll, describe, expect, inject, it } from "vitest";
 import sharp from "sharp";
 import { PDFDocument } from "pdf-lib";
+import * as pdfjsDist from "pdfjs-dist/legacy/build/pdf.mjs";
 import { demoWorld, EVERYONE, freshCase, type Who } from "./fixtures";
 import { uploadForm } from "../support/images";
 import { waitForStatus } from "../support/micrographs";
@@ -10,7 +11,7 @@ import { tmpdir } from "node:os";
 import { join } from "node:path";
 
 // The PDF die report over HTTP: any member downloads it, outsiders get 404; the file opened by
-// an independent PDF parser (pdfjs-dist, once installed) holds the title, the pad labels and
+// an independent PDF parser (pdfjs-dist) holds the title, the pad labels and
 // decodable images.
 let world: Awaited<ReturnType<typeof demoWorld>>;
 let dieId: string;
@@ -66,14 +67,8 @@ type PdfPage = {
   objs: { get: (id: string, cb: (img: { width: number; height: number }) => void) => void };
   commonObjs: { get: (id: string) => { name: string; missingFile: boolean } };
 };
-let pdfjs: PdfJs | null = null;
-// A variable specifier, so type-checking does not need the package before it is installed.
-const PDFJS = "pdfjs-dist/legacy/build/pdf.mjs";
-try {
-  pdfjs = (await import(/* @vite-ignore */ PDFJS)) as PdfJs;
-} catch {
-  pdfjs = null;
-}
+// A static import: a missing or broken pdfjs-dist fails the file instead of skipping the checks.
+const pdfjs = pdfjsDist as unknown as PdfJs;
 
 describe("PDF die report", () => {
   it("downloads as a PDF whose pages pdf-lib can read back", async () => {
@@ -110,10 +105,10 @@ describe("PDF die report", () => {
     expect(flat).toContain("length (µm) 1000 · diameter (µm) 25 · inductance (nH) 1.024");
   });
 
-  // pdfjs-dist is an independent PDF reader (not installed yet: the lead adds it as a dev dependency).
-  it.skipIf(!pdfjs)("holds the title, page count, pad labels and decodable images for an independent PDF parser", async () => {
+  // pdfjs-dist is an independent PDF reader.
+  it("holds the title, page count, pad labels and decodable images for an independent PDF parser", async () => {
     const { body } = await fetchPdf("owner");
-    const doc = await pdfjs!.getDocument({ data: body, useSystemFonts: false }).promise;
+    const doc = await pdfjs.getDocument({ data: body, useSystemFonts: false }).promise;
     const meta = await doc.getMetadata();
     expect(meta.info.Title).toBe("Die report: Report case — die 1");
     const texts: string[] = [];
@@ -123,7 +118,7 @@ describe("PDF die report", () => {
       texts.push((await page.getTextContent()).items.map((i) => i.str ?? "").join(" "));
       const ops = await page.getOperatorList();
       for (let i = 0; i < ops.fnArray.length; i++) {
-        if (ops.fnArray[i] !== pdfjs!.OPS.paintImageXObject) continue;
+        if (ops.fnArray[i] !== pdfjs.OPS.paintImageXObject) continue;
         const img = await new Promise<{ width: number; height: number }>((resolve) => page.objs.get(ops.argsArray[i][0] as string, resolve));
         expect(img.width).toBeGreaterThan(0);
         images++;
@@ -142,15 +137,15 @@ describe("PDF die report", () => {
     expect(all).toMatch(/[µμ]m/); // pdfjs reports MICRO SIGN as its compatibility form, GREEK MU
   });
 
-  it.skipIf(!pdfjs)("embeds the app's own typeface in every font it uses", async () => {
+  it("embeds the app's own typeface in every font it uses", async () => {
     const { body } = await fetchPdf("owner");
-    const doc = await pdfjs!.getDocument({ data: body, useSystemFonts: false }).promise;
+    const doc = await pdfjs.getDocument({ data: body, useSystemFonts: false }).promise;
     const fonts = new Map<string, { name: string; missingFile: boolean }>();
     for (let n = 1; n <= doc.numPages; n++) {
       const page = await doc.getPage(n);
       const ops = await page.getOperatorList();
       for (let i = 0; i < ops.fnArray.length; i++) {
-        if (ops.fnArray[i] !== pdfjs!.OPS.setFont) continue;
+        if (ops.fnArray[i] !== pdfjs.OPS.setFont) continue;
         const id = ops.argsArray[i][0] as string;
         fonts.set(id, page.commonObjs.get(id));
       }

@@ -14,7 +14,7 @@ export function padCentre(geometry: PolygonGeometry): Position {
 }
 
 /** The pad a wire bond is attached to, when it exists. */
-export function bondPad(shapes: ShapeMap, bond: AnyShape): Extract<AnyShape, { kind: "pad" }> | null {
+function bondPad(shapes: ShapeMap, bond: AnyShape): Extract<AnyShape, { kind: "pad" }> | null {
   if (bond.kind !== "wire_bond" || !bond.properties.padId) return null;
   const pad = shapes.get(bond.properties.padId);
   return pad && pad.kind === "pad" ? pad : null;

@@ -17,7 +17,7 @@ export type Handle = {
 };
 
 /** Kinds that are rectangles in the die frame and resize by their corners. */
-export function isRectangleKind(kind: AnyShape["kind"]): boolean {
+function isRectangleKind(kind: AnyShape["kind"]): boolean {
   return kind === "pad" || kind === "die_outline";
 }
 

@@ -53,7 +53,7 @@ export function hitDistance(shape: AnyShape, p: Position, toleranceUm: number): 
 }
 
 /** Area for polygons, 0 for points and lines: what "smaller" means when several shapes are hit. */
-export function shapeSize(shape: AnyShape): number {
+function shapeSize(shape: AnyShape): number {
   return shape.geometry.type === "Polygon" ? polygonArea(shape.geometry) : 0;
 }
 

@@ -14,8 +14,8 @@ export type KeyAction =
   | { readonly type: "help" };
 
 /** Nudge steps in µm: a plain arrow, and with Shift. */
-export const NUDGE_STEP_UM = 1;
-export const NUDGE_STEP_LARGE_UM = 10;
+const NUDGE_STEP_UM = 1;
+const NUDGE_STEP_LARGE_UM = 10;
 
 /**
  * One letter per tool, chosen from the tool's own name in our vocabulary (Pad, Wire bond,

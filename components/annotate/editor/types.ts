@@ -88,7 +88,7 @@ export type EditorState = {
   readonly confirmation: { readonly kind: "die_outline"; readonly geometry: PolygonGeometry; readonly replaces: boolean } | null;
 };
 
-export type Unsubscribe = () => void;
+type Unsubscribe = () => void;
 
 /** The editor: input events in, immutable snapshots and committed changes out. */
 export interface Editor {

@@ -22,7 +22,7 @@ export function editableVertices(geometry: Editable): Position[] {
 }
 
 /** The geometry with its editable vertices replaced (a polygon keeps its holes and is re-closed). */
-export function withVertices<G extends Editable>(geometry: G, vertices: readonly Position[]): G {
+function withVertices<G extends Editable>(geometry: G, vertices: readonly Position[]): G {
   if (geometry.type === "LineString") return { ...geometry, coordinates: [...vertices] };
   const [, ...holes] = geometry.coordinates;
   return { ...geometry, coordinates: [closeRing(vertices), ...holes] };

@@ -18,7 +18,7 @@ import { claimJob, finishJob, keepAlive, waitForJob } from "./queue";
 const expirySweepMs = () => Math.min(10 * 60_000, (env().KERFLINE_EXPORT_TTL_HOURS * 3600_000) / 2);
 
 /** The download name: case-die-micrograph-date.png, in safe ASCII. */
-export function exportFileName(caseTitle: string, dieName: string, micrograph: string, date: string): string {
+function exportFileName(caseTitle: string, dieName: string, micrograph: string, date: string): string {
   return `${[caseTitle, dieName, micrograph, date].map((p) => safeFileName(p)).join("-")}.png`;
 }
 
@@ -31,7 +31,7 @@ async function setState(db: Database, id: string, changes: Partial<typeof export
  * and warnings) or failed with a reason the UI shows. The caller's rights were checked when the
  * export was created.
  */
-export async function runExport(db: Database, exportId: string): Promise<void> {
+async function runExport(db: Database, exportId: string): Promise<void> {
   const [row] = await db.select().from(exportsTable).where(eq(exportsTable.id, exportId));
   if (!row || row.status === "done") return;
   const params = row.params as ExportParams;
@@ -86,7 +86,7 @@ export async function runExport(db: Database, exportId: string): Promise<void> {
 }
 
 /** Deletes exports finished more than KERFLINE_EXPORT_TTL_HOURS ago, rows and files. */
-export async function sweepExpiredExports(db: Database): Promise<number> {
+async function sweepExpiredExports(db: Database): Promise<number> {
   const olderThan = new Date(Date.now() - env().KERFLINE_EXPORT_TTL_HOURS * 3600_000);
   const gone = await expireExports(db, olderThan);
   await Promise.all(gone.map((g) => rm(exportFilePath(g.dieId, g.id), { force: true })));

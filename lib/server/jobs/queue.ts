@@ -6,11 +6,11 @@ import { jobs, type JobRow } from "@/db/schema";
 import type { Database } from "@/db/client";
 
 /** A job's heartbeat older than this means its worker died; the job is claimed again. */
-export const STALE_AFTER_SECONDS = 60;
-export const MAX_ATTEMPTS = 3;
+const STALE_AFTER_SECONDS = 60;
+const MAX_ATTEMPTS = 3;
 
 /** Identifies this process's workers in `jobs.locked_by`. */
-export const WORKER_ID = `${os.hostname()}:${process.pid}`;
+const WORKER_ID = `${os.hostname()}:${process.pid}`;
 
 const g = globalThis as unknown as { __kerflineJobEvents?: EventEmitter };
 const events = (g.__kerflineJobEvents ??= new EventEmitter());
@@ -87,7 +87,7 @@ export async function requeueOrphanedJobs(db: Database): Promise<number> {
   return rows.length;
 }
 
-export const exhaustedMessage = (kind: string) =>
+const exhaustedMessage = (kind: string) =>
   `${kind === "tile" ? "Tiling" : "The job"} stopped ${MAX_ATTEMPTS} times without finishing (the server was stopped or ran out of memory while working on it); retry it, or upload a smaller image.`;
 
 /**

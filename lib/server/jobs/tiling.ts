@@ -35,7 +35,7 @@ function progressReporter(db: Database, id: string) {
  * pyramid (built aside and renamed into place), then the thumbnail. The micrograph goes
  * queued → tiling → ready, or failed with a reason the UI shows.
  */
-export async function tileMicrograph(db: Database, micrographId: string): Promise<void> {
+async function tileMicrograph(db: Database, micrographId: string): Promise<void> {
   const [m] = await db.select().from(micrographs).where(eq(micrographs.id, micrographId));
   if (!m || !m.format) return; // deleted meanwhile
   const p = micrographPaths(m.dieId, m.id, m.format as keyof typeof EXTENSION);
@@ -113,10 +113,15 @@ async function workerLoop(db: Database, stopped: () => boolean): Promise<void> {
   }
 }
 
-/** Starts the in-process tiling workers: at most one per core. */
+/** How many in-process tiling workers run: one per core this process may use. */
+export function tilingWorkerCount(): number {
+  return Math.max(1, os.availableParallelism());
+}
+
+/** Starts the in-process tiling workers (tilingWorkerCount of them). */
 export function startTilingWorkers(db: Database): () => void {
   let stopped = false;
-  const count = Math.max(1, Math.min(2, os.availableParallelism?.() ?? os.cpus().length));
+  const count = tilingWorkerCount();
   for (let i = 0; i < count; i++) void workerLoop(db, () => stopped);
   return () => {
     stopped = true;

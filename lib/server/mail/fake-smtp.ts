@@ -9,7 +9,7 @@ import { simpleParser } from "mailparser";
 export type MailboxEntry = { id: string; file: string; subject: string; from: string; to: string; date: string; teamId: string | null; messageId: string | null };
 
 /** Where the index of stored messages lives inside the mail folder. */
-export const INDEX_FILE = "index.json";
+const INDEX_FILE = "index.json";
 
 function readIndex(dir: string): MailboxEntry[] {
   try {

@@ -30,7 +30,7 @@ async function transport(): Promise<Transporter> {
 const BATCH = 20;
 
 /** Sends due messages once; returns how many were claimed. */
-export async function sendDueMail(db: Database): Promise<number> {
+async function sendDueMail(db: Database): Promise<number> {
   const due = await claimDueMail(db, new Date(), LEASE_MS, BATCH);
   for (const row of due) {
     try {

@@ -36,7 +36,7 @@ export function pathToolIdle(ctx: EditorContext, spec: PathToolSpec): ToolState 
  * nothing (the second press of a double click); a first press dragged out and released places
  * the second vertex at the release. The preview carries the live length up to the cursor.
  */
-export function drawingPath(ctx: EditorContext, spec: PathToolSpec, first: PointerInput): ToolState {
+function drawingPath(ctx: EditorContext, spec: PathToolSpec, first: PointerInput): ToolState {
   const points: Position[] = [[first.x, first.y]];
   let cursor: Position | null = null;
   let toleranceUm = first.toleranceUm;

@@ -38,7 +38,7 @@ export function rectangleToolIdle(ctx: EditorContext, spec: RectangleToolSpec): 
  * Dragging out an axis-aligned rectangle from the press point; the preview is the shape as it
  * will be created. A rectangle thinner than the tolerance either way counts as a click.
  */
-export function drawingRectangle(ctx: EditorContext, spec: RectangleToolSpec, down: PointerInput): ToolState {
+function drawingRectangle(ctx: EditorContext, spec: RectangleToolSpec, down: PointerInput): ToolState {
   const boxTo = (e: PointerInput) => boxFromCorners([down.x, down.y], [e.x, e.y]);
   return {
     name: `${spec.tool}.drawing_rectangle`,

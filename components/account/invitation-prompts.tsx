@@ -10,7 +10,7 @@ import type { MyInvitationDto } from "@/db/access/invitations";
 type Prompt = Pick<MyInvitationDto, "id" | "teamName" | "role"> & { inviterName: string | null };
 
 /** One invitation an existing user is asked about: team, role, inviter; join or decline. */
-export function InvitationPrompt({ invitation, onAnswered }: { invitation: Prompt; onAnswered?: (joined: boolean) => void }) {
+export function InvitationPrompt({ invitation, onAnswered, onDismiss }: { invitation: Prompt; onAnswered?: (joined: boolean) => void; onDismiss?: () => void }) {
   const router = useRouter();
   const [busy, setBusy] = useState(false);
   const [result, setResult] = useState<string | null>(null);
@@ -33,7 +33,14 @@ export function InvitationPrompt({ invitation, onAnswered }: { invitation: Promp
   return (
     <div role="region" aria-label={`Invitation to ${invitation.teamName}`} className="flex flex-wrap items-center gap-3 rounded-md border border-kerf-500/50 bg-ink-900 px-4 py-2.5 text-sm">
       {result ? (
-        <p role="status" className="text-ink-200">{result}</p>
+        <>
+          <p role="status" className="text-ink-200">{result}</p>
+          {onDismiss && (
+            <Button className="ml-auto" onClick={onDismiss}>
+              Dismiss
+            </Button>
+          )}
+        </>
       ) : (
         <>
           <p className="text-ink-200">
@@ -55,13 +62,26 @@ export function InvitationPrompt({ invitation, onAnswered }: { invitation: Promp
   );
 }
 
-/** Every pending invitation of the signed-in user, under the top bar until answered. */
+/**
+ * Every pending invitation of the signed-in user, under the top bar. An answered one stays, with
+ * its result, until dismissed: the refresh after answering drops it from the server's list, and
+ * the confirmation would otherwise vanish before anyone could read it.
+ */
 export function InvitationPrompts({ invitations }: { invitations: MyInvitationDto[] }) {
-  if (invitations.length === 0) return null;
+  const [kept, setKept] = useState(invitations);
+  const [dismissed, setDismissed] = useState<ReadonlySet<string>>(new Set());
+  const added = invitations.filter((i) => !kept.some((k) => k.id === i.id));
+  if (added.length > 0) setKept([...kept, ...added]);
+  const shown = kept.filter((i) => !dismissed.has(i.id));
+  if (shown.length === 0) return null;
   return (
     <div className="flex flex-col gap-2 border-b border-ink-800 px-5 py-3">
-      {invitations.map((i) => (
-        <InvitationPrompt key={i.id} invitation={{ id: i.id, teamName: i.teamName, role: i.role, inviterName: i.invitedBy?.name ?? null }} />
+      {shown.map((i) => (
+        <InvitationPrompt
+          key={i.id}
+          invitation={{ id: i.id, teamName: i.teamName, role: i.role, inviterName: i.invitedBy?.name ?? null }}
+          onDismiss={() => setDismissed(new Set([...dismissed, i.id]))}
+        />
       ))}
     </div>
   );

@@ -22,7 +22,9 @@ export function InvitationPrompt({ invitation, onAnswered, onDismiss }: { invita
       setResult(r.joined ? `You joined ${invitation.teamName}.` : `You declined the invitation to ${invitation.teamName}.`);
       setError(null);
       onAnswered?.(r.joined);
-      router.refresh();
+      // Joining adds a team to the page (navigation, lists); declining changes nothing on it,
+      // and a refresh would replace this confirmation by the page's own state at once.
+      if (r.joined) router.refresh();
     } catch (e) {
       setError(e instanceof Error ? e.message : String(e));
     } finally {

@@ -61,9 +61,9 @@ export function AlignmentPanel({ movingId, fixedId, session, onAccepted, onCance
       <p className="text-xs text-ink-400" role="status" aria-live="polite">
         {session.pending ? `Now click the same feature on the aligned micrograph (right) for point ${pairs.length + 1}.` : `Click a feature on the new micrograph (left), then the same feature on the right.`}
       </p>
-      <label className="flex items-center gap-2">
+      <label className="flex min-w-0 items-center gap-2">
         Model
-        <select value={model} onChange={(e) => session.setModel(e.target.value as typeof model)} className="rounded bg-ink-800 px-2 py-1" aria-label="Model">
+        <select value={model} onChange={(e) => session.setModel(e.target.value as typeof model)} className="min-w-0 flex-1 truncate rounded bg-ink-800 px-2 py-1" aria-label="Model">
           <option value="similarity">Similarity (turn, scale, shift; 2+ points)</option>
           <option value="affine">Affine (also shear; 3+ points)</option>
         </select>

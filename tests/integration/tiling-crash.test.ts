@@ -49,14 +49,7 @@ describe.skipIf(inject("databaseKind") === "postgres")("tiling survives a crash 
       const id = up.body.id;
 
       // Wait until the pyramid is under way, check it is not served, then kill the server.
-      const deadline = Date.now() + 60_000;
-      for (;;) {
-        const m = (await analyst.get<{ status: string; progress: number }>(`/api/micrographs/${id}`)).body;
-        if (m.status === "tiling" && m.progress >= 3) break;
-        if (m.status === "ready") throw new Error("tiling finished before the kill: make the test image larger");
-        if (Date.now() > deadline) throw new Error(`never saw tiling under way: ${JSON.stringify(m)}`);
-        await new Promise((r) => setTimeout(r, 50));
-      }
+      await waitUnderWay(analyst, id);
       expect((await analyst.get(`/api/micrographs/${id}/iiif/info.json`)).status).toBe(409);
       expect((await analyst.get(`/api/micrographs/${id}/iiif/0,0,512,512/512,512/0/default.jpg`)).status).toBe(409);
       await server.kill();

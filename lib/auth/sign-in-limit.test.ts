@@ -27,8 +27,16 @@ describe("signInGate", () => {
   it("caps one address over all accounts at 30 failures", () => {
     // 30 failures 10 s apart, the oldest 10 min ago: it ages out in 5 min.
     const address = Array.from({ length: 30 }, (_, i) => now - 10 * MIN + i * 10_000);
-    expect(signInGate({ ...none, knownAddress: true, address: address.slice(1) }, now)).toEqual({ allowed: true });
-    expect(signInGate({ ...none, knownAddress: true, address }, now)).toEqual({ allowed: false, retryInMinutes: 5 });
+    expect(signInGate({ ...none, address: address.slice(1) }, now)).toEqual({ allowed: true });
+    expect(signInGate({ ...none, address }, now)).toEqual({ allowed: false, retryInMinutes: 5 });
+  });
+
+  it("lets an account through from its own known address even when that address is capped", () => {
+    // A shared NAT: others failed 30 times from here, but this person signs in from here daily.
+    const address = Array.from({ length: 30 }, (_, i) => now - 10 * MIN + i * 10_000);
+    expect(signInGate({ ...none, knownAddress: true, address }, now)).toEqual({ allowed: true });
+    // Their own pair limit still holds.
+    expect(signInGate({ ...none, knownAddress: true, address, pair: failures(10) }, now).allowed).toBe(false);
   });
 
   it("waits for the last of several exceeded limits, and never says less than a minute", () => {

@@ -6,6 +6,9 @@
 //   addresses), so guessing from many addresses at once, or with forged forwarding headers, is
 //   capped as well — while the owner's sign-in from an address they used before still works;
 // - one address over every account, so one client cannot try a password on many accounts.
+//   An account's own known address is exempt from this one: behind a shared NAT, a colleague's
+//   mistyping must not lock out a person who signs in from there every day (the pair limit
+//   still caps that account from that address).
 
 export const SIGN_IN_WINDOW_MS = 15 * 60 * 1000;
 /** Failures for one account from one address before that pair is refused. */
@@ -44,7 +47,7 @@ export function signInGate(c: FailureCounts, now: number): SignInGate {
   const reopen = [
     reopensAt(c.pair, MAX_FAILED_PER_ACCOUNT_ADDRESS),
     c.knownAddress ? null : reopensAt(c.accountUnknown, MAX_FAILED_PER_ACCOUNT_UNKNOWN),
-    reopensAt(c.address, MAX_FAILED_PER_ADDRESS),
+    c.knownAddress ? null : reopensAt(c.address, MAX_FAILED_PER_ADDRESS),
   ].filter((t): t is number => t !== null);
   if (reopen.length === 0) return { allowed: true };
   const at = Math.max(...reopen);

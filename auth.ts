@@ -2,8 +2,8 @@ import NextAuth, { CredentialsSignin } from "next-auth";
 import Credentials from "next-auth/providers/credentials";
 import { z } from "zod";
 import { authConfig } from "./auth.config";
-import { authSecret } from "@/lib/server/env";
-import { clientAddress } from "@/lib/server/client-address";
+import { authSecret } from "@/server/env";
+import { clientAddress } from "@/server/http/client-address";
 
 /** Sign-in refused because of too many failures; the code carries the minutes to wait. */
 class TooManyAttempts extends CredentialsSignin {
@@ -16,7 +16,7 @@ class TooManyAttempts extends CredentialsSignin {
 const credentialsSchema = z.object({ email: z.string().trim().min(1).max(320), password: z.string().min(1).max(200) });
 
 async function db() {
-  const { database } = await import("@/db/client");
+  const { database } = await import("@/server/database");
   return database();
 }
 
@@ -31,7 +31,7 @@ export const { handlers, auth, signIn, signOut } = NextAuth(async () => ({
     async jwt({ token, user }) {
       if (user?.id) return { ...token, sub: user.id, sv: user.sessionVersion ?? 0 };
       if (!token.sub) return null;
-      const { sessionVersionOf } = await import("@/db/access/sessions");
+      const { sessionVersionOf } = await import("@/server/access/sessions");
       const current = await sessionVersionOf(await db(), token.sub);
       return current !== null && current === (token.sv ?? 0) ? token : null;
     },
@@ -41,7 +41,7 @@ export const { handlers, auth, signIn, signOut } = NextAuth(async () => ({
     async signOut(message) {
       const token = "token" in message ? message.token : null;
       if (!token?.sub) return;
-      const { endSessions } = await import("@/db/access/sessions");
+      const { endSessions } = await import("@/server/access/sessions");
       await endSessions(await db(), token.sub, token.sv ?? 0);
     },
   },
@@ -51,7 +51,7 @@ export const { handlers, auth, signIn, signOut } = NextAuth(async () => ({
       async authorize(raw, request) {
         const parsed = credentialsSchema.safeParse(raw);
         if (!parsed.success) return null;
-        const { authenticate } = await import("@/db/access/users");
+        const { authenticate } = await import("@/server/access/users");
         const result = await authenticate(await db(), parsed.data.email, parsed.data.password, clientAddress(request.headers));
         if (result.ok) return result.user;
         if (result.reason === "locked") throw new TooManyAttempts(result.retryInMinutes);

@@ -4,7 +4,7 @@ import { defineConfig } from "drizzle-kit";
 export default defineConfig({
   dialect: "postgresql",
   driver: "pglite",
-  schema: "./db/schema.ts",
+  schema: "./db/schema/index.ts",
   out: "./db/migrations",
   dbCredentials: { url: "./storage/pgdata" },
 });

@@ -1,6 +1,6 @@
 export async function register() {
   if (process.env.NEXT_RUNTIME === "nodejs") {
-    const { startServer } = await import("./lib/server/startup");
+    const { startServer } = await import("./server/startup");
     await startServer();
   }
 }

@@ -1,8 +1,8 @@
 import NextAuth from "next-auth";
 import { NextResponse, type NextFetchEvent, type NextRequest } from "next/server";
 import { authConfig } from "./auth.config";
-import { sameOriginVerdict } from "@/lib/server/origin";
-import { env } from "@/lib/server/env";
+import { sameOriginVerdict } from "@/server/http/origin";
+import { env } from "@/server/env";
 import { COMMON_SECURITY_HEADERS, newNonce, pageContentSecurityPolicy } from "@/lib/http/security-headers";
 
 // Pages only. The API is not matched: uploads through the proxy are buffered and cut at

@@ -2,22 +2,21 @@ import "server-only";
 import path from "node:path";
 import type { PgDatabase, PgQueryResultHKT } from "drizzle-orm/pg-core";
 import * as schema from "./schema";
-import { env } from "@/lib/server/env";
 import { lockDataDir } from "./data-dir-lock";
 
 export type Database = PgDatabase<PgQueryResultHKT, typeof schema>;
 
-type Opened = { db: Database; close: () => Promise<void>; kind: "pglite" | "postgres" };
+export type OpenedDatabase = { db: Database; close: () => Promise<void>; kind: "pglite" | "postgres" };
 
 const MIGRATIONS = path.join(process.cwd(), "db", "migrations");
 
 /**
  * Opens the database named by the configuration and applies the committed migrations:
- * PostgreSQL through node-postgres when DATABASE_URL is set, else PGlite on disk under the
- * data dir (locked against a second process).
+ * PostgreSQL through node-postgres when a URL is given, else PGlite on disk in `pgliteDir`
+ * (locked against a second process). The server layer passes the configuration.
  */
-export async function openDatabase(options: { databaseUrl?: string; pgliteDir?: string } = {}): Promise<Opened> {
-  const databaseUrl = options.databaseUrl ?? env().DATABASE_URL;
+export async function openDatabase(options: { databaseUrl?: string; pgliteDir: string }): Promise<OpenedDatabase> {
+  const databaseUrl = options.databaseUrl;
   if (databaseUrl) {
     const { Pool } = await import("pg");
     const { drizzle } = await import("drizzle-orm/node-postgres");
@@ -27,7 +26,7 @@ export async function openDatabase(options: { databaseUrl?: string; pgliteDir?: 
     await migrate(db, { migrationsFolder: MIGRATIONS });
     return { db: db as unknown as Database, close: () => pool.end(), kind: "postgres" };
   }
-  const dir = options.pgliteDir ?? path.join(env().dataDir, "pgdata");
+  const dir = options.pgliteDir;
   const release = lockDataDir(dir);
   try {
     const { PGlite } = await import("@electric-sql/pglite");
@@ -48,18 +47,4 @@ export async function openDatabase(options: { databaseUrl?: string; pgliteDir?: 
     release();
     throw e;
   }
-}
-
-const globalForDb = globalThis as unknown as { __kerflineDb?: Promise<Opened> };
-
-/** The process's one database, opened lazily and cached on globalThis (hot reload safe). */
-export function database(): Promise<Database> {
-  globalForDb.__kerflineDb ??= openDatabase();
-  return globalForDb.__kerflineDb.then((o) => o.db);
-}
-
-/** Which engine the process runs on, for the health endpoint and logs. */
-export async function databaseKind(): Promise<"pglite" | "postgres"> {
-  globalForDb.__kerflineDb ??= openDatabase();
-  return (await globalForDb.__kerflineDb).kind;
 }

@@ -1,9 +1,8 @@
 import "server-only";
 import { sql } from "drizzle-orm";
-import { cases, dies, memberships, teams, users } from "./schema";
+import { auditEvents, cases, dies, memberships, teams, users } from "./schema";
 import type { Database } from "./client";
-import { hashPassword } from "./access/users";
-import { recordAudit } from "./access/audit";
+import { hashPassword } from "@/lib/auth/password";
 
 /** The password of every demo account (documented in the README). */
 const DEMO_PASSWORD = "fjordlight-demo";
@@ -53,7 +52,7 @@ export async function seedDemo(db: Database): Promise<boolean> {
       .insert(dies)
       .values({ ...DEMO.die, caseId: c.id, analystId: ids.analyst, createdBy: ids.analyst })
       .returning();
-    await recordAudit(tx, { userId: ids.analyst }, { teamId: team.id, action: "die.created", entityType: "die", entityId: d.id, dieId: d.id, after: d });
+    await tx.insert(auditEvents).values({ teamId: team.id, actorId: ids.analyst, action: "die.created", entityType: "die", entityId: d.id, dieId: d.id, after: JSON.parse(JSON.stringify(d)) });
   });
   return true;
 }

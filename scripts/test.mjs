@@ -1,5 +1,5 @@
 // `npm test`: every test tier, then each tier's time and one summary line.
-//   1. type check ∥ production build (if stale)
+//   1. lint (ESLint, Prettier, knip) ∥ type check ∥ production build (if stale)
 //   2. vitest: unit + integration on PGlite ∥ the integration suite on a PostgreSQL 15 server
 //      ∥ Playwright e2e in Chromium
 // Tiers in one step run side by side: each starts its own server on a free port and spends
@@ -62,6 +62,7 @@ for (const f of [vitestJson, pgJson, e2eJson]) fs.rmSync(f, { force: true });
 
 const vitest = (json) => [bin("vitest/vitest.mjs"), "run", "--reporter=default", "--reporter=json", `--outputFile.json=${json}`];
 const TIERS = {
+  lint: { label: "lint (ESLint, Prettier, knip)", short: "lint", args: [path.join(ROOT, "scripts/lint.mjs")] },
   types: { label: "type check (tsc --noEmit)", short: "types", args: [bin("typescript/bin/tsc"), "--noEmit"] },
   build: { label: "production build", short: "build", args: [path.join(ROOT, "scripts/build-if-stale.mjs")] },
   pglite: { label: "unit and integration tests (vitest, PGlite)", short: "pglite", args: vitest(vitestJson) },
@@ -75,10 +76,11 @@ const TIERS = {
 
 const started = Date.now();
 const done = [];
-done.push(...(await step(TIERS.types, TIERS.build)));
+done.push(...(await step(TIERS.lint, TIERS.types, TIERS.build)));
 done.push(...(await step(TIERS.pglite, TIERS.postgres, TIERS.e2e)));
 
-const counts = [done[0].ok ? null : { passed: 0, failed: 1, skipped: 0 }, done[1].ok ? null : { passed: 0, failed: 1, skipped: 0 }, vitestCounts(vitestJson), vitestCounts(pgJson), playwrightCounts(e2eJson)].filter(Boolean);
+// A failed lint, type check or build counts as one failure each; the test tiers count their tests.
+const counts = [...done.slice(0, 3).map((d) => (d.ok ? null : { passed: 0, failed: 1, skipped: 0 })), vitestCounts(vitestJson), vitestCounts(pgJson), playwrightCounts(e2eJson)].filter(Boolean);
 const total = counts.reduce((a, r) => ({ passed: a.passed + r.passed, failed: a.failed + r.failed, skipped: a.skipped + r.skipped }), { passed: 0, failed: 0, skipped: 0 });
 console.log("\n[kerfline test] time per tier (tiers of one step ran side by side)");
 for (const d of done) console.log(`  ${d.tier.label.padEnd(52)} ${d.seconds.toFixed(0).padStart(5)} s  ${d.ok ? "ok" : "FAILED"}`);

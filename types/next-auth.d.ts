@@ -5,7 +5,7 @@ declare module "next-auth" {
     user: { id: string } & DefaultSession["user"];
   }
   interface User {
-    /** The account's session version when this sign-in happened (see db/access/sessions.ts). */
+    /** The account's session version when this sign-in happened (see server/access/sessions.ts). */
     sessionVersion?: number;
   }
 }

@@ -1,10 +1,10 @@
 import Link from "next/link";
 import { Wordmark } from "@/components/ui/wordmark";
-import { loadPage } from "@/lib/server/page";
-import { getMe } from "@/db/access/teams";
-import { isLocalMailMode } from "@/lib/server/mail/local-mail";
-import { listMyInvitations } from "@/db/access/invitations";
-import { unreadInboxCount } from "@/db/access/inbox";
+import { loadPage } from "@/server/http/page";
+import { getMe } from "@/server/access/teams";
+import { isLocalMailMode } from "@/server/mail/local-mail";
+import { listMyInvitations } from "@/server/access/invitations";
+import { unreadInboxCount } from "@/server/access/inbox";
 import { InboxLink } from "@/components/account/inbox-link";
 import { InvitationPrompts } from "@/components/account/invitation-prompts";
 

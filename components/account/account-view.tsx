@@ -4,12 +4,14 @@ import { useState } from "react";
 import { apiFetch } from "@/lib/client/api";
 import { Button } from "@/components/ui/button";
 import { ROLE_LABELS } from "@/lib/auth/permissions";
-import type { MeDto } from "@/db/access/teams";
+import type { MeDto } from "@/lib/dto/teams";
 
 const input = "mt-1 w-full rounded-md border border-ink-700 bg-ink-950 px-2 py-1.5 text-sm text-ink-100";
 
 /** Leaves for the sign-in page once every session has ended (this one too). */
 function toSignIn(reason: string) {
+  // A full page load on purpose: every cached query and the session cookie must be dropped.
+  // eslint-disable-next-line @next/next/no-location-assign-relative-destination
   window.location.assign(`/sign-in?ended=${reason}`);
 }
 

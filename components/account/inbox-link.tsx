@@ -3,7 +3,7 @@
 import Link from "next/link";
 import { useQuery } from "@tanstack/react-query";
 import { apiFetch } from "@/lib/client/api";
-import type { InboxItemDto } from "@/db/access/inbox";
+import type { InboxItemDto } from "@/lib/dto/inbox";
 
 export const INBOX_QUERY_KEY = ["me", "inbox"] as const;
 

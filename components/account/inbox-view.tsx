@@ -3,7 +3,7 @@
 import { useState } from "react";
 import { useQueryClient } from "@tanstack/react-query";
 import { apiFetch } from "@/lib/client/api";
-import type { InboxItemDto } from "@/db/access/inbox";
+import type { InboxItemDto } from "@/lib/dto/inbox";
 import { INBOX_QUERY_KEY, useInbox } from "./inbox-link";
 
 const KIND_LABELS: Record<InboxItemDto["kind"], string> = {

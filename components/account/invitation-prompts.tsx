@@ -5,7 +5,7 @@ import { useState } from "react";
 import { apiFetch } from "@/lib/client/api";
 import { Button } from "@/components/ui/button";
 import { ROLE_LABELS } from "@/lib/auth/permissions";
-import type { MyInvitationDto } from "@/db/access/invitations";
+import type { MyInvitationDto } from "@/lib/dto/invitations";
 
 type Prompt = Pick<MyInvitationDto, "id" | "teamName" | "role"> & { inviterName: string | null };
 

@@ -1,6 +1,6 @@
 "use client";
 
-import { useEffect, useState } from "react";
+import { useState } from "react";
 import { polylineLength, polygonArea, boundingBox } from "@/lib/geometry/measure";
 import { PAD_STATES, type AnyShape, type PadProperties } from "@/lib/markup/types";
 import { bondedPadIds, isPadStateByHand, shownPadState } from "@/lib/markup/pad-state";
@@ -40,10 +40,17 @@ const FIELDS: Record<AnyShape["kind"], FieldDef[]> = {
 
 function Field({ def, shape, editor, readOnly }: { def: FieldDef; shape: AnyShape; editor: Editor; readOnly: boolean }) {
   const stored = (shape.properties as Record<string, unknown>)[def.key];
-  const [value, setValue] = useState(stored === undefined || stored === null ? "" : String(stored));
-  useEffect(() => setValue(stored === undefined || stored === null ? "" : String(stored)), [stored, shape.id]);
+  const shown = stored === undefined || stored === null ? "" : String(stored);
+  const [value, setValue] = useState(shown);
+  // Another shape selected, or the value changed elsewhere (undo, a reply from the server): start
+  // again from it, adjusting state while rendering rather than in an effect.
+  const [basis, setBasis] = useState({ shown, shapeId: shape.id });
+  if (basis.shown !== shown || basis.shapeId !== shape.id) {
+    setBasis({ shown, shapeId: shape.id });
+    setValue(shown);
+  }
   // Typed but not yet committed (commit happens on blur or Enter): ask before a reload drops it.
-  useUnsavedGuard(!readOnly && value !== (stored === undefined || stored === null ? "" : String(stored)));
+  useUnsavedGuard(!readOnly && value !== shown);
   const id = `inspector-${def.key}`;
   const commit = (v: string) => {
     if (readOnly || v === String(stored ?? "")) return;

@@ -7,7 +7,7 @@ import { boundingBox } from "@/lib/geometry/measure";
 import type { Affine2x3 } from "@/lib/geometry/types";
 import type { AnyShape, MarkupKind } from "@/lib/markup/types";
 import { reviewStates, type ShapeReviewState } from "@/lib/markup/review-state";
-import type { MemberDto } from "@/db/access/teams";
+import type { MemberDto } from "@/lib/dto/teams";
 import { apiFetch } from "@/lib/client/api";
 import type { ViewerApi } from "@/components/viewer";
 import type { Editor, EditorState } from "./editor/types";

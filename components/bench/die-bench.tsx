@@ -5,7 +5,7 @@ import { InboxLink } from "@/components/account/inbox-link";
 import { useRouter } from "next/navigation";
 import { useMemo, useState } from "react";
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
-import type { DieDto } from "@/db/access/dies";
+import type { DieDto } from "@/lib/dto/dies";
 import { apiFetch } from "@/lib/client/api";
 import { can } from "@/lib/auth/permissions";
 import { Wordmark } from "@/components/ui/wordmark";

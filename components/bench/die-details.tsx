@@ -1,4 +1,4 @@
-import type { DieDto } from "@/db/access/dies";
+import type { DieDto } from "@/lib/dto/dies";
 import { formatUm } from "@/lib/units/format-um";
 
 /** The die's size, analyst and notes, in the side panel. */

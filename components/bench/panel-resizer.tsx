@@ -1,27 +1,30 @@
 "use client";
 
-import { useCallback, useEffect, useState } from "react";
+import { useState, useSyncExternalStore } from "react";
 import { clampPanelWidth, DEFAULT_PANEL_WIDTH, MIN_PANEL_WIDTH, PANEL_WIDTH_KEY, parseStoredWidth } from "@/lib/client/panel-width";
 
+function subscribeStorage(changed: () => void): () => void {
+  window.addEventListener("storage", changed);
+  return () => window.removeEventListener("storage", changed);
+}
+
 /**
- * The side panel's width, remembered in localStorage. The first render uses the default on
- * server and client alike (no hydration mismatch); the stored width is applied after mounting.
+ * The side panel's width, remembered in localStorage. Hydration renders the default on server
+ * and client alike (the server snapshot is null), then React re-renders with the stored width.
  */
 export function useSidePanelWidth() {
-  const [width, setWidth] = useState(DEFAULT_PANEL_WIDTH);
-  useEffect(() => {
-    const stored = parseStoredWidth(window.localStorage.getItem(PANEL_WIDTH_KEY));
-    if (stored !== null) setWidth(clampPanelWidth(stored, window.innerWidth));
-  }, []);
-  const resize = useCallback((w: number) => {
+  const stored = parseStoredWidth(useSyncExternalStore(subscribeStorage, () => window.localStorage.getItem(PANEL_WIDTH_KEY), () => null));
+  const [dragged, setDragged] = useState<number | null>(null);
+  const width = dragged ?? (stored !== null ? clampPanelWidth(stored, window.innerWidth) : DEFAULT_PANEL_WIDTH);
+  const resize = (w: number) => {
     const next = clampPanelWidth(w, window.innerWidth);
-    setWidth(next);
+    setDragged(next);
     try {
       window.localStorage.setItem(PANEL_WIDTH_KEY, String(next));
     } catch {
       // Storage full or refused (private mode): the width still applies for this visit.
     }
-  }, []);
+  };
   return { width, resize };
 }
 

@@ -1,7 +1,7 @@
 "use client";
 
 import { useQuery } from "@tanstack/react-query";
-import type { MicrographDto } from "@/db/access/micrographs";
+import type { MicrographDto } from "@/lib/dto/micrographs";
 import { apiFetch } from "@/lib/client/api";
 
 /** A die's micrographs, polled every second while any of them is still being tiled. */

@@ -2,7 +2,7 @@
 
 import { useState } from "react";
 import { useQueryClient } from "@tanstack/react-query";
-import type { MicrographDto } from "@/db/access/micrographs";
+import type { MicrographDto } from "@/lib/dto/micrographs";
 import { apiFetch } from "@/lib/client/api";
 import { CalibrationTool, MicrographViewer, type MicrographSource, type ViewerApi } from "@/components/viewer";
 import { Button } from "@/components/ui/button";

@@ -1,7 +1,7 @@
 "use client";
 
 import { useState } from "react";
-import type { MicrographDto } from "@/db/access/micrographs";
+import type { MicrographDto } from "@/lib/dto/micrographs";
 import { MicrographViewer, type ViewerApi } from "@/components/viewer";
 import { AlignmentPanel } from "./alignment-panel";
 import { sourceOf } from "./micrograph-source-of";

@@ -1,7 +1,7 @@
 "use client";
 
 import { useEffect, useRef, useState, type ReactNode } from "react";
-import type { MicrographDto } from "@/db/access/micrographs";
+import type { MicrographDto } from "@/lib/dto/micrographs";
 import { MicrographViewer, type ViewerApi } from "@/components/viewer";
 import type { Affine2x3 } from "@/lib/geometry/types";
 import { sourceOf } from "./micrograph-source-of";

@@ -1,7 +1,7 @@
 "use client";
 
 import type { ReactNode } from "react";
-import type { MicrographDto } from "@/db/access/micrographs";
+import type { MicrographDto } from "@/lib/dto/micrographs";
 import type { ViewerApi } from "@/components/viewer";
 import type { Affine2x3 } from "@/lib/geometry/types";
 import { Button } from "@/components/ui/button";

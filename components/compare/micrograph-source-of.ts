@@ -1,4 +1,4 @@
-import type { MicrographDto } from "@/db/access/micrographs";
+import type { MicrographDto } from "@/lib/dto/micrographs";
 import type { MicrographSource } from "@/components/viewer";
 
 /** The pyramid once tiled, else the preview, else nothing yet. */

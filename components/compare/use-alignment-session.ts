@@ -3,7 +3,7 @@
 import { useEffect, useState } from "react";
 import { useSearchParams } from "next/navigation";
 import { useQuery } from "@tanstack/react-query";
-import type { AlignmentDto } from "@/db/access/alignment";
+import type { AlignmentDto } from "@/lib/dto/alignment";
 import { apiFetch } from "@/lib/client/api";
 import { applyAffine, invertAffine } from "@/lib/geometry/affine";
 import type { Affine2x3 } from "@/lib/geometry/types";
@@ -29,8 +29,9 @@ export function useAlignmentSession(movingId: string, fixedToDie: Affine2x3) {
   const [pending, setPending] = useState<[number, number] | null>(fromUrl?.pending ?? null);
   const [model, setModel] = useState<AlignmentModel>(fromUrl?.model ?? "similarity");
   const [mirrored, setMirrored] = useState(fromUrl?.mirrored ?? false);
-  const [solve, setSolve] = useState<Solve | null>(null);
-  const [error, setError] = useState<string | null>(null);
+  const [solved, setSolved] = useState<Solve | null>(null);
+  // The failure of one request body: shown only while that body is still the current one.
+  const [failure, setFailure] = useState<{ key: string; message: string } | null>(null);
 
   useEffect(() => {
     // Every change is written back into this session's history entry (never a new entry).
@@ -39,32 +40,30 @@ export function useAlignmentSession(movingId: string, fixedToDie: Affine2x3) {
     writeSearchParams(paramsWithSession(now, { pairs, pending, model, mirrored }), false);
   }, [pairs, pending, model, mirrored, movingId]);
 
-  useEffect(() => {
-    if (!stored.data || pairs) return;
+  // The saved alignment arrives after the first render: adopt it once, while rendering (React's
+  // "adjusting state when a prop changes"), so no effect runs a second render pass for it.
+  if (stored.data && !pairs) {
     const back = invertAffine(fixedToDie);
     setPairs(stored.data.pairs.map((p) => ({ imagePx: p.imagePx, fixedPx: applyAffine(back, p.dieUm[0], p.dieUm[1]) })));
     if (stored.data.model) setModel(stored.data.model);
     setMirrored(stored.data.mirrored);
-  }, [stored.data, pairs, fixedToDie]);
+  }
 
   const list = pairs ?? [];
   const body = { model, mirrored, pairs: list.map((p) => ({ imagePx: p.imagePx, dieUm: applyAffine(fixedToDie, p.fixedPx[0], p.fixedPx[1]) })) };
   const key = JSON.stringify(body);
+  const tooFew = list.length < MIN_PAIRS[model];
   useEffect(() => {
-    setError(null);
-    if (list.length < MIN_PAIRS[model]) {
-      setSolve(null);
-      return;
-    }
+    if (tooFew) return;
     const ctrl = { stale: false };
     const t = setTimeout(async () => {
       try {
         const r = await apiFetch<Solve>(`/api/micrographs/${movingId}/alignment/preview`, { method: "POST", body: JSON.parse(key) });
-        if (!ctrl.stale) setSolve(r);
+        if (!ctrl.stale) setSolved(r);
       } catch (e) {
         if (!ctrl.stale) {
-          setSolve(null);
-          setError((e as Error).message);
+          setSolved(null);
+          setFailure({ key, message: (e as Error).message });
         }
       }
     }, 120);
@@ -72,7 +71,7 @@ export function useAlignmentSession(movingId: string, fixedToDie: Affine2x3) {
       ctrl.stale = true;
       clearTimeout(t);
     };
-  }, [key, movingId]); // eslint-disable-line react-hooks/exhaustive-deps
+  }, [key, movingId, tooFew]);
 
   return {
     loading: !pairs,
@@ -80,8 +79,8 @@ export function useAlignmentSession(movingId: string, fixedToDie: Affine2x3) {
     pending,
     model,
     mirrored,
-    solve,
-    error,
+    solve: tooFew ? null : solved,
+    error: !tooFew && failure?.key === key ? failure.message : null,
     body,
     setModel,
     setMirrored,

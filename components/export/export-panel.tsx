@@ -3,10 +3,10 @@
 import { useEffect, useState } from "react";
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { apiFetch } from "@/lib/client/api";
-import type { DieDto } from "@/db/access/dies";
-import type { MicrographDto } from "@/db/access/micrographs";
-import type { ExportDto } from "@/db/access/exports";
-import type { ExportPreviewDto } from "@/db/access/export-preview";
+import type { DieDto } from "@/lib/dto/dies";
+import type { MicrographDto } from "@/lib/dto/micrographs";
+import type { ExportDto } from "@/lib/dto/exports";
+import type { ExportPreviewDto } from "@/lib/dto/export-preview";
 import type { ViewerApi } from "@/components/viewer";
 import { Button } from "@/components/ui/button";
 import { MARKUP_KINDS, type MarkupKind } from "@/lib/markup/types";
@@ -198,6 +198,8 @@ function ExportPreview({ dieId, formKey, body, onRefresh }: { dieId: string; for
   return (
     <figure aria-label="Export preview" aria-busy={preview.isFetching} className="space-y-1 rounded border border-ink-800 bg-ink-950 p-2 text-xs">
       {p ? (
+        // A data: URL rendered on request, not a static asset: next/image has nothing to optimise.
+        // eslint-disable-next-line @next/next/no-img-element
         <img src={`data:image/png;base64,${p.png}`} alt="Preview of the annotated PNG" width={p.previewWidth} height={p.previewHeight} className={`h-auto w-full ${preview.isFetching ? "opacity-60" : ""}`} />
       ) : (
         <div className="flex h-32 items-center justify-center text-ink-500">{preview.isError ? "No preview" : "Rendering preview…"}</div>

@@ -2,7 +2,7 @@
 
 import { useMemo, useState } from "react";
 import { useQuery } from "@tanstack/react-query";
-import type { DieDto } from "@/db/access/dies";
+import type { DieDto } from "@/lib/dto/dies";
 import type { PadTable } from "@/lib/pads/types";
 import type { AnyShape } from "@/lib/markup/types";
 import { shapeLabel } from "@/lib/markup/markup-table";

@@ -1,7 +1,7 @@
 "use client";
 
 import { useState } from "react";
-import type { MicrographDto } from "@/db/access/micrographs";
+import type { MicrographDto } from "@/lib/dto/micrographs";
 import { Button } from "@/components/ui/button";
 import { ILLUMINATION_LABELS } from "@/lib/validation/micrographs";
 

@@ -3,7 +3,7 @@
 import { useInfiniteQuery } from "@tanstack/react-query";
 import { apiFetch } from "@/lib/client/api";
 import { Button } from "@/components/ui/button";
-import type { ActivityItem } from "@/db/access/activity";
+import type { ActivityItem } from "@/lib/dto/activity";
 
 const WORDS: Record<string, string> = {
   "die.created": "created the die",

@@ -5,8 +5,8 @@ import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { apiFetch } from "@/lib/client/api";
 import { ROLES, ROLE_LABELS, type TeamRole } from "@/lib/auth/permissions";
 import { Button } from "@/components/ui/button";
-import type { InvitationDto } from "@/db/access/invitations";
-import type { OutboxItemDto } from "@/db/access/outbox";
+import type { InvitationDto } from "@/lib/dto/invitations";
+import type { OutboxItemDto } from "@/lib/dto/outbox";
 
 /** The owner's invitations: invite by e-mail with a role, see and revoke pending ones, see undelivered mail. */
 export function InvitationsSection({ teamId }: { teamId: string }) {

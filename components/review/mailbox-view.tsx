@@ -3,9 +3,8 @@
 import { useState } from "react";
 import { useQuery } from "@tanstack/react-query";
 import { apiFetch } from "@/lib/client/api";
-import type { MailboxEntry } from "@/lib/server/mail/fake-smtp";
-import type { StoredMessage } from "@/lib/server/mail/mailbox";
-import type { OutboxItemDto } from "@/db/access/outbox";
+import type { MailboxEntry, StoredMessage } from "@/lib/dto/mailbox";
+import type { OutboxItemDto } from "@/lib/dto/outbox";
 import { CommentBody } from "./comment-body";
 
 /** The local mailbox: messages on the left, the chosen one (text part, inert HTML part) on the right. */

@@ -2,7 +2,7 @@
 
 import { useState } from "react";
 import { apiFetch } from "@/lib/client/api";
-import type { NotificationPrefs } from "@/db/access/notification-prefs";
+import type { NotificationPrefs } from "@/lib/dto/notification-prefs";
 
 const LABELS: Record<keyof NotificationPrefs, string> = {
   comment: "A new comment on a thread I am in",

@@ -3,7 +3,7 @@
 import { useRef, useState } from "react";
 import { Button } from "@/components/ui/button";
 import { mentionQueryAt } from "@/lib/review/mentions";
-import type { MemberDto } from "@/db/access/teams";
+import type { MemberDto } from "@/lib/dto/teams";
 
 /** A comment box with @mention autocomplete of the team's members. */
 export function ReplyBox({ members, label, submitLabel, onSubmit, initial = "", onCancel }: {

@@ -7,8 +7,8 @@ import { can } from "@/lib/auth/permissions";
 import { Button } from "@/components/ui/button";
 import { ReviewBadge } from "@/components/ui/review-badge";
 import { REVIEW_STATUS_LABELS, nextReviewStatus, type ReviewAction } from "@/lib/review/review-status";
-import type { DieDto } from "@/db/access/dies";
-import type { ReviewEventDto } from "@/db/access/review";
+import type { DieDto } from "@/lib/dto/dies";
+import type { ReviewEventDto } from "@/lib/dto/review";
 
 const ACTION_LABELS: Record<ReviewAction, string> = { submit: "Submit for review", approve: "Approve", request_changes: "Request changes" };
 

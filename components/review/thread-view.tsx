@@ -2,8 +2,8 @@
 
 import { useState } from "react";
 import { Button } from "@/components/ui/button";
-import type { ThreadDto } from "@/db/access/threads";
-import type { MemberDto } from "@/db/access/teams";
+import type { ThreadDto } from "@/lib/dto/threads";
+import type { MemberDto } from "@/lib/dto/teams";
 import { CommentBody } from "./comment-body";
 import { ReplyBox } from "./reply-box";
 import type { ThreadsApi } from "./use-threads";

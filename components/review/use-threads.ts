@@ -2,7 +2,7 @@
 
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { apiFetch } from "@/lib/client/api";
-import type { ThreadDto } from "@/db/access/threads";
+import type { ThreadDto } from "@/lib/dto/threads";
 
 /** The die's threads and the mutations on them; every change refreshes the list. */
 export function useThreads(dieId: string) {

@@ -33,6 +33,9 @@ export function DataTable<T>({
 }) {
   const [sorting, setSorting] = useState<SortingState>(initialSort);
   const [filter, setFilter] = useState("");
+  // TanStack Table v8 hands back functions the React Compiler cannot memoise; it skips this
+  // component, which is what the library expects.
+  // eslint-disable-next-line react-hooks/incompatible-library
   const table = useReactTable({
     data,
     columns,

@@ -38,12 +38,14 @@ export function usePointPicker(api: ViewerApi | null, enabled: boolean, onPick: 
     };
     viewer.addHandler("canvas-click", click);
     viewer.addHandler("canvas-double-click", dbl);
-    const cursor = viewer.canvas.style.cursor;
-    viewer.canvas.style.cursor = "crosshair";
+    // The viewer's canvas is a DOM node outside React: set its cursor through the style API.
+    const style = viewer.canvas.style;
+    const cursor = style.getPropertyValue("cursor");
+    style.setProperty("cursor", "crosshair");
     return () => {
       viewer.removeHandler("canvas-click", click);
       viewer.removeHandler("canvas-double-click", dbl);
-      viewer.canvas.style.cursor = cursor;
+      style.setProperty("cursor", cursor);
     };
   }, [api, enabled]);
 }

@@ -5,7 +5,7 @@ import { useRouter } from "next/navigation";
 import { useMemo, useState } from "react";
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import type { ColumnDef } from "@tanstack/react-table";
-import type { CaseDto } from "@/db/access/cases";
+import type { CaseDto } from "@/lib/dto/cases";
 import { apiFetch } from "@/lib/client/api";
 import { Button } from "@/components/ui/button";
 import { DataTable } from "@/components/ui/data-table";

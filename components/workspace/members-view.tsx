@@ -3,7 +3,7 @@
 import { useMemo, useState } from "react";
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import type { ColumnDef } from "@tanstack/react-table";
-import type { MemberDto } from "@/db/access/teams";
+import type { MemberDto } from "@/lib/dto/teams";
 import { apiFetch } from "@/lib/client/api";
 import { ROLES, ROLE_LABELS, can, type TeamRole } from "@/lib/auth/permissions";
 import { Button } from "@/components/ui/button";

@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import sharp from "sharp";
-import { configureSharp } from "@/lib/tiles/limits";
+import { configureSharp } from "@/server/images/limits";
 import { APP_FONT_FAMILY, textWidthPx } from "./app-fonts";
 
 // Our widths come from fontkit's shaping of the shipped TTF; the check is librsvg/Pango setting

@@ -25,7 +25,7 @@ function appFontPath(face: AppFontFace): string {
  * face whatever fonts the system has. Must run before sharp renders its first text; a
  * FONTCONFIG_FILE set by the operator wins.
  */
-export function useAppFontsForSvg(): void {
+export function applyAppFontsForSvg(): void {
   const conf = path.join(/*turbopackIgnore: true*/ process.cwd(), "lib", "fonts", "fonts.conf");
   // Started from elsewhere, keep the system's configuration rather than point at nothing.
   if (process.env.FONTCONFIG_FILE === undefined && existsSync(conf)) process.env.FONTCONFIG_FILE = conf;

@@ -21,6 +21,9 @@ export type Affine2x3 = readonly [
   readonly [number, number, number],
 ];
 
+/** The same matrix as stored in JSON (the `transform` column and the API field). */
+export type Transform = [[number, number, number], [number, number, number]];
+
 /** GeoJSON-shaped geometry in die µm (planar, not WGS84). */
 export type Position = readonly [number, number];
 export type PointGeometry = { readonly type: "Point"; readonly coordinates: Position };

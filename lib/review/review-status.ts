@@ -1,6 +1,7 @@
 /** Review states of a die and the actions that move it, as the schema's enums spell them. */
-export type ReviewStatus = "draft" | "in_review" | "approved" | "changes_requested";
-export type ReviewAction = "submit" | "approve" | "request_changes";
+import type { ReviewAction, ReviewStatus } from "@/lib/dto/stored-values";
+
+export type { ReviewAction, ReviewStatus };
 
 const NEXT: Record<ReviewAction, Partial<Record<ReviewStatus, ReviewStatus>>> = {
   submit: { draft: "in_review", changes_requested: "in_review" },

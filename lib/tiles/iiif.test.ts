@@ -11,8 +11,8 @@ import {
   scaleFactors,
   type PyramidDescription,
 } from "./iiif";
-import { buildPyramid } from "./pyramid";
-import { listFiles, run, tempDir } from "./test-helpers";
+import { buildPyramid } from "../../server/images/pyramid";
+import { listFiles, run, tempDir } from "../../tests/support/files";
 
 const SIZES: [number, number][] = [
   [1, 1],

@@ -3,7 +3,7 @@ import path from "node:path";
 import sharp from "sharp";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { detectRasterFormat } from "./magic-bytes";
-import { run, tempDir } from "./test-helpers";
+import { run, tempDir } from "../../tests/support/files";
 
 let work: Awaited<ReturnType<typeof tempDir>>;
 beforeAll(async () => {

@@ -1,7 +1,7 @@
 // Child process for the export benchmark: renders one annotated PNG of the whole benchmark image
 // with N generated shapes and prints wall time and peak RSS (libvips runs in this process).
 import { planRender } from "@/lib/export/render-plan";
-import { renderAnnotatedPngFile } from "@/lib/export/render-png";
+import { renderAnnotatedPngFile } from "@/server/images/render-png";
 import type { AnyShape } from "@/lib/markup/types";
 
 const [input, out, widthArg, shapesArg] = process.argv.slice(2);

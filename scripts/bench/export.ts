@@ -5,7 +5,7 @@ import fs from "node:fs";
 import os from "node:os";
 import path from "node:path";
 import sharp from "sharp";
-import { configureSharp } from "@/lib/tiles/limits";
+import { configureSharp } from "@/server/images/limits";
 import { benchImage } from "./tiling";
 
 const ROOT = path.resolve(import.meta.dirname, "../..");

@@ -1,6 +1,6 @@
 // Child process for the benchmark: tiles one image with Kerfline's pyramid builder and prints
 // its wall time and peak RSS (libvips runs in this process, so maxRSS includes it).
-import { buildPyramid } from "@/lib/tiles/pyramid";
+import { buildPyramid } from "@/server/images/pyramid";
 
 const [input, out] = process.argv.slice(2);
 const t0 = performance.now();

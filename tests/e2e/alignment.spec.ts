@@ -2,7 +2,7 @@ import { expect, test, type Locator, type Page } from "@playwright/test";
 import sharp from "sharp";
 import { signInAs, waitForStillView } from "./helpers";
 import { NV24R_LAYOUT, padByLabel } from "../../lib/demo-die/layout";
-import { demoMicrographOptions } from "../../lib/demo-die/render";
+import { demoMicrographOptions } from "../../server/images/demo-die";
 import { placeDie, pxPerUmForWidth, type Placement } from "../../lib/demo-die/placement";
 import { applyAffine } from "../../lib/geometry/affine";
 

@@ -5,7 +5,7 @@ import path from "node:path";
 import sharp from "sharp";
 import { signInAs, waitForStillView } from "./helpers";
 import { NV24R_LAYOUT } from "../../lib/demo-die/layout";
-import { demoMicrographOptions, renderDemoMicrograph } from "../../lib/demo-die/render";
+import { demoMicrographOptions, renderDemoMicrograph } from "../../server/images/demo-die";
 import { placeDie, pxPerUmForWidth, type Placement } from "../../lib/demo-die/placement";
 import { applyAffine, composeAffine, invertAffine } from "../../lib/geometry/affine";
 

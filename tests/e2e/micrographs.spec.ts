@@ -3,7 +3,7 @@ import fs from "node:fs";
 import os from "node:os";
 import path from "node:path";
 import { signInAs, waitForStillView } from "./helpers";
-import { demoMicrographOptions, renderDemoMicrograph } from "../../lib/demo-die/render";
+import { demoMicrographOptions, renderDemoMicrograph } from "../../server/images/demo-die";
 
 // The analyst uploads a rendered demo micrograph through the form, watches the upload and
 // tiling progress, opens it, zooms, and the scale bar keeps a round length that matches the zoom.

@@ -1,7 +1,7 @@
 import { expect, test, type Browser, type Page } from "@playwright/test";
 import { signInAs, waitForStillView } from "./helpers";
 import { NV24R_LAYOUT, padByLabel } from "../../lib/demo-die/layout";
-import { demoMicrographOptions } from "../../lib/demo-die/render";
+import { demoMicrographOptions } from "../../server/images/demo-die";
 import { placeDie, pxPerUmForWidth } from "../../lib/demo-die/placement";
 import { applyAffine } from "../../lib/geometry/affine";
 

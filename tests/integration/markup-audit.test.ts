@@ -6,7 +6,7 @@ import { migrate } from "drizzle-orm/pglite/migrator";
 import { eq } from "drizzle-orm";
 import * as schema from "@/db/schema";
 import type { Database } from "@/db/client";
-import { createMarkup, deleteMarkup, updateMarkup } from "@/db/access/markup";
+import { createMarkup, deleteMarkup, updateMarkup } from "@/server/access/markup";
 import { parseNewShapes } from "@/lib/markup/markup-input";
 
 // The audit trail has no HTTP reader yet, so this file drives the data-access layer directly

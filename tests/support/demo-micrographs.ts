@@ -4,7 +4,7 @@ import path from "node:path";
 import { applyAffine, invertAffine } from "@/lib/geometry/affine";
 import type { Affine2x3 } from "@/lib/geometry/types";
 import { NV24R_LAYOUT } from "@/lib/demo-die/layout";
-import { demoMicrographOptions, renderDemoMicrograph, type DemoRender } from "@/lib/demo-die/render";
+import { demoMicrographOptions, renderDemoMicrograph, type DemoRender } from "@/server/images/demo-die";
 import type { ApiClient } from "./client";
 import { uploadForm } from "./images";
 import { waitForStatus } from "./micrographs";

@@ -1,6 +1,6 @@
 import type { Metadata } from "next";
-import { loadPage } from "@/lib/server/page";
-import { getMe } from "@/db/access/teams";
+import { loadPage } from "@/server/http/page";
+import { getMe } from "@/server/access/teams";
 import { AccountView } from "@/components/account/account-view";
 
 export const metadata: Metadata = { title: "Account" };

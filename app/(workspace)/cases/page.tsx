@@ -1,7 +1,7 @@
 import type { Metadata } from "next";
 import { CasesView } from "@/components/workspace/cases-view";
-import { loadPage } from "@/lib/server/page";
-import { teamsWhereCanEdit } from "@/db/access/cases";
+import { loadPage } from "@/server/http/page";
+import { teamsWhereCanEdit } from "@/server/access/cases";
 
 export const metadata: Metadata = { title: "Cases" };
 

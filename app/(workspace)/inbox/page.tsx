@@ -1,6 +1,6 @@
 import type { Metadata } from "next";
-import { loadPage } from "@/lib/server/page";
-import { listInbox } from "@/db/access/inbox";
+import { loadPage } from "@/server/http/page";
+import { listInbox } from "@/server/access/inbox";
 import { InboxView } from "@/components/account/inbox-view";
 
 export const metadata: Metadata = { title: "Inbox" };

@@ -1,11 +1,11 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
-import { loadPage } from "@/lib/server/page";
-import { requireOwnedTeams } from "@/db/access/owned-teams";
-import { listTeamOutbox } from "@/db/access/outbox";
-import { ForbiddenError } from "@/lib/server/errors";
-import { isLocalMailMode } from "@/lib/server/mail/local-mail";
-import { mailboxFor } from "@/lib/server/mail/mailbox";
+import { loadPage } from "@/server/http/page";
+import { requireOwnedTeams } from "@/server/access/owned-teams";
+import { listTeamOutbox } from "@/server/access/outbox";
+import { ForbiddenError } from "@/lib/errors";
+import { isLocalMailMode } from "@/server/mail/local-mail";
+import { mailboxFor } from "@/server/mail/mailbox";
 import { MailboxView } from "@/components/review/mailbox-view";
 
 export const metadata: Metadata = { title: "Mailbox" };

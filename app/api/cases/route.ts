@@ -1,4 +1,4 @@
-import { apiRoute } from "@/lib/server/route";
-import { listCases } from "@/db/access/cases";
+import { apiRoute } from "@/server/http/route";
+import { listCases } from "@/server/access/cases";
 
 export const GET = apiRoute({}, ({ db, actor }) => listCases(db, actor));

@@ -1,4 +1,4 @@
-import { databaseKind } from "@/db/client";
+import { databaseKind } from "@/server/database";
 
 export const dynamic = "force-dynamic";
 

@@ -1,8 +1,8 @@
-import { apiRoute } from "@/lib/server/route";
-import { NotFoundError } from "@/lib/server/errors";
-import { requireOwnedTeams } from "@/db/access/owned-teams";
-import { isLocalMailMode } from "@/lib/server/mail/local-mail";
-import { mailboxFor } from "@/lib/server/mail/mailbox";
+import { apiRoute } from "@/server/http/route";
+import { NotFoundError } from "@/lib/errors";
+import { requireOwnedTeams } from "@/server/access/owned-teams";
+import { isLocalMailMode } from "@/server/mail/local-mail";
+import { mailboxFor } from "@/server/mail/mailbox";
 
 /** Messages the local fake mail server received for the caller's teams (owners; local mode only). */
 export const GET = apiRoute({}, async ({ db, actor }) => {

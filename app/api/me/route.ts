@@ -1,4 +1,4 @@
-import { apiRoute } from "@/lib/server/route";
-import { getMe } from "@/db/access/teams";
+import { apiRoute } from "@/server/http/route";
+import { getMe } from "@/server/access/teams";
 
 export const GET = apiRoute({}, ({ db, actor }) => getMe(db, actor));

@@ -1,6 +1,5 @@
 import type { PolygonGeometry, Position } from "@/lib/geometry/types";
 import type { AnyShape } from "@/lib/markup/types";
-import type { DieFrame } from "@/lib/pads/die-frame";
 import type { Change, ShapeMap } from "./model";
 import type { ShapeStamp } from "./shape-factory";
 import type { PointerInput, ToolId, ToolPreview } from "./types";

@@ -3,10 +3,10 @@
 import { AuthError } from "next-auth";
 import { signIn } from "@/auth";
 import { formTextProblem } from "@/lib/validation/unsafe-text";
-import { database } from "@/db/client";
-import { acceptInvitation } from "@/db/access/invitations";
-import { AppError } from "@/lib/server/errors";
-import { currentActor } from "@/lib/server/session";
+import { database } from "@/server/database";
+import { acceptInvitation } from "@/server/access/invitations";
+import { AppError } from "@/lib/errors";
+import { currentActor } from "@/server/http/session";
 import { acceptInvitationSchema } from "@/lib/validation/review";
 
 export type AcceptState = { ok: boolean; message?: string };

@@ -1,8 +1,8 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
 import { DieBench } from "@/components/bench/die-bench";
-import { loadPage } from "@/lib/server/page";
-import { getDie } from "@/db/access/dies";
+import { loadPage } from "@/server/http/page";
+import { getDie } from "@/server/access/dies";
 import { uuidSchema } from "@/lib/validation/common";
 
 export const metadata: Metadata = { title: "Die" };

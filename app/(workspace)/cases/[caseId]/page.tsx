@@ -1,7 +1,7 @@
 import type { Metadata } from "next";
 import { CaseView } from "@/components/workspace/case-view";
-import { loadPage } from "@/lib/server/page";
-import { getCase } from "@/db/access/cases";
+import { loadPage } from "@/server/http/page";
+import { getCase } from "@/server/access/cases";
 import { uuidSchema } from "@/lib/validation/common";
 import { notFound } from "next/navigation";
 

@@ -1,6 +1,6 @@
 import type { Metadata } from "next";
-import { loadPage } from "@/lib/server/page";
-import { getNotificationPrefs } from "@/db/access/notification-prefs";
+import { loadPage } from "@/server/http/page";
+import { getNotificationPrefs } from "@/server/access/notification-prefs";
 import { NotificationSettings } from "@/components/review/notification-settings";
 
 export const metadata: Metadata = { title: "Notifications" };

@@ -1,8 +1,8 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
 import { MembersView } from "@/components/workspace/members-view";
-import { loadPage } from "@/lib/server/page";
-import { getTeam } from "@/db/access/teams";
+import { loadPage } from "@/server/http/page";
+import { getTeam } from "@/server/access/teams";
 import { uuidSchema } from "@/lib/validation/common";
 
 export const metadata: Metadata = { title: "Team" };

@@ -1,5 +1,5 @@
 import { handlers } from "@/auth";
-import { assertSameOrigin, errorResponse } from "@/lib/server/route";
+import { assertSameOrigin, errorResponse } from "@/server/http/route";
 
 export const { GET } = handlers;
 

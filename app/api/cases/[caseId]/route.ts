@@ -1,9 +1,9 @@
 import { z } from "zod";
-import { apiRoute, noContent } from "@/lib/server/route";
-import { deleteCase, getCase, updateCase } from "@/db/access/cases";
+import { apiRoute, noContent } from "@/server/http/route";
+import { deleteCase, getCase, updateCase } from "@/server/access/cases";
 import { casePatchSchema } from "@/lib/validation/cases";
 import { uuidSchema } from "@/lib/validation/common";
-import { removeDieFiles } from "@/lib/server/die-files";
+import { removeDieFiles } from "@/server/files/die-files";
 
 const params = z.object({ caseId: uuidSchema });
 

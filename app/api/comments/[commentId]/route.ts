@@ -1,7 +1,7 @@
 import { z } from "zod";
-import { apiRoute, noContent } from "@/lib/server/route";
-import { deleteComment, editComment } from "@/db/access/comments";
-import { publicOrigin } from "@/lib/server/origin";
+import { apiRoute, noContent } from "@/server/http/route";
+import { deleteComment, editComment } from "@/server/access/comments";
+import { publicOrigin } from "@/server/http/origin";
 import { uuidSchema } from "@/lib/validation/common";
 import { commentSchema } from "@/lib/validation/review";
 

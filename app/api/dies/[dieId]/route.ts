@@ -1,9 +1,9 @@
 import { z } from "zod";
-import { apiRoute, noContent } from "@/lib/server/route";
-import { deleteDie, getDie, updateDie } from "@/db/access/dies";
+import { apiRoute, noContent } from "@/server/http/route";
+import { deleteDie, getDie, updateDie } from "@/server/access/dies";
 import { diePatchSchema } from "@/lib/validation/dies";
 import { uuidSchema } from "@/lib/validation/common";
-import { removeDieFiles } from "@/lib/server/die-files";
+import { removeDieFiles } from "@/server/files/die-files";
 
 const params = z.object({ dieId: uuidSchema });
 

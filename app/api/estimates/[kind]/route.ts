@@ -1,6 +1,6 @@
 import { z } from "zod";
-import { apiRoute } from "@/lib/server/route";
-import { BadRequestError } from "@/lib/server/errors";
+import { apiRoute } from "@/server/http/route";
+import { BadRequestError } from "@/lib/errors";
 import { ESTIMATE_KINDS, EstimateInputError, estimate } from "@/lib/estimates";
 
 const params = z.object({ kind: z.enum(ESTIMATE_KINDS, `kind must be one of ${ESTIMATE_KINDS.join(", ")}`) });

@@ -1,6 +1,6 @@
 import { z } from "zod";
-import { apiRoute } from "@/lib/server/route";
-import { loadExport } from "@/db/access/exports";
+import { apiRoute } from "@/server/http/route";
+import { loadExport } from "@/server/access/exports";
 import { uuidSchema } from "@/lib/validation/common";
 
 const params = z.object({ exportId: uuidSchema });

@@ -1,6 +1,6 @@
-import { apiRoute } from "@/lib/server/route";
-import { currentActor } from "@/lib/server/session";
-import { acceptInvitation } from "@/db/access/invitations";
+import { apiRoute } from "@/server/http/route";
+import { currentActor } from "@/server/http/session";
+import { acceptInvitation } from "@/server/access/invitations";
 import { acceptInvitationSchema } from "@/lib/validation/review";
 
 /**

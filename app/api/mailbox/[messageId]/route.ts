@@ -1,9 +1,9 @@
 import { z } from "zod";
-import { apiRoute } from "@/lib/server/route";
-import { NotFoundError } from "@/lib/server/errors";
-import { requireOwnedTeams } from "@/db/access/owned-teams";
-import { isLocalMailMode } from "@/lib/server/mail/local-mail";
-import { mailboxFor, readStoredMail } from "@/lib/server/mail/mailbox";
+import { apiRoute } from "@/server/http/route";
+import { NotFoundError } from "@/lib/errors";
+import { requireOwnedTeams } from "@/server/access/owned-teams";
+import { isLocalMailMode } from "@/server/mail/local-mail";
+import { mailboxFor, readStoredMail } from "@/server/mail/mailbox";
 import { uuidSchema } from "@/lib/validation/common";
 
 /** One stored message with its text and HTML parts (owners; local mode only). */

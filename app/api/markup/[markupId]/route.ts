@@ -1,6 +1,6 @@
 import { z } from "zod";
-import { apiRoute, noContent } from "@/lib/server/route";
-import { deleteMarkup, getShape, updateMarkup } from "@/db/access/markup";
+import { apiRoute, noContent } from "@/server/http/route";
+import { deleteMarkup, getShape, updateMarkup } from "@/server/access/markup";
 import { uuidSchema } from "@/lib/validation/common";
 import { markupDeleteQuerySchema, markupPatchSchema } from "@/lib/validation/markup";
 

@@ -1,5 +1,5 @@
-import { apiRoute } from "@/lib/server/route";
-import { getNotificationPrefs, setNotificationPrefs } from "@/db/access/notification-prefs";
+import { apiRoute } from "@/server/http/route";
+import { getNotificationPrefs, setNotificationPrefs } from "@/server/access/notification-prefs";
 import { notificationPrefsSchema } from "@/lib/validation/review";
 
 /** Which notification mails the caller receives. */

@@ -1,5 +1,5 @@
-import { apiRoute, noContent } from "@/lib/server/route";
-import { changePassword } from "@/db/access/users";
+import { apiRoute, noContent } from "@/server/http/route";
+import { changePassword } from "@/server/access/users";
 import { changePasswordSchema } from "@/lib/validation/account";
 
 /** `{ currentPassword, newPassword }`: changes the caller's password and ends all their sessions (204). */

@@ -1,10 +1,10 @@
 import { z } from "zod";
 import fs from "node:fs/promises";
-import { apiRoute, noContent } from "@/lib/server/route";
-import { deleteMicrograph, getMicrograph, updateMicrograph } from "@/db/access/micrographs";
+import { apiRoute, noContent } from "@/server/http/route";
+import { deleteMicrograph, getMicrograph, updateMicrograph } from "@/server/access/micrographs";
 import { uuidSchema } from "@/lib/validation/common";
 import { micrographPatchSchema } from "@/lib/validation/micrographs";
-import { micrographPaths, type EXTENSION } from "@/lib/server/storage-paths";
+import { micrographPaths, type EXTENSION } from "@/server/files/storage-paths";
 
 const params = z.object({ micrographId: uuidSchema });
 

@@ -1,6 +1,6 @@
 import { z } from "zod";
-import { apiRoute, created } from "@/lib/server/route";
-import { createDie, listDies } from "@/db/access/dies";
+import { apiRoute, created } from "@/server/http/route";
+import { createDie, listDies } from "@/server/access/dies";
 import { dieInputSchema } from "@/lib/validation/dies";
 import { uuidSchema } from "@/lib/validation/common";
 

@@ -1,6 +1,6 @@
 import { z } from "zod";
-import { apiRoute } from "@/lib/server/route";
-import { listActivity } from "@/db/access/activity";
+import { apiRoute } from "@/server/http/route";
+import { listActivity } from "@/server/access/activity";
 import { uuidSchema } from "@/lib/validation/common";
 import { activityQuerySchema } from "@/lib/validation/review";
 

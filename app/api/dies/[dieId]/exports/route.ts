@@ -1,10 +1,10 @@
 import { z } from "zod";
-import { apiRoute } from "@/lib/server/route";
-import { createExport, listExports } from "@/db/access/exports";
-import { notifyJobs } from "@/lib/server/jobs/queue";
+import { apiRoute } from "@/server/http/route";
+import { createExport, listExports } from "@/server/access/exports";
+import { notifyJobs } from "@/server/jobs/queue";
 import { uuidSchema } from "@/lib/validation/common";
 import { exportRequestSchema } from "@/lib/validation/exports";
-import { env } from "@/lib/server/env";
+import { env } from "@/server/env";
 
 const params = z.object({ dieId: uuidSchema });
 

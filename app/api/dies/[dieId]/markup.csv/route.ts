@@ -1,10 +1,10 @@
 import { z } from "zod";
-import { apiRoute } from "@/lib/server/route";
-import { listMarkup, markupAuthors } from "@/db/access/markup";
+import { apiRoute } from "@/server/http/route";
+import { listMarkup, markupAuthors } from "@/server/access/markup";
 import { uuidSchema } from "@/lib/validation/common";
 import { markupTableCsv, markupTableRows } from "@/lib/markup/markup-table";
 import { attachmentDisposition } from "@/lib/markup/attachment";
-import { referenceScale } from "@/db/access/die-scale";
+import { referenceScale } from "@/server/access/die-scale";
 import { umDecimals } from "@/lib/units/format-um";
 
 const params = z.object({ dieId: uuidSchema });

@@ -1,10 +1,10 @@
 import { z } from "zod";
-import { apiRoute } from "@/lib/server/route";
-import { listMarkup } from "@/db/access/markup";
+import { apiRoute } from "@/server/http/route";
+import { listMarkup } from "@/server/access/markup";
 import { uuidSchema } from "@/lib/validation/common";
 import { attachmentDisposition } from "@/lib/markup/attachment";
 import { markupToFeatureCollection } from "@/lib/export/geojson";
-import { referenceScale } from "@/db/access/die-scale";
+import { referenceScale } from "@/server/access/die-scale";
 import { roundGeometryUm } from "@/lib/units/round-geometry";
 import { roundUm } from "@/lib/units/format-um";
 import type { AnyShape } from "@/lib/markup/types";

@@ -1,7 +1,7 @@
 import { z } from "zod";
-import { apiRoute, created } from "@/lib/server/route";
-import { BadRequestError } from "@/lib/server/errors";
-import { createMarkup, listMarkupJson } from "@/db/access/markup";
+import { apiRoute, created } from "@/server/http/route";
+import { BadRequestError } from "@/lib/errors";
+import { createMarkup, listMarkupJson } from "@/server/access/markup";
 import { uuidSchema } from "@/lib/validation/common";
 import { parseNewShapes } from "@/lib/markup/markup-input";
 import { ifNoneMatchMatches } from "@/lib/markup/etag";

@@ -1,12 +1,12 @@
 import { z } from "zod";
-import { apiRoute } from "@/lib/server/route";
-import { listMicrographs } from "@/db/access/micrographs";
-import { loadDie } from "@/db/access/dies";
+import { apiRoute } from "@/server/http/route";
+import { listMicrographs } from "@/server/access/micrographs";
+import { loadDie } from "@/server/access/dies";
 import { uuidSchema } from "@/lib/validation/common";
-import { receiveUpload } from "@/lib/server/upload";
-import { ingestMicrograph } from "@/lib/server/ingest";
-import { env } from "@/lib/server/env";
-import { incomingDir } from "@/lib/server/storage-paths";
+import { receiveUpload } from "@/server/files/upload";
+import { ingestMicrograph } from "@/server/files/ingest";
+import { env } from "@/server/env";
+import { incomingDir } from "@/server/files/storage-paths";
 
 export const runtime = "nodejs";
 const params = z.object({ dieId: uuidSchema });

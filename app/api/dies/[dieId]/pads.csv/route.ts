@@ -1,13 +1,13 @@
 import { z } from "zod";
-import { apiRoute } from "@/lib/server/route";
-import { BadRequestError, ConflictError } from "@/lib/server/errors";
-import { listMarkup } from "@/db/access/markup";
+import { apiRoute } from "@/server/http/route";
+import { BadRequestError, ConflictError } from "@/lib/errors";
+import { listMarkup } from "@/server/access/markup";
 import { uuidSchema } from "@/lib/validation/common";
 import { padTableQuerySchema } from "@/lib/validation/markup";
 import { padTableFromMarkup } from "@/lib/markup/pad-table-from-markup";
 import { attachmentDisposition } from "@/lib/markup/attachment";
 import { padTableCsv } from "@/lib/pads";
-import { referenceScale } from "@/db/access/die-scale";
+import { referenceScale } from "@/server/access/die-scale";
 import { umDecimals } from "@/lib/units/format-um";
 
 const params = z.object({ dieId: uuidSchema });

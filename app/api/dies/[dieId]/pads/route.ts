@@ -1,7 +1,7 @@
 import { z } from "zod";
-import { apiRoute } from "@/lib/server/route";
-import { BadRequestError, ConflictError } from "@/lib/server/errors";
-import { listMarkup } from "@/db/access/markup";
+import { apiRoute } from "@/server/http/route";
+import { BadRequestError, ConflictError } from "@/lib/errors";
+import { listMarkup } from "@/server/access/markup";
 import { uuidSchema } from "@/lib/validation/common";
 import { padTableQuerySchema } from "@/lib/validation/markup";
 import { padTableFromMarkup } from "@/lib/markup/pad-table-from-markup";

@@ -1,7 +1,7 @@
 import { z } from "zod";
-import { apiRoute } from "@/lib/server/route";
-import { listReviewEvents, reviewDie } from "@/db/access/review";
-import { publicOrigin } from "@/lib/server/origin";
+import { apiRoute } from "@/server/http/route";
+import { listReviewEvents, reviewDie } from "@/server/access/review";
+import { publicOrigin } from "@/server/http/origin";
 import { uuidSchema } from "@/lib/validation/common";
 import { reviewActionSchema } from "@/lib/validation/review";
 

@@ -1,7 +1,7 @@
 import { z } from "zod";
-import { apiRoute, created } from "@/lib/server/route";
-import { createThread, listThreads } from "@/db/access/threads";
-import { publicOrigin } from "@/lib/server/origin";
+import { apiRoute, created } from "@/server/http/route";
+import { createThread, listThreads } from "@/server/access/threads";
+import { publicOrigin } from "@/server/http/origin";
 import { uuidSchema } from "@/lib/validation/common";
 import { newThreadSchema } from "@/lib/validation/review";
 

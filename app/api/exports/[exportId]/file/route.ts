@@ -1,10 +1,10 @@
 import fs from "node:fs";
 import { Readable } from "node:stream";
 import { z } from "zod";
-import { apiRoute } from "@/lib/server/route";
-import { ConflictError, NotFoundError } from "@/lib/server/errors";
-import { loadExport } from "@/db/access/exports";
-import { exportFilePath } from "@/lib/server/export-paths";
+import { apiRoute } from "@/server/http/route";
+import { ConflictError, NotFoundError } from "@/lib/errors";
+import { loadExport } from "@/server/access/exports";
+import { exportFilePath } from "@/server/files/export-paths";
 import { attachmentDisposition } from "@/lib/markup/attachment";
 import { uuidSchema } from "@/lib/validation/common";
 

@@ -1,6 +1,6 @@
 import { z } from "zod";
-import { apiRoute } from "@/lib/server/route";
-import { getAlignment, saveAlignment } from "@/db/access/alignment";
+import { apiRoute } from "@/server/http/route";
+import { getAlignment, saveAlignment } from "@/server/access/alignment";
 import { uuidSchema } from "@/lib/validation/common";
 import { alignmentBodySchema } from "@/lib/validation/alignment";
 

@@ -1,6 +1,6 @@
 import { z } from "zod";
-import { apiRoute } from "@/lib/server/route";
-import { setReference } from "@/db/access/micrograph-management";
+import { apiRoute } from "@/server/http/route";
+import { setReference } from "@/server/access/micrograph-management";
 import { uuidSchema } from "@/lib/validation/common";
 
 const params = z.object({ micrographId: uuidSchema });

@@ -1,7 +1,7 @@
 import { z } from "zod";
-import { apiRoute } from "@/lib/server/route";
-import { retryTiling } from "@/db/access/micrographs";
-import { notifyJobs } from "@/lib/server/jobs/queue";
+import { apiRoute } from "@/server/http/route";
+import { retryTiling } from "@/server/access/micrographs";
+import { notifyJobs } from "@/server/jobs/queue";
 import { uuidSchema } from "@/lib/validation/common";
 
 const params = z.object({ micrographId: uuidSchema });

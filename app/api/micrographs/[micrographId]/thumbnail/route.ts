@@ -1,3 +1,3 @@
-import { derivedImageRoute } from "@/lib/server/derived-image-route";
+import { derivedImageRoute } from "@/server/http/derived-image-route";
 
 export const GET = derivedImageRoute("thumbnail");

@@ -1,6 +1,6 @@
 import { z } from "zod";
-import { apiRoute, created } from "@/lib/server/route";
-import { createCase } from "@/db/access/cases";
+import { apiRoute, created } from "@/server/http/route";
+import { createCase } from "@/server/access/cases";
 import { caseInputSchema } from "@/lib/validation/cases";
 import { uuidSchema } from "@/lib/validation/common";
 

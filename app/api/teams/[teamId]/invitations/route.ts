@@ -1,7 +1,7 @@
 import { z } from "zod";
-import { apiRoute, created } from "@/lib/server/route";
-import { createInvitation, listInvitations } from "@/db/access/invitations";
-import { publicOrigin } from "@/lib/server/origin";
+import { apiRoute, created } from "@/server/http/route";
+import { createInvitation, listInvitations } from "@/server/access/invitations";
+import { publicOrigin } from "@/server/http/origin";
 import { uuidSchema } from "@/lib/validation/common";
 import { invitationSchema } from "@/lib/validation/review";
 

@@ -1,6 +1,6 @@
 import { z } from "zod";
-import { apiRoute } from "@/lib/server/route";
-import { listTeamOutbox } from "@/db/access/outbox";
+import { apiRoute } from "@/server/http/route";
+import { listTeamOutbox } from "@/server/access/outbox";
 import { uuidSchema } from "@/lib/validation/common";
 
 /** The team's recent mail with delivery state and last error (owner only). */

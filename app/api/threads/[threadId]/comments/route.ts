@@ -1,7 +1,7 @@
 import { z } from "zod";
-import { apiRoute, created } from "@/lib/server/route";
-import { addComment } from "@/db/access/comments";
-import { publicOrigin } from "@/lib/server/origin";
+import { apiRoute, created } from "@/server/http/route";
+import { addComment } from "@/server/access/comments";
+import { publicOrigin } from "@/server/http/origin";
 import { uuidSchema } from "@/lib/validation/common";
 import { commentSchema } from "@/lib/validation/review";
 

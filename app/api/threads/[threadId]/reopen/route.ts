@@ -1,6 +1,6 @@
 import { z } from "zod";
-import { apiRoute } from "@/lib/server/route";
-import { setThreadStatus } from "@/db/access/threads";
+import { apiRoute } from "@/server/http/route";
+import { setThreadStatus } from "@/server/access/threads";
 import { uuidSchema } from "@/lib/validation/common";
 
 /** Reopens a resolved thread (409 when it is open). */

@@ -1,6 +1,6 @@
 import { z } from "zod";
-import { apiRoute } from "@/lib/server/route";
-import { restoreDieFrame } from "@/db/access/die-frame";
+import { apiRoute } from "@/server/http/route";
+import { restoreDieFrame } from "@/server/access/die-frame";
 import { uuidSchema } from "@/lib/validation/common";
 import { frameRestoreSchema } from "@/lib/validation/markup";
 

@@ -1,6 +1,6 @@
 import { z } from "zod";
-import { apiRoute, created } from "@/lib/server/route";
-import { importMarkup } from "@/db/access/markup-import";
+import { apiRoute, created } from "@/server/http/route";
+import { importMarkup } from "@/server/access/markup-import";
 import { uuidSchema } from "@/lib/validation/common";
 import { MAX_IMPORT_BYTES } from "@/lib/export/geojson-import";
 

@@ -1,6 +1,6 @@
 import { z } from "zod";
-import { apiRoute } from "@/lib/server/route";
-import { reorderMicrographs } from "@/db/access/micrograph-management";
+import { apiRoute } from "@/server/http/route";
+import { reorderMicrographs } from "@/server/access/micrograph-management";
 import { uuidSchema } from "@/lib/validation/common";
 import { micrographOrderSchema } from "@/lib/validation/alignment";
 

@@ -1,5 +1,5 @@
-import { apiRoute } from "@/lib/server/route";
-import { markInboxItemRead } from "@/db/access/inbox";
+import { apiRoute } from "@/server/http/route";
+import { markInboxItemRead } from "@/server/access/inbox";
 import { inboxItemParams } from "@/lib/validation/account";
 
 /** Marks one of the caller's inbox items read; answers the item (404 for anyone else's). */

@@ -1,5 +1,5 @@
-import { apiRoute } from "@/lib/server/route";
-import { answerMyInvitation } from "@/db/access/invitations";
+import { apiRoute } from "@/server/http/route";
+import { answerMyInvitation } from "@/server/access/invitations";
 import { myInvitationParams } from "@/lib/validation/account";
 
 /** Accept one of the caller's pending invitations: `{ teamId, joined }` (404 not theirs, 410 no longer pending). */

@@ -1,8 +1,8 @@
 import { z } from "zod";
-import { apiRoute } from "@/lib/server/route";
-import { loadRefinePair } from "@/db/access/alignment";
-import { proposeRefinement } from "@/lib/server/alignment-refine";
-import { BadRequestError } from "@/lib/server/errors";
+import { apiRoute } from "@/server/http/route";
+import { loadRefinePair } from "@/server/access/alignment";
+import { proposeRefinement } from "@/server/alignment-refine";
+import { BadRequestError } from "@/lib/errors";
 import { uuidSchema } from "@/lib/validation/common";
 import { refineBodySchema } from "@/lib/validation/alignment";
 

@@ -1,12 +1,12 @@
 import { z } from "zod";
-import { apiRoute } from "@/lib/server/route";
-import { loadMicrograph } from "@/db/access/micrographs";
+import { apiRoute } from "@/server/http/route";
+import { loadMicrograph } from "@/server/access/micrographs";
 import { uuidSchema } from "@/lib/validation/common";
-import { micrographPaths } from "@/lib/server/storage-paths";
+import { micrographPaths } from "@/server/files/storage-paths";
 import { buildInfoJson } from "@/lib/tiles/iiif";
-import { readPyramidDescription } from "@/lib/tiles/pyramid";
-import { AppError } from "@/lib/server/errors";
-import { publicOrigin } from "@/lib/server/origin";
+import { readPyramidDescription } from "@/server/images/pyramid";
+import { AppError } from "@/lib/errors";
+import { publicOrigin } from "@/server/http/origin";
 
 const params = z.object({ micrographId: uuidSchema });
 

@@ -1,6 +1,6 @@
 import { z } from "zod";
-import { apiRoute, noContent } from "@/lib/server/route";
-import { revokeInvitation } from "@/db/access/invitations";
+import { apiRoute, noContent } from "@/server/http/route";
+import { revokeInvitation } from "@/server/access/invitations";
 import { uuidSchema } from "@/lib/validation/common";
 
 /** Revokes a pending invitation (owner only): 204. */

@@ -1,6 +1,6 @@
 import { z } from "zod";
-import { apiRoute, noContent } from "@/lib/server/route";
-import { changeRole, removeMember } from "@/db/access/teams";
+import { apiRoute, noContent } from "@/server/http/route";
+import { changeRole, removeMember } from "@/server/access/teams";
 import { uuidSchema } from "@/lib/validation/common";
 import { memberPatchSchema } from "@/lib/validation/teams";
 

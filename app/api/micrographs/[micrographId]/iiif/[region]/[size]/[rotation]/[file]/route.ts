@@ -1,13 +1,13 @@
 import path from "node:path";
 import { z } from "zod";
-import { apiRoute } from "@/lib/server/route";
-import { loadMicrograph } from "@/db/access/micrographs";
+import { apiRoute } from "@/server/http/route";
+import { loadMicrograph } from "@/server/access/micrographs";
 import { uuidSchema } from "@/lib/validation/common";
-import { micrographPaths } from "@/lib/server/storage-paths";
+import { micrographPaths } from "@/server/files/storage-paths";
 import { parseTileRequest, resolveTilePath } from "@/lib/tiles/iiif";
-import { readPyramidDescription } from "@/lib/tiles/pyramid";
-import { AppError, BadRequestError, NotFoundError } from "@/lib/server/errors";
-import { serveImmutable } from "@/lib/server/serve-file";
+import { readPyramidDescription } from "@/server/images/pyramid";
+import { AppError, BadRequestError, NotFoundError } from "@/lib/errors";
+import { serveImmutable } from "@/server/http/serve-file";
 
 // Every segment is validated: only canonical IIIF numbers reach the file system.
 const params = z.object({

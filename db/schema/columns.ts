@@ -1,0 +1,6 @@
+// Column helpers every table uses.
+import { timestamp } from "drizzle-orm/pg-core";
+
+export const createdAt = () => timestamp("created_at", { withTimezone: true }).notNull().defaultNow();
+
+export const updatedAt = () => timestamp("updated_at", { withTimezone: true }).notNull().defaultNow();

@@ -1,0 +1,13 @@
+// Shapes of what the API answers; the server builds them, client components read them.
+import type { ReviewAction, ReviewStatus } from "@/lib/review/review-status";
+
+export type ReviewEventDto = {
+  id: string;
+  action: ReviewAction;
+  fromStatus: ReviewStatus;
+  toStatus: ReviewStatus;
+  message: string;
+  actorId: string | null;
+  actorName: string | null;
+  at: string;
+};

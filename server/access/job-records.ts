@@ -1,0 +1,48 @@
+import "server-only";
+import { eq } from "drizzle-orm";
+import { exports as exportsTable, micrographs, type ExportRow, type MicrographRow } from "@/db/schema";
+import type { Db } from "./context";
+
+// The rows background jobs read and move through their states. Jobs run on behalf of a request
+// whose rights were checked when the job was queued, so nothing here takes an actor.
+
+/** The micrograph a tiling job works on, or null when it was deleted meanwhile. */
+export async function micrographForJob(db: Db, micrographId: string): Promise<MicrographRow | null> {
+  const [m] = await db.select().from(micrographs).where(eq(micrographs.id, micrographId));
+  return m ?? null;
+}
+
+type TilingChange =
+  | { status: "tiling" }
+  | { progress: number }
+  | { previewWidth: number; previewHeight: number; progress: number }
+  | { status: "ready" }
+  | { status: "failed"; error: string };
+
+/**
+ * Moves a micrograph's tiling state; answers the row after the change, or null when the
+ * micrograph no longer exists (deleted while tiling).
+ */
+export async function setTilingState(db: Db, micrographId: string, change: TilingChange): Promise<MicrographRow | null> {
+  const values =
+    "status" in change && change.status === "tiling"
+      ? { status: "tiling" as const, progress: 0, error: null }
+      : "status" in change && change.status === "ready"
+        ? { status: "ready" as const, progress: 100, updatedAt: new Date() }
+        : "status" in change
+          ? { status: "failed" as const, error: change.error, updatedAt: new Date() }
+          : change;
+  const [row] = await db.update(micrographs).set(values).where(eq(micrographs.id, micrographId)).returning();
+  return row ?? null;
+}
+
+/** The export a render job works on, or null when it expired or was deleted. */
+export async function exportForJob(db: Db, exportId: string): Promise<ExportRow | null> {
+  const [row] = await db.select().from(exportsTable).where(eq(exportsTable.id, exportId));
+  return row ?? null;
+}
+
+/** Moves an export's state (running with progress, done with its file, failed with a reason). */
+export async function setExportState(db: Db, exportId: string, changes: Partial<Pick<ExportRow, "status" | "progress" | "error" | "fileName" | "bytes" | "params" | "finishedAt">>): Promise<void> {
+  await db.update(exportsTable).set(changes).where(eq(exportsTable.id, exportId));
+}

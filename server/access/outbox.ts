@@ -1,0 +1,59 @@
+import "server-only";
+import { and, desc, eq, inArray, lte, sql } from "drizzle-orm";
+import { outbox, type OutboxRow } from "@/db/schema";
+import { authorize, type Actor, type Db } from "./context";
+import { MAX_SEND_ATTEMPTS, retryDelayMs } from "@/lib/review/backoff";
+import type { OutboxItemDto } from "@/lib/dto/outbox";
+
+/** Recent mail of a team with its delivery state, newest first (owner only: failures show here). */
+export async function listTeamOutbox(db: Db, actor: Actor, teamId: string, limit = 100): Promise<OutboxItemDto[]> {
+  await authorize(db, actor, teamId, "manage_team", "That team");
+  const rows = await db.select().from(outbox).where(eq(outbox.teamId, teamId)).orderBy(desc(outbox.createdAt)).limit(limit);
+  return rows.map((r) => ({
+    id: r.id,
+    kind: r.kind,
+    toEmail: r.toEmail,
+    subject: r.subject,
+    status: r.status,
+    attempts: r.attempts,
+    lastError: r.lastError,
+    nextAttemptAt: r.nextAttemptAt.toISOString(),
+    sentAt: r.sentAt?.toISOString() ?? null,
+    createdAt: r.createdAt.toISOString(),
+  }));
+}
+
+/**
+ * Takes up to `limit` due messages for sending. Claiming pushes their next attempt a lease
+ * into the future first, so another sender process skips them while this one works (and picks
+ * them up again if this one dies mid-send).
+ */
+export async function claimDueMail(db: Db, now: Date, leaseMs: number, limit = 10): Promise<OutboxRow[]> {
+  const due = db
+    .select({ id: outbox.id })
+    .from(outbox)
+    .where(and(eq(outbox.status, "pending"), lte(outbox.nextAttemptAt, now)))
+    .orderBy(outbox.nextAttemptAt)
+    .limit(limit)
+    .for("update", { skipLocked: true });
+  return db
+    .update(outbox)
+    .set({ nextAttemptAt: new Date(now.getTime() + leaseMs) })
+    .where(inArray(outbox.id, due))
+    .returning();
+}
+
+/** Marks a message sent. */
+export async function markMailSent(db: Db, id: string): Promise<void> {
+  await db.update(outbox).set({ status: "sent", sentAt: new Date(), lastError: null, attempts: sql`${outbox.attempts} + 1` }).where(eq(outbox.id, id));
+}
+
+/** Records a failed attempt: retried later with back-off, failed for good after MAX_SEND_ATTEMPTS. */
+export async function markMailFailed(db: Db, row: OutboxRow, error: string, baseDelayMs: number): Promise<void> {
+  const attempts = row.attempts + 1;
+  const last = attempts >= MAX_SEND_ATTEMPTS;
+  await db
+    .update(outbox)
+    .set({ attempts, lastError: error.slice(0, 500), status: last ? "failed" : "pending", nextAttemptAt: new Date(Date.now() + retryDelayMs(attempts, baseDelayMs)) })
+    .where(eq(outbox.id, row.id));
+}

@@ -1,0 +1,55 @@
+import "server-only";
+import { openedDatabase } from "./database";
+import { DataDirLockedError } from "@/db/data-dir-lock";
+import { env } from "./env";
+import { requeueOrphanedJobs } from "./jobs/queue";
+import { startTilingWorkers } from "./jobs/tiling";
+import { startExportWorker } from "./jobs/export";
+
+/**
+ * Runs once per server process before the first request: opens the database (taking the data
+ * dir lock and applying migrations) and seeds the demo scenario into an empty database.
+ * A second server on a locked data dir exits here with a clear message.
+ */
+export async function startServer(): Promise<void> {
+  try {
+    const opened = await openedDatabase();
+    if (opened.kind === "pglite") {
+      const { failExhaustedTiling } = await import("./jobs/tiling");
+      const gaveUp = await failExhaustedTiling(opened.db, true);
+      if (gaveUp) console.log(`[kerfline] gave up ${gaveUp} tiling job(s) that stopped on their last attempt`);
+      const requeued = await requeueOrphanedJobs(opened.db);
+      if (requeued) console.log(`[kerfline] picked up ${requeued} job(s) left running by an earlier stop`);
+    }
+    const { sweepIncoming } = await import("./files/upload");
+    const { incomingDir } = await import("./files/storage-paths");
+    const swept = await sweepIncoming(incomingDir(), opened.kind === "pglite" ? 0 : 3600_000);
+    if (swept) console.log(`[kerfline] removed ${swept} unfinished upload part(s) left by an earlier stop`);
+    startTilingWorkers(opened.db);
+    startExportWorker(opened.db);
+    const { startMail } = await import("./mail/start-mail");
+    await startMail(opened.db);
+    const seed = env().KERFLINE_SEED;
+    if (seed !== "none") {
+      const { seedDemo } = await import("@/db/seed");
+      if (await seedDemo(opened.db)) {
+        console.log("[kerfline] seeded the demo scenario");
+        if (seed === "demo") {
+          const { seedDemoMicrographs } = await import("./seed-micrographs");
+          await seedDemoMicrographs(opened.db);
+          console.log("[kerfline] rendered and uploaded the demo micrographs (tiling in the background)");
+        }
+      }
+    }
+    console.log(`[kerfline] database ready (${opened.kind}), data dir ${env().dataDir}`);
+    const { describeLinkOrigin } = await import("./http/origin");
+    console.log(`[kerfline] ${describeLinkOrigin()}`);
+  } catch (e) {
+    if (e instanceof DataDirLockedError) {
+      console.error(`[kerfline] refusing to start: ${e.message}`);
+      process.exit(1);
+    }
+    console.error("[kerfline] start-up failed:", e);
+    process.exit(1);
+  }
+}

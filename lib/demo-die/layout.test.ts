@@ -1,6 +1,7 @@
 import { describe, expect, it } from "vitest";
 import type { Position } from "../geometry/types";
-import { NV24R_LAYOUT as L, padByLabel, type DieSide } from "./layout";
+import { NV24R_LAYOUT as L, padByLabel } from "./layout";
+import type { DieSide } from "./layout-types";
 import { ringHalfSize } from "./spiral-path";
 
 // The reference for these checks is the demo scenario of PRODUCT.md (die about 2.40 × 1.60 mm,
@@ -19,7 +20,10 @@ describe("NV-24R layout", () => {
     expect(L.pads).toHaveLength(22);
     expect(new Set(L.pads.map((p) => p.label)).size).toBe(22);
     for (const net of ["VCC", "VEE", "VB1", "VB2", "VB3", "RFIN_P", "RFIN_N", "IFOUT_P", "IFOUT_N", "GND"]) {
-      expect(L.pads.some((p) => p.net === net), net).toBe(true);
+      expect(
+        L.pads.some((p) => p.net === net),
+        net,
+      ).toBe(true);
     }
     expect(L.pads.some((p) => p.state === "probed")).toBe(true);
     expect(L.pads.some((p) => p.state === "unbonded")).toBe(true);
@@ -29,7 +33,10 @@ describe("NV-24R layout", () => {
   });
 
   it("has ground–signal–ground RF pads at the input (left) and output (right) edges", () => {
-    for (const [side, signal] of [["left", "RFIN"], ["right", "IFOUT"]] as const) {
+    for (const [side, signal] of [
+      ["left", "RFIN"],
+      ["right", "IFOUT"],
+    ] as const) {
       const column = L.pads.filter((p) => p.side === side).sort((a, b) => b.centreUm[1] - a.centreUm[1]);
       expect(column.map((p) => (p.net === "GND" ? "G" : p.net.startsWith(signal) ? "S" : "?")).join("")).toBe("GSGSG");
     }
@@ -45,7 +52,10 @@ describe("NV-24R layout", () => {
   it("mirrors blocks, meanders, routes and capacitors across y = 800 (brute force)", () => {
     const ringKey = (ring: readonly Position[]) => [...new Set(ring.map((p) => p.join(",")))].sort().join(" ");
     for (const b of L.blocks) {
-      expect(L.blocks.filter((q) => ringKey(q.polygonUm) === ringKey(b.polygonUm.map(mirror))), b.name).toHaveLength(1);
+      expect(
+        L.blocks.filter((q) => ringKey(q.polygonUm) === ringKey(b.polygonUm.map(mirror))),
+        b.name,
+      ).toHaveLength(1);
     }
     const lineKey = (pts: readonly Position[]) => pts.map((p) => p.join(",")).join(" ");
     for (const t of [...L.meanders, ...L.routes]) {
@@ -53,7 +63,10 @@ describe("NV-24R layout", () => {
       expect(partners, t.name).toHaveLength(1);
     }
     for (const c of L.capacitors) {
-      expect(L.capacitors.filter((q) => same(q.centreUm, mirror(c.centreUm)) && same(q.sizeUm, c.sizeUm)), c.name).toHaveLength(1);
+      expect(
+        L.capacitors.filter((q) => same(q.centreUm, mirror(c.centreUm)) && same(q.sizeUm, c.sizeUm)),
+        c.name,
+      ).toHaveLength(1);
     }
     // Bonds follow pad states, which are not mirrored (VB1S and VB2S are only probed, NC1 is
     // left open): a bond has a mirrored partner exactly when the partner pad is bonded too.

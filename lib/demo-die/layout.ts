@@ -1,4 +1,6 @@
 import type { Position } from "../geometry/types";
+import { meanderLine, rect } from "./layout-geometry";
+import type { PadState, DieSide, Pad, WireBond, Block, Spiral, Trace, Capacitor, TextMark, DieLayout } from "./layout-types";
 
 /**
  * The invented NV-24R die of the demo scenario: a fictional 24 GHz radar receiver front end
@@ -11,67 +13,6 @@ import type { Position } from "../geometry/types";
  * and the bottom half derived. Deliberately not symmetric: the text marks, and the pad
  * states with the wire bonds that follow them (VB1S and VB2S are only probed, NC1 is open).
  */
-
-type PadState = "bonded" | "probed" | "unbonded";
-export type DieSide = "left" | "right" | "top" | "bottom";
-
-export type Pad = {
-  readonly label: string;
-  readonly net: string;
-  readonly state: PadState;
-  readonly side: DieSide;
-  readonly centreUm: Position;
-  /** Metal size [w, h]; the passivation opening is inset by `padOpeningInsetUm`. */
-  readonly sizeUm: Position;
-};
-
-/** A wire bond from the pad centre (ball) straight out beyond the die edge (to the package). */
-export type WireBond = { readonly pad: string; readonly fromUm: Position; readonly toUm: Position; readonly diameterUm: number };
-
-/** A functional block; the polygon ring is closed (first position repeated, as in RFC 7946). */
-type Block = { readonly name: string; readonly function: string; readonly polygonUm: readonly Position[] };
-
-/** A square spiral inductor drawn as a symmetric (centre-tapped) winding. */
-export type Spiral = {
-  readonly name: string;
-  readonly centreUm: Position;
-  readonly turns: number;
-  readonly outerDiameterUm: number;
-  readonly widthUm: number;
-  readonly spacingUm: number;
-};
-
-/** A metal line given by its centre line and width. */
-export type Trace = { readonly name: string; readonly pointsUm: readonly Position[]; readonly widthUm: number };
-
-type Capacitor = { readonly name: string; readonly function: string; readonly centreUm: Position; readonly sizeUm: Position };
-
-/** Text in top metal; `positionUm` is the left end of the baseline. */
-type TextMark = {
-  readonly kind: "maker" | "part" | "mask_id" | "date_code";
-  readonly text: string;
-  readonly positionUm: Position;
-  readonly heightUm: number;
-};
-
-export type DieLayout = {
-  readonly part: string;
-  readonly maker: string;
-  readonly process: string;
-  readonly description: string;
-  readonly dieSizeUm: Position;
-  readonly symmetryAxisYUm: number;
-  readonly sealRing: { readonly insetUm: number; readonly widthUm: number };
-  readonly padOpeningInsetUm: number;
-  readonly pads: readonly Pad[];
-  readonly wireBonds: readonly WireBond[];
-  readonly blocks: readonly Block[];
-  readonly spirals: readonly Spiral[];
-  readonly meanders: readonly Trace[];
-  readonly routes: readonly Trace[];
-  readonly capacitors: readonly Capacitor[];
-  readonly textMarks: readonly TextMark[];
-};
 
 const DIE_W = 2400;
 const DIE_H = 1600;
@@ -140,10 +81,6 @@ function bondFor(pad: Pad): WireBond {
   return { pad: pad.label, fromUm: pad.centreUm, toUm, diameterUm: 25 };
 }
 
-function rect(x0: number, y0: number, x1: number, y1: number): Position[] {
-  return [[x0, y0], [x1, y0], [x1, y1], [x0, y1], [x0, y0]];
-}
-
 /** A block and its mirror image below the axis (ring orientation kept counter-clockwise). */
 function mirroredBlocks(top: Block, bottomName: string): Block[] {
   const ring = top.polygonUm.map(mirrorAcrossAxis).reverse();
@@ -159,44 +96,129 @@ const BLOCKS: readonly Block[] = [
   ...mirroredBlocks({ name: "Bias A", function: "Bias generator for VB1 and VB2", polygonUm: rect(520, 1250, 1020, 1430) }, "Bias B"),
 ];
 
-const SPIRALS: readonly Spiral[] = [
-  { name: "L1", centreUm: [360, AXIS], turns: 3, outerDiameterUm: 200, widthUm: 12, spacingUm: 6 },
-];
-
-/** A square-wave centre line from (x0, y) to (x1, y) swinging between yLow and yHigh. */
-function meanderLine(x0: number, x1: number, y: number, yLow: number, yHigh: number, pitch: number): Position[] {
-  const points: Position[] = [[x0 - 40, y], [x0, y]];
-  let high = true;
-  for (let x = x0; x < x1; x += pitch) {
-    const level = high ? yHigh : yLow;
-    points.push([x, level], [x + pitch, level]);
-    high = !high;
-  }
-  points.push([x1, y], [x1 + 30, y]);
-  return points;
-}
+const SPIRALS: readonly Spiral[] = [{ name: "L1", centreUm: [360, AXIS], turns: 3, outerDiameterUm: 200, widthUm: 12, spacingUm: 6 }];
 
 const MEANDER_P: Trace = { name: "Peaking line P", pointsUm: meanderLine(1490, 1690, 970, 900, 1040, 25), widthUm: 6 };
 const MEANDERS: readonly Trace[] = [MEANDER_P, { name: "Peaking line N", pointsUm: MEANDER_P.pointsUm.map(mirrorAcrossAxis), widthUm: 6 }];
 
 /** The top-half routes; each gets a mirrored partner whose name ends in " (lower)". */
 const TOP_ROUTES: readonly Trace[] = [
-  { name: "RF input P", pointsUm: [[PAD_IN, 950], [520, 950]], widthUm: 14 },
-  { name: "Ground strap G1", pointsUm: [[PAD_IN, 1100], [190, 1100]], widthUm: 30 },
-  { name: "LNA to mixer P", pointsUm: [[800, 950], [900, 950]], widthUm: 10 },
-  { name: "LO feed P", pointsUm: [[1250, DIE_H - PAD_IN], [1250, 1420]], widthUm: 12 },
-  { name: "LO buffer to mixer P", pointsUm: [[1250, 1230], [1250, 1140]], widthUm: 10 },
-  { name: "Supply VCC1", pointsUm: [[350, DIE_H - PAD_IN], [350, 1180]], widthUm: 30 },
-  { name: "Bias VB1", pointsUm: [[650, DIE_H - PAD_IN], [650, 1430]], widthUm: 10 },
-  { name: "Bias VB2", pointsUm: [[950, DIE_H - PAD_IN], [950, 1430]], widthUm: 10 },
-  { name: "Bias VB3", pointsUm: [[1650, DIE_H - PAD_IN], [1650, 1160], [1760, 1160], [1760, 1100]], widthUm: 10 },
-  { name: "Supply VCC2", pointsUm: [[2000, DIE_H - PAD_IN], [2000, 1100]], widthUm: 30 },
-  { name: "IF output P", pointsUm: [[2180, 950], [DIE_W - PAD_IN, 950]], widthUm: 14 },
-  { name: "Ground strap G4", pointsUm: [[2180, 1100], [DIE_W - PAD_IN, 1100]], widthUm: 30 },
+  {
+    name: "RF input P",
+    pointsUm: [
+      [PAD_IN, 950],
+      [520, 950],
+    ],
+    widthUm: 14,
+  },
+  {
+    name: "Ground strap G1",
+    pointsUm: [
+      [PAD_IN, 1100],
+      [190, 1100],
+    ],
+    widthUm: 30,
+  },
+  {
+    name: "LNA to mixer P",
+    pointsUm: [
+      [800, 950],
+      [900, 950],
+    ],
+    widthUm: 10,
+  },
+  {
+    name: "LO feed P",
+    pointsUm: [
+      [1250, DIE_H - PAD_IN],
+      [1250, 1420],
+    ],
+    widthUm: 12,
+  },
+  {
+    name: "LO buffer to mixer P",
+    pointsUm: [
+      [1250, 1230],
+      [1250, 1140],
+    ],
+    widthUm: 10,
+  },
+  {
+    name: "Supply VCC1",
+    pointsUm: [
+      [350, DIE_H - PAD_IN],
+      [350, 1180],
+    ],
+    widthUm: 30,
+  },
+  {
+    name: "Bias VB1",
+    pointsUm: [
+      [650, DIE_H - PAD_IN],
+      [650, 1430],
+    ],
+    widthUm: 10,
+  },
+  {
+    name: "Bias VB2",
+    pointsUm: [
+      [950, DIE_H - PAD_IN],
+      [950, 1430],
+    ],
+    widthUm: 10,
+  },
+  {
+    name: "Bias VB3",
+    pointsUm: [
+      [1650, DIE_H - PAD_IN],
+      [1650, 1160],
+      [1760, 1160],
+      [1760, 1100],
+    ],
+    widthUm: 10,
+  },
+  {
+    name: "Supply VCC2",
+    pointsUm: [
+      [2000, DIE_H - PAD_IN],
+      [2000, 1100],
+    ],
+    widthUm: 30,
+  },
+  {
+    name: "IF output P",
+    pointsUm: [
+      [2180, 950],
+      [DIE_W - PAD_IN, 950],
+    ],
+    widthUm: 14,
+  },
+  {
+    name: "Ground strap G4",
+    pointsUm: [
+      [2180, 1100],
+      [DIE_W - PAD_IN, 1100],
+    ],
+    widthUm: 30,
+  },
 ];
 const AXIS_ROUTES: readonly Trace[] = [
-  { name: "Ground strap G2", pointsUm: [[PAD_IN, AXIS], [190, AXIS]], widthUm: 30 },
-  { name: "Ground strap G5", pointsUm: [[2180, AXIS], [DIE_W - PAD_IN, AXIS]], widthUm: 30 },
+  {
+    name: "Ground strap G2",
+    pointsUm: [
+      [PAD_IN, AXIS],
+      [190, AXIS],
+    ],
+    widthUm: 30,
+  },
+  {
+    name: "Ground strap G5",
+    pointsUm: [
+      [2180, AXIS],
+      [DIE_W - PAD_IN, AXIS],
+    ],
+    widthUm: 30,
+  },
 ];
 const ROUTES: readonly Trace[] = [
   ...TOP_ROUTES,

@@ -1,6 +1,6 @@
 import { composeAffine, invertAffine } from "../geometry/affine";
 import type { Affine2x3 } from "../geometry/types";
-import type { DieLayout } from "./layout";
+import type { DieLayout } from "./layout-types";
 
 /**
  * Where a rendering puts the die: the exact die µm → image px transform of one demo

@@ -1,5 +1,5 @@
 import type { Position } from "../geometry/types";
-import type { DieLayout, Pad, Trace, WireBond } from "./layout";
+import type { DieLayout, Pad, Trace, WireBond } from "./layout-types";
 import { placeDie, type PlacementOptions } from "./placement";
 import { spiralPaths } from "./spiral-path";
 
@@ -63,8 +63,22 @@ function drawBody(c: Ctx, layout: DieLayout): string {
   const [w, h] = layout.dieSizeUm;
   const { insetUm, widthUm } = layout.sealRing;
   const ring = insetUm + widthUm / 2;
-  const body = c.look === "bright_field" ? box(0, 0, w, h, PALETTE.bright_field.substrate) : box(0, 0, w, h, PALETTE.dark_field.die, PALETTE.dark_field.edge, c.edge);
-  return body + metalLine(c, [[ring, ring], [w - ring, ring], [w - ring, h - ring], [ring, h - ring], [ring, ring]], widthUm);
+  const body =
+    c.look === "bright_field" ? box(0, 0, w, h, PALETTE.bright_field.substrate) : box(0, 0, w, h, PALETTE.dark_field.die, PALETTE.dark_field.edge, c.edge);
+  return (
+    body +
+    metalLine(
+      c,
+      [
+        [ring, ring],
+        [w - ring, ring],
+        [w - ring, h - ring],
+        [ring, h - ring],
+        [ring, ring],
+      ],
+      widthUm,
+    )
+  );
 }
 
 function drawBlocks(c: Ctx, layout: DieLayout): string {
@@ -152,7 +166,8 @@ function drawBond(c: Ctx, bond: WireBond): string {
 }
 
 function drawText(c: Ctx, layout: DieLayout): string {
-  const paint = c.look === "bright_field" ? `fill="${PALETTE.bright_field.metal}"` : `fill="none" stroke="${PALETTE.dark_field.edge}" stroke-width="${n(c.edge / 2)}"`;
+  const paint =
+    c.look === "bright_field" ? `fill="${PALETTE.bright_field.metal}"` : `fill="none" stroke="${PALETTE.dark_field.edge}" stroke-width="${n(c.edge / 2)}"`;
   return layout.textMarks
     .map(({ text, positionUm: [x, y], heightUm }) => {
       // The die group flips y; flip the glyphs back so the text reads upright. Cap height of

@@ -1,5 +1,5 @@
 import type { Position } from "../geometry/types";
-import type { Spiral } from "./layout";
+import type { Spiral } from "./layout-types";
 
 /**
  * Centre lines of a symmetric (centre-tapped) square spiral: concentric rings split on the
@@ -39,21 +39,51 @@ export function spiralPaths(s: Spiral): SpiralPaths {
     const a = ringHalfSize(s, i);
     const open = openSides(s, i);
     if (open.left && open.right) {
-      const upper: Position[] = [[cx + a, cy + g], [cx + a, cy + a], [cx - a, cy + a], [cx - a, cy + g]];
-      top.push(upper, upper.map(([x, y]) => [x, 2 * cy - y] as Position));
+      const upper: Position[] = [
+        [cx + a, cy + g],
+        [cx + a, cy + a],
+        [cx - a, cy + a],
+        [cx - a, cy + g],
+      ];
+      top.push(
+        upper,
+        upper.map(([x, y]) => [x, 2 * cy - y] as Position),
+      );
     } else {
       const sx = open.right ? 1 : -1;
-      top.push([[cx + sx * a, cy + g], [cx + sx * a, cy + a], [cx - sx * a, cy + a], [cx - sx * a, cy - a], [cx + sx * a, cy - a], [cx + sx * a, cy - g]]);
+      top.push([
+        [cx + sx * a, cy + g],
+        [cx + sx * a, cy + a],
+        [cx - sx * a, cy + a],
+        [cx - sx * a, cy - a],
+        [cx + sx * a, cy - a],
+        [cx + sx * a, cy - g],
+      ]);
     }
     if (i < s.turns - 1) {
       const b = ringHalfSize(s, i + 1);
       const sx = i % 2 === 0 ? -1 : 1;
-      top.push([[cx + sx * a, cy + g], [cx + sx * b, cy - g]]);
-      under.push([[cx + sx * a, cy - g], [cx + sx * b, cy + g]]);
+      top.push([
+        [cx + sx * a, cy + g],
+        [cx + sx * b, cy - g],
+      ]);
+      under.push([
+        [cx + sx * a, cy - g],
+        [cx + sx * b, cy + g],
+      ]);
     }
   }
   const a0 = ringHalfSize(s, 0);
   const lead = s.outerDiameterUm / 4;
-  top.push([[cx + a0, cy + g], [cx + a0 + lead, cy + g]], [[cx + a0, cy - g], [cx + a0 + lead, cy - g]]);
+  top.push(
+    [
+      [cx + a0, cy + g],
+      [cx + a0 + lead, cy + g],
+    ],
+    [
+      [cx + a0, cy - g],
+      [cx + a0 + lead, cy - g],
+    ],
+  );
   return { top, under };
 }

@@ -5,7 +5,8 @@ import sharp from "sharp";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { applyAffine, invertAffine } from "@/lib/geometry/affine";
 import type { Affine2x3, Position } from "@/lib/geometry/types";
-import { NV24R_LAYOUT, type DieSide, type Pad } from "@/lib/demo-die/layout";
+import { NV24R_LAYOUT } from "@/lib/demo-die/layout";
+import type { DieSide, Pad } from "@/lib/demo-die/layout-types";
 import { demoMicrographOptions, renderDemoMicrograph, type DemoRender } from "./demo-die";
 import { PALETTE } from "@/lib/demo-die/render-svg";
 
@@ -18,7 +19,9 @@ let dark: { render: DemoRender; raster: Raster };
 async function renderAndRead(look: "bright_field" | "dark_field") {
   const file = path.join(dir, `${look}.jpg`);
   const render = await renderDemoMicrograph(file, demoMicrographOptions(look, 1200));
-  const { data, info } = await sharp(file, { limitInputPixels: 1200 * 1000 }).raw().toBuffer({ resolveWithObject: true });
+  const { data, info } = await sharp(file, { limitInputPixels: 1200 * 1000 })
+    .raw()
+    .toBuffer({ resolveWithObject: true });
   return { render, raster: { data, width: info.width, height: info.height, channels: info.channels } };
 }
 
@@ -94,7 +97,11 @@ describe("demo micrographs", () => {
       expect(luma(rgbAt(dark, pad.centreUm)), `${pad.label} centre`).toBeLessThan(60);
       const [ix, iy] = inward[pad.side];
       // Inward and both directions along the edge; outward the wire may cover the outline.
-      for (const [dx, dy] of [[ix, iy], [iy, ix], [-iy, -ix]]) {
+      for (const [dx, dy] of [
+        [ix, iy],
+        [iy, ix],
+        [-iy, -ix],
+      ]) {
         let brightest = 0;
         // The pad outline is at 40 µm from the centre, the opening's at 34 µm.
         for (let d = 32; d <= 46; d += 0.5) brightest = Math.max(brightest, luma(rgbAt(dark, [cx + d * dx, cy + d * dy])));

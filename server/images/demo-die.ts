@@ -4,7 +4,8 @@ import sharp from "sharp";
 import { meanScale } from "@/lib/geometry/affine";
 import type { Affine2x3 } from "@/lib/geometry/types";
 import { configureSharp } from "./limits";
-import { NV24R_LAYOUT, type DieLayout } from "@/lib/demo-die/layout";
+import { NV24R_LAYOUT } from "@/lib/demo-die/layout";
+import type { DieLayout } from "@/lib/demo-die/layout-types";
 import { placeDie, pxPerUmForWidth } from "@/lib/demo-die/placement";
 import { renderDieSvg, type Look } from "@/lib/demo-die/render-svg";
 

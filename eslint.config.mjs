@@ -9,12 +9,20 @@ import prettier from "eslint-config-prettier/flat";
 // Layers, outermost first: app → server → db and lib. components is the UI beside app: it may
 // use lib (pure) but never the server layer or the database.
 const layers = [
-  { target: "./lib", from: ["./server", "./db", "./app", "./components"], message: "lib/ holds pure domain code: it imports neither the server layer, the database, nor the UI." },
+  {
+    target: "./lib",
+    from: ["./server", "./db", "./app", "./components"],
+    message: "lib/ holds pure domain code: it imports neither the server layer, the database, nor the UI.",
+  },
   { target: "./db", from: ["./server", "./app", "./components"], message: "db/ (schema, client, migrations, seed) imports only db/ and pure lib/." },
   { target: "./server", from: ["./app", "./components"], message: "The server layer never imports pages, route handlers or UI components." },
   { target: "./components", from: ["./server", "./db", "./app"], message: "UI components talk to the server over HTTP; their types come from lib/dto." },
   // Inside the server layer: data access queries and authorizes; it does not render, mail or run jobs.
-  { target: "./server/access", from: ["./server/images", "./server/mail", "./server/jobs", "./server/http"], message: "Data access only reads and writes rows; rendering, mail and jobs call it, not the other way round." },
+  {
+    target: "./server/access",
+    from: ["./server/images", "./server/mail", "./server/jobs", "./server/http"],
+    message: "Data access only reads and writes rows; rendering, mail and jobs call it, not the other way round.",
+  },
 ];
 
 export default defineConfig([

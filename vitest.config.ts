@@ -18,7 +18,12 @@ export default defineConfig({
     projects: [
       {
         resolve: { alias },
-        test: { name: "unit", include: ["lib/**/*.test.ts", "db/**/*.test.ts", "server/**/*.test.ts", "components/**/*.test.ts"], environment: "node", testTimeout: 60_000 },
+        test: {
+          name: "unit",
+          include: ["lib/**/*.test.ts", "db/**/*.test.ts", "server/**/*.test.ts", "components/**/*.test.ts"],
+          environment: "node",
+          testTimeout: 60_000,
+        },
       },
       {
         resolve: { alias },

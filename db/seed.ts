@@ -45,14 +45,30 @@ export async function seedDemo(db: Database): Promise<boolean> {
       ids[u.role] = row.id;
       await tx.insert(memberships).values({ teamId: team.id, userId: row.id, role: u.role });
     }
-    const [outsider] = await tx.insert(users).values({ ...DEMO.outsider, passwordHash: hash }).returning();
+    const [outsider] = await tx
+      .insert(users)
+      .values({ ...DEMO.outsider, passwordHash: hash })
+      .returning();
     await tx.insert(memberships).values({ teamId: other.id, userId: outsider.id, role: "owner" });
-    const [c] = await tx.insert(cases).values({ ...DEMO.case, teamId: team.id, createdBy: ids.analyst }).returning();
+    const [c] = await tx
+      .insert(cases)
+      .values({ ...DEMO.case, teamId: team.id, createdBy: ids.analyst })
+      .returning();
     const [d] = await tx
       .insert(dies)
       .values({ ...DEMO.die, caseId: c.id, analystId: ids.analyst, createdBy: ids.analyst })
       .returning();
-    await tx.insert(auditEvents).values({ teamId: team.id, actorId: ids.analyst, action: "die.created", entityType: "die", entityId: d.id, dieId: d.id, after: JSON.parse(JSON.stringify(d)) });
+    await tx
+      .insert(auditEvents)
+      .values({
+        teamId: team.id,
+        actorId: ids.analyst,
+        action: "die.created",
+        entityType: "die",
+        entityId: d.id,
+        dieId: d.id,
+        after: JSON.parse(JSON.stringify(d)),
+      });
   });
   return true;
 }

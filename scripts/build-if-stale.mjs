@@ -5,7 +5,20 @@ import path from "node:path";
 import { spawnSync } from "node:child_process";
 
 const ROOT = path.resolve(import.meta.dirname, "..");
-const SOURCES = ["app", "components", "lib", "db", "auth.ts", "auth.config.ts", "proxy.ts", "instrumentation.ts", "next.config.ts", "postcss.config.mjs", "package-lock.json", "types"];
+const SOURCES = [
+  "app",
+  "components",
+  "lib",
+  "db",
+  "auth.ts",
+  "auth.config.ts",
+  "proxy.ts",
+  "instrumentation.ts",
+  "next.config.ts",
+  "postcss.config.mjs",
+  "package-lock.json",
+  "types",
+];
 
 function newest(p) {
   let st;

@@ -80,8 +80,17 @@ done.push(...(await step(TIERS.lint, TIERS.types, TIERS.build)));
 done.push(...(await step(TIERS.pglite, TIERS.postgres, TIERS.e2e)));
 
 // A failed lint, type check or build counts as one failure each; the test tiers count their tests.
-const counts = [...done.slice(0, 3).map((d) => (d.ok ? null : { passed: 0, failed: 1, skipped: 0 })), vitestCounts(vitestJson), vitestCounts(pgJson), playwrightCounts(e2eJson)].filter(Boolean);
-const total = counts.reduce((a, r) => ({ passed: a.passed + r.passed, failed: a.failed + r.failed, skipped: a.skipped + r.skipped }), { passed: 0, failed: 0, skipped: 0 });
+const counts = [
+  ...done.slice(0, 3).map((d) => (d.ok ? null : { passed: 0, failed: 1, skipped: 0 })),
+  vitestCounts(vitestJson),
+  vitestCounts(pgJson),
+  playwrightCounts(e2eJson),
+].filter(Boolean);
+const total = counts.reduce((a, r) => ({ passed: a.passed + r.passed, failed: a.failed + r.failed, skipped: a.skipped + r.skipped }), {
+  passed: 0,
+  failed: 0,
+  skipped: 0,
+});
 console.log("\n[kerfline test] time per tier (tiers of one step ran side by side)");
 for (const d of done) console.log(`  ${d.tier.label.padEnd(52)} ${d.seconds.toFixed(0).padStart(5)} s  ${d.ok ? "ok" : "FAILED"}`);
 console.log(`  ${"whole run".padEnd(52)} ${((Date.now() - started) / 1000).toFixed(0).padStart(5)} s`);

@@ -12,7 +12,6 @@ import { micrographPaths } from "./files/storage-paths";
 import type { MicrographRow } from "@/db/schema";
 import type { Transform } from "@/lib/geometry/types";
 
-
 /** Longest side the previews are reduced to before correlating: enough detail, quick FFTs. */
 const WORK_SIDE = 1024;
 

@@ -18,7 +18,10 @@ const schema = z.object({
     .regex(/^postgres(ql)?:\/\//, "DATABASE_URL must be a postgres:// URL")
     .optional()
     .or(z.literal("").transform(() => undefined)),
-  SMTP_URL: z.string().optional().or(z.literal("").transform(() => undefined)),
+  SMTP_URL: z
+    .string()
+    .optional()
+    .or(z.literal("").transform(() => undefined)),
   /** Port of the local fake mail server (only when SMTP_URL is unset); 0 = any free port. */
   KERFLINE_SMTP_PORT: z.coerce.number().int().min(0).max(65535).default(0),
   /** First retry delay of the mail outbox; later ones double (tests shorten it). */
@@ -26,21 +29,39 @@ const schema = z.object({
   /** How often the outbox sender looks for due mail. */
   KERFLINE_MAIL_POLL_MS: z.coerce.number().int().positive().default(2_000),
   /** How long an invitation link stays valid (7 days unless a test shortens it). */
-  KERFLINE_INVITATION_TTL_SECONDS: z.coerce.number().int().positive().default(7 * 24 * 3600),
+  KERFLINE_INVITATION_TTL_SECONDS: z.coerce
+    .number()
+    .int()
+    .positive()
+    .default(7 * 24 * 3600),
   /** The origin people reach the app at; used for links in mail and IIIF ids. */
-  KERFLINE_PUBLIC_URL: z.string().url().optional().or(z.literal("").transform(() => undefined)),
+  KERFLINE_PUBLIC_URL: z
+    .string()
+    .url()
+    .optional()
+    .or(z.literal("").transform(() => undefined)),
   /** 1: trust X-Forwarded-Host/-Proto (and Host) from a reverse proxy in front of the app. */
-  KERFLINE_TRUST_PROXY: z.enum(["0", "1", ""]).default("0").transform((v) => v === "1"),
+  KERFLINE_TRUST_PROXY: z
+    .enum(["0", "1", ""])
+    .default("0")
+    .transform((v) => v === "1"),
   /** demo: records and rendered micrographs; demo-records: records only (fast test servers); none. */
   KERFLINE_SEED: z.enum(["demo", "demo-records", "none"]).default("demo"),
-  KERFLINE_MAX_UPLOAD_BYTES: z.coerce.number().int().positive().default(8 * 1024 ** 3),
+  KERFLINE_MAX_UPLOAD_BYTES: z.coerce
+    .number()
+    .int()
+    .positive()
+    .default(8 * 1024 ** 3),
   KERFLINE_MAX_PIXELS: z.coerce.number().int().positive().default(2_500_000_000),
   /** Exports one person may have queued or rendering at once (429 beyond). */
   KERFLINE_EXPORTS_PENDING_PER_USER: z.coerce.number().int().positive().default(10),
   /** Exports one die may have queued or rendering at once, whoever asked (429 beyond). */
   KERFLINE_EXPORTS_PENDING_PER_DIE: z.coerce.number().int().positive().default(20),
   /** Finished exports (file and record) are deleted this many hours after they finished. */
-  KERFLINE_EXPORT_TTL_HOURS: z.coerce.number().positive().default(7 * 24),
+  KERFLINE_EXPORT_TTL_HOURS: z.coerce
+    .number()
+    .positive()
+    .default(7 * 24),
 });
 
 export type Env = z.infer<typeof schema> & { dataDir: string };

@@ -31,12 +31,24 @@ export async function seedDemoMicrographs(db: Database): Promise<void> {
     const tempPath = path.join(incomingDir(), `${crypto.randomUUID()}.part`);
     const render = await renderDemoMicrograph(tempPath, demoMicrographOptions(look));
     const { size } = await fs.stat(tempPath);
-    const m = await ingestMicrograph(db, actor, die.id, { tempPath, bytes: size, format: "jpeg", clientName: `nv24r-${look.replace("_", "-")}.jpg` }, { ...captures[look], illumination: look });
+    const m = await ingestMicrograph(
+      db,
+      actor,
+      die.id,
+      { tempPath, bytes: size, format: "jpeg", clientName: `nv24r-${look.replace("_", "-")}.jpg` },
+      { ...captures[look], illumination: look },
+    );
     if (look === "bright_field") {
       const t = render.imageToDie;
       await db
         .update(micrographs)
-        .set({ transform: [[t[0][0], t[0][1], t[0][2]], [t[1][0], t[1][1], t[1][2]]], scaleUmPerPx: render.umPerPx })
+        .set({
+          transform: [
+            [t[0][0], t[0][1], t[0][2]],
+            [t[1][0], t[1][1], t[1][2]],
+          ],
+          scaleUmPerPx: render.umPerPx,
+        })
         .where(and(eq(micrographs.id, m.id), eq(micrographs.isReference, true)));
     }
   }

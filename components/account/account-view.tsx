@@ -46,7 +46,11 @@ function PasswordForm() {
         New password again
         <input name="repeat" type="password" required minLength={8} maxLength={200} autoComplete="new-password" className={input} />
       </label>
-      {error && <p role="alert" className="text-sm text-danger-400">{error}</p>}
+      {error && (
+        <p role="alert" className="text-sm text-danger-400">
+          {error}
+        </p>
+      )}
       <Button type="submit" variant="primary" disabled={busy} className="self-start">
         Change password
       </Button>
@@ -89,10 +93,14 @@ export function AccountView({ me }: { me: MeDto }) {
       <section aria-label="Sessions" className="flex flex-col gap-3">
         <h2 className="text-base font-semibold">Sessions</h2>
         <p className="text-sm text-ink-300">
-          Ends every session of your account at once — on other computers, in other browsers and here — for example after using a shared machine or losing a laptop. Signing out
-          also ends them all.
+          Ends every session of your account at once — on other computers, in other browsers and here — for example after using a shared machine or losing a
+          laptop. Signing out also ends them all.
         </p>
-        {error && <p role="alert" className="text-sm text-danger-400">{error}</p>}
+        {error && (
+          <p role="alert" className="text-sm text-danger-400">
+            {error}
+          </p>
+        )}
         <Button variant="danger" onClick={everywhere} className="self-start">
           Sign out everywhere
         </Button>

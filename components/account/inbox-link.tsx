@@ -24,7 +24,12 @@ export function InboxLink({ initialUnread }: { initialUnread: number }) {
   const inbox = useInbox();
   const unread = inbox.data ? inbox.data.filter((i) => !i.readAt).length : initialUnread;
   return (
-    <Link href="/inbox" className="flex items-center gap-1.5 rounded px-2 py-1 text-ink-200 hover:bg-ink-800" aria-label={unread ? `Inbox, ${unread} unread` : "Inbox"} data-testid="inbox-link">
+    <Link
+      href="/inbox"
+      className="flex items-center gap-1.5 rounded px-2 py-1 text-ink-200 hover:bg-ink-800"
+      aria-label={unread ? `Inbox, ${unread} unread` : "Inbox"}
+      data-testid="inbox-link"
+    >
       Inbox
       {unread > 0 && (
         <span data-testid="inbox-unread" className="min-w-5 rounded-full bg-kerf-500 px-1.5 text-center text-xs font-semibold leading-5 text-ink-950">

@@ -40,11 +40,20 @@ export function InboxView({ initial }: { initial: InboxItemDto[] }) {
     <section aria-label="Inbox" className="flex max-w-3xl flex-col gap-3">
       <h1 className="text-xl font-semibold">Inbox</h1>
       <p className="text-sm text-ink-300">Mentions, replies on your threads and review events, for you alone. Mail settings do not change what arrives here.</p>
-      {error && <p role="alert" className="text-sm text-danger-400">{error}</p>}
+      {error && (
+        <p role="alert" className="text-sm text-danger-400">
+          {error}
+        </p>
+      )}
       {items.length === 0 && <p className="text-sm text-ink-400">Nothing here yet.</p>}
       <ul className="flex flex-col gap-1.5">
         {items.map((item) => (
-          <li key={item.id} data-testid="inbox-item" data-unread={item.readAt ? undefined : "true"} className={`flex items-start gap-3 rounded-md border p-3 ${item.readAt ? "border-ink-800" : "border-kerf-500/60 bg-ink-900"}`}>
+          <li
+            key={item.id}
+            data-testid="inbox-item"
+            data-unread={item.readAt ? undefined : "true"}
+            className={`flex items-start gap-3 rounded-md border p-3 ${item.readAt ? "border-ink-800" : "border-kerf-500/60 bg-ink-900"}`}
+          >
             <span aria-hidden className={`mt-1.5 size-2 shrink-0 rounded-full ${item.readAt ? "bg-transparent" : "bg-kerf-400"}`} />
             <div className="min-w-0 flex-1">
               <p className="text-xs text-ink-400">

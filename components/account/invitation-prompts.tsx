@@ -10,7 +10,15 @@ import type { MyInvitationDto } from "@/lib/dto/invitations";
 type Prompt = Pick<MyInvitationDto, "id" | "teamName" | "role"> & { inviterName: string | null };
 
 /** One invitation an existing user is asked about: team, role, inviter; join or decline. */
-export function InvitationPrompt({ invitation, onAnswered, onDismiss }: { invitation: Prompt; onAnswered?: (joined: boolean) => void; onDismiss?: () => void }) {
+export function InvitationPrompt({
+  invitation,
+  onAnswered,
+  onDismiss,
+}: {
+  invitation: Prompt;
+  onAnswered?: (joined: boolean) => void;
+  onDismiss?: () => void;
+}) {
   const router = useRouter();
   const [busy, setBusy] = useState(false);
   const [result, setResult] = useState<string | null>(null);
@@ -33,10 +41,16 @@ export function InvitationPrompt({ invitation, onAnswered, onDismiss }: { invita
   };
   const role = ROLE_LABELS[invitation.role].toLowerCase();
   return (
-    <div role="region" aria-label={`Invitation to ${invitation.teamName}`} className="flex flex-wrap items-center gap-3 rounded-md border border-kerf-500/50 bg-ink-900 px-4 py-2.5 text-sm">
+    <div
+      role="region"
+      aria-label={`Invitation to ${invitation.teamName}`}
+      className="flex flex-wrap items-center gap-3 rounded-md border border-kerf-500/50 bg-ink-900 px-4 py-2.5 text-sm"
+    >
       {result ? (
         <>
-          <p role="status" className="text-ink-200">{result}</p>
+          <p role="status" className="text-ink-200">
+            {result}
+          </p>
           {onDismiss && (
             <Button className="ml-auto" onClick={onDismiss}>
               Dismiss
@@ -46,8 +60,8 @@ export function InvitationPrompt({ invitation, onAnswered, onDismiss }: { invita
       ) : (
         <>
           <p className="text-ink-200">
-            <strong className="text-ink-100">{invitation.inviterName ?? "A team owner"}</strong> invited you to join <strong className="text-ink-100">{invitation.teamName}</strong> as{" "}
-            <strong className="text-ink-100">{role}</strong>. You join only if you accept.
+            <strong className="text-ink-100">{invitation.inviterName ?? "A team owner"}</strong> invited you to join{" "}
+            <strong className="text-ink-100">{invitation.teamName}</strong> as <strong className="text-ink-100">{role}</strong>. You join only if you accept.
           </p>
           <div className="ml-auto flex gap-2">
             <Button variant="primary" disabled={busy} onClick={() => answer("accept")}>
@@ -59,7 +73,11 @@ export function InvitationPrompt({ invitation, onAnswered, onDismiss }: { invita
           </div>
         </>
       )}
-      {error && <p role="alert" className="w-full text-danger-400">{error}</p>}
+      {error && (
+        <p role="alert" className="w-full text-danger-400">
+          {error}
+        </p>
+      )}
     </div>
   );
 }

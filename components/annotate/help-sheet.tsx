@@ -3,7 +3,9 @@
 import { Dialog } from "@/components/ui/dialog";
 import { SHORTCUTS } from "./editor/shortcuts";
 
-const Key = ({ k }: { k: string }) => <kbd className="whitespace-nowrap rounded border border-ink-700 bg-ink-800 px-1.5 py-0.5 font-mono text-xs text-ink-100">{k}</kbd>;
+const Key = ({ k }: { k: string }) => (
+  <kbd className="whitespace-nowrap rounded border border-ink-700 bg-ink-800 px-1.5 py-0.5 font-mono text-xs text-ink-100">{k}</kbd>
+);
 
 /**
  * The keyboard help sheet ("?"): a wide dialog with the keys in a column of their own (wrapping

@@ -66,7 +66,16 @@ function Field({ def, shape, editor, readOnly }: { def: FieldDef; shape: AnyShap
   if (def.type === "side") {
     const options = ["", "N", "E", "S", "W"] as const;
     control = (
-      <select id={id} disabled={readOnly} value={value} onChange={(e) => { setValue(e.target.value); commit(e.target.value); }} className={common}>
+      <select
+        id={id}
+        disabled={readOnly}
+        value={value}
+        onChange={(e) => {
+          setValue(e.target.value);
+          commit(e.target.value);
+        }}
+        className={common}
+      >
         {options.map((o) => (
           <option key={o} value={o}>
             {o === "" ? "from the nearest edge" : o}
@@ -75,7 +84,9 @@ function Field({ def, shape, editor, readOnly }: { def: FieldDef; shape: AnyShap
       </select>
     );
   } else if (def.type === "textarea") {
-    control = <textarea id={id} readOnly={readOnly} rows={3} value={value} onChange={(e) => setValue(e.target.value)} onBlur={() => commit(value)} className={common} />;
+    control = (
+      <textarea id={id} readOnly={readOnly} rows={3} value={value} onChange={(e) => setValue(e.target.value)} onBlur={() => commit(value)} className={common} />
+    );
   } else {
     control = (
       <input
@@ -121,7 +132,13 @@ function PadStateField({ shape, editor, readOnly }: { shape: AnyShape; editor: E
       <label htmlFor="inspector-state" className="text-xs text-ink-300">
         State
       </label>
-      <select id="inspector-state" disabled={readOnly} value={value} onChange={(e) => onChange(e.target.value)} className="w-full rounded-md border border-ink-700 bg-ink-950 px-2 py-1 text-sm">
+      <select
+        id="inspector-state"
+        disabled={readOnly}
+        value={value}
+        onChange={(e) => onChange(e.target.value)}
+        className="w-full rounded-md border border-ink-700 bg-ink-950 px-2 py-1 text-sm"
+      >
         <option value="auto">from its wire bonds ({derived})</option>
         {PAD_STATES.map((o) => (
           <option key={o} value={o}>
@@ -144,10 +161,19 @@ function OutsideDie({ shape, editor, canEdit, die }: { shape: AnyShape; editor: 
   const included = shape.kind === "pad" && (shape.properties as PadProperties).numberOutside === true;
   return (
     <div role="alert" className="flex flex-col gap-1 rounded border border-kerf-500/60 bg-ink-950 px-2 py-1.5 text-xs text-kerf-300">
-      <p>This {shape.kind === "pad" ? "pad" : "shape"} lies outside the die outline.{shape.kind === "pad" && !included ? " It is left out of the pad numbering." : ""}</p>
+      <p>
+        This {shape.kind === "pad" ? "pad" : "shape"} lies outside the die outline.
+        {shape.kind === "pad" && !included ? " It is left out of the pad numbering." : ""}
+      </p>
       {shape.kind === "pad" && (
         <label className="flex items-center gap-2 text-ink-200">
-          <input type="checkbox" disabled={!canEdit} checked={included} onChange={(e) => editor.updateProperties(shape.id, { numberOutside: e.target.checked })} className="accent-kerf-500" />
+          <input
+            type="checkbox"
+            disabled={!canEdit}
+            checked={included}
+            onChange={(e) => editor.updateProperties(shape.id, { numberOutside: e.target.checked })}
+            className="accent-kerf-500"
+          />
           Include in the pad numbering
         </label>
       )}
@@ -202,7 +228,19 @@ function PadOne({ editor, shape, canEdit }: { editor: Editor; shape: AnyShape; c
   );
 }
 
-export function Inspector({ editor, selected, canEdit, die = null, umPerPx = null }: { editor: Editor; selected: AnyShape[]; canEdit: boolean; die?: DieSize | null; umPerPx?: number | null }) {
+export function Inspector({
+  editor,
+  selected,
+  canEdit,
+  die = null,
+  umPerPx = null,
+}: {
+  editor: Editor;
+  selected: AnyShape[];
+  canEdit: boolean;
+  die?: DieSize | null;
+  umPerPx?: number | null;
+}) {
   if (selected.length === 0) return <p className="text-sm text-ink-400">Select a shape to see and edit its properties.</p>;
   if (selected.length > 1) return <p className="text-sm text-ink-300">{selected.length} shapes selected. Drag to move them, Delete to remove them.</p>;
   const shape = selected[0];

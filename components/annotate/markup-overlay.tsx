@@ -84,7 +84,8 @@ export function MarkupOverlay({ api, editor, state, imageToDie, hiddenKinds, lab
   }, [state, visibleShapes, labels, size, extraDrawers]);
 
   useEffect(() => {
-    const down = (e: KeyboardEvent) => e.code === "Space" && !(e.target instanceof HTMLInputElement || e.target instanceof HTMLTextAreaElement) && setSpaceHeld(true);
+    const down = (e: KeyboardEvent) =>
+      e.code === "Space" && !(e.target instanceof HTMLInputElement || e.target instanceof HTMLTextAreaElement) && setSpaceHeld(true);
     const up = (e: KeyboardEvent) => e.code === "Space" && setSpaceHeld(false);
     window.addEventListener("keydown", down);
     window.addEventListener("keyup", up);
@@ -137,7 +138,9 @@ export function MarkupOverlay({ api, editor, state, imageToDie, hiddenKinds, lab
           <Shape
             perfectDrawEnabled={false}
             listening={false}
-            sceneFunc={(ctx) => ready() && drawMarkup(ctx._context, visibleShapes, { matrix: matrix.current, pixelRatio: 1, visibleUm: visibleUm(), labels, bboxes, umPerPx })}
+            sceneFunc={(ctx) =>
+              ready() && drawMarkup(ctx._context, visibleShapes, { matrix: matrix.current, pixelRatio: 1, visibleUm: visibleUm(), labels, bboxes, umPerPx })
+            }
           />
           <Shape perfectDrawEnabled={false} listening={false} sceneFunc={(ctx) => ready() && extraDrawers.forEach((d) => d(ctx._context, matrix.current))} />
           <Shape perfectDrawEnabled={false} listening={false} sceneFunc={(ctx) => ready() && drawInteraction(ctx._context, state, matrix.current)} />

@@ -14,11 +14,21 @@ import type { Editor, EditorState } from "./editor/types";
 import { isTypingTarget } from "@/components/viewer/viewer-keys";
 
 /** Shared state of the markup workspace: visibility, labels, picking (select + fly to). */
-export function useMarkupWorkspace(editor: Editor | null, state: EditorState | null, api: ViewerApi | null, transform: Affine2x3 | null, teamId: string, dieId: string) {
+export function useMarkupWorkspace(
+  editor: Editor | null,
+  state: EditorState | null,
+  api: ViewerApi | null,
+  transform: Affine2x3 | null,
+  teamId: string,
+  dieId: string,
+) {
   const [hiddenKinds, setHidden] = useState<ReadonlySet<MarkupKind>>(new Set());
   const [labels, setLabels] = useState(true);
   const [hiddenReview, setHiddenReview] = useState<ReadonlySet<ShapeReviewState>>(new Set());
-  const threads = useQuery({ queryKey: ["threads", dieId], queryFn: () => apiFetch<{ shapeId: string | null; status: "open" | "resolved" }[]>(`/api/dies/${dieId}/threads`) });
+  const threads = useQuery({
+    queryKey: ["threads", dieId],
+    queryFn: () => apiFetch<{ shapeId: string | null; status: "open" | "resolved" }[]>(`/api/dies/${dieId}/threads`),
+  });
   const states = useMemo(() => reviewStates(threads.data ?? []), [threads.data]);
   const isHidden = useCallback((s: AnyShape) => hiddenReview.size > 0 && hiddenReview.has(states.get(s.id) ?? "none"), [hiddenReview, states]);
   const toggleReview = useCallback((r: ShapeReviewState) => {

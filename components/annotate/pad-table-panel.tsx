@@ -12,7 +12,17 @@ import { formatUm } from "@/lib/units/format-um";
  * The pad table: pads numbered counter-clockwise from pad 1 with side, centre, size and pitch;
  * a click on a row selects the pad and flies the viewer to it.
  */
-export function PadTablePanel({ dieId, selection, onPick, umPerPx = null }: { dieId: string; selection: ReadonlySet<string>; onPick: (padId: string) => void; umPerPx?: number | null }) {
+export function PadTablePanel({
+  dieId,
+  selection,
+  onPick,
+  umPerPx = null,
+}: {
+  dieId: string;
+  selection: ReadonlySet<string>;
+  onPick: (padId: string) => void;
+  umPerPx?: number | null;
+}) {
   const num = useMemo(() => (v: number | null) => (v === null ? "—" : formatUm(v, umPerPx)), [umPerPx]);
   const pads = useQuery({ queryKey: ["pads", dieId], queryFn: () => apiFetch<PadTable & { outlineSource: string }>(`/api/dies/${dieId}/pads`), retry: false });
   const columns = useMemo<ColumnDef<PadRow, unknown>[]>(
@@ -22,7 +32,12 @@ export function PadTablePanel({ dieId, selection, onPick, umPerPx = null }: { di
         accessorKey: "label",
         header: "Label",
         cell: (c) => (
-          <button type="button" onClick={() => onPick(c.row.original.id)} className={`text-left font-medium hover:underline ${selection.has(c.row.original.id) ? "text-kerf-300" : "text-ink-100"}`} aria-current={selection.has(c.row.original.id)}>
+          <button
+            type="button"
+            onClick={() => onPick(c.row.original.id)}
+            className={`text-left font-medium hover:underline ${selection.has(c.row.original.id) ? "text-kerf-300" : "text-ink-100"}`}
+            aria-current={selection.has(c.row.original.id)}
+          >
             {c.row.original.label || "(no label)"}
           </button>
         ),
@@ -37,13 +52,19 @@ export function PadTablePanel({ dieId, selection, onPick, umPerPx = null }: { di
     [onPick, selection, num],
   );
   if (pads.isPending) return <p className="text-sm text-ink-400">Loading the pad table…</p>;
-  if (pads.isError) return <p className="text-sm text-ink-400" role="status">{pads.error.message}</p>;
+  if (pads.isError)
+    return (
+      <p className="text-sm text-ink-400" role="status">
+        {pads.error.message}
+      </p>
+    );
   const t = pads.data;
   return (
     <section aria-label="Pad table" className="flex flex-col gap-2">
       <div className="flex items-center justify-between">
         <p className="text-xs text-ink-300">
-          {t.rows.length} pads · N {t.summary.padsPerSide.N} E {t.summary.padsPerSide.E} S {t.summary.padsPerSide.S} W {t.summary.padsPerSide.W} · min pitch {num(t.summary.minPitchUm)} µm
+          {t.rows.length} pads · N {t.summary.padsPerSide.N} E {t.summary.padsPerSide.E} S {t.summary.padsPerSide.S} W {t.summary.padsPerSide.W} · min pitch{" "}
+          {num(t.summary.minPitchUm)} µm
         </p>
         <a href={`/api/dies/${dieId}/pads.csv`} className="text-xs text-kerf-300 hover:underline">
           CSV

@@ -9,11 +9,7 @@ export type Change = { readonly before: AnyShape | null; readonly after: AnyShap
  * with the version the server last gave us, a removed one a DELETE. Returns the server's
  * shapes (to echo into the editor) and the ids it removed.
  */
-export async function persistEntry(
-  dieId: string,
-  entry: readonly Change[],
-  versions: Map<string, number>,
-): Promise<{ saved: AnyShape[]; removed: string[] }> {
+export async function persistEntry(dieId: string, entry: readonly Change[], versions: Map<string, number>): Promise<{ saved: AnyShape[]; removed: string[] }> {
   const saved: AnyShape[] = [];
   const removed: string[] = [];
   const creates = entry.filter((c) => !c.before && c.after).map((c) => c.after!);

@@ -59,7 +59,11 @@ export function ReframeDialog({ editor, state, die, umPerPx }: { editor: Editor;
 export function EditorNotice({ editor, state }: { editor: Editor; state: EditorState }) {
   if (!state.notice) return null;
   return (
-    <div role="status" data-testid="editor-notice" className="absolute left-1/2 top-3 z-10 flex max-w-xl -translate-x-1/2 items-start gap-3 rounded border border-kerf-500/70 bg-ink-900/95 px-3 py-2 text-xs text-ink-100 shadow">
+    <div
+      role="status"
+      data-testid="editor-notice"
+      className="absolute left-1/2 top-3 z-10 flex max-w-xl -translate-x-1/2 items-start gap-3 rounded border border-kerf-500/70 bg-ink-900/95 px-3 py-2 text-xs text-ink-100 shadow"
+    >
       <span>{state.notice}</span>
       <button type="button" onClick={() => editor.dismissNotice()} className="shrink-0 text-ink-300 hover:text-ink-100" aria-label="Dismiss message">
         ✕

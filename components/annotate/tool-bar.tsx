@@ -22,7 +22,13 @@ const KEY_OF = Object.fromEntries(Object.entries(TOOL_KEYS).map(([k, t]) => [t, 
 function SaveIndicator({ save }: { save: SaveState }) {
   const text = { idle: "All changes saved", saving: "Saving…", saved: "Saved", failed: "Not saved" }[save.status];
   return (
-    <span role="status" data-testid="save-state" data-status={save.status} className={`text-xs ${save.status === "failed" ? "text-danger-400" : "text-ink-400"}`} title={save.message}>
+    <span
+      role="status"
+      data-testid="save-state"
+      data-status={save.status}
+      className={`text-xs ${save.status === "failed" ? "text-danger-400" : "text-ink-400"}`}
+      title={save.message}
+    >
       {text}
       {save.status === "failed" && save.message ? `: ${save.message}` : ""}
     </span>
@@ -54,10 +60,20 @@ export function ToolBar({ editor, state, save }: { editor: Editor; state: Editor
       {state.canEdit && (
         <>
           <span className="mx-2 h-4 w-px bg-ink-700" aria-hidden="true" />
-          <button type="button" onClick={() => editor.undo()} disabled={!state.canUndo} className="rounded px-2 py-1 text-xs text-ink-200 hover:bg-ink-800 disabled:text-ink-600">
+          <button
+            type="button"
+            onClick={() => editor.undo()}
+            disabled={!state.canUndo}
+            className="rounded px-2 py-1 text-xs text-ink-200 hover:bg-ink-800 disabled:text-ink-600"
+          >
             Undo
           </button>
-          <button type="button" onClick={() => editor.redo()} disabled={!state.canRedo} className="rounded px-2 py-1 text-xs text-ink-200 hover:bg-ink-800 disabled:text-ink-600">
+          <button
+            type="button"
+            onClick={() => editor.redo()}
+            disabled={!state.canRedo}
+            className="rounded px-2 py-1 text-xs text-ink-200 hover:bg-ink-800 disabled:text-ink-600"
+          >
             Redo
           </button>
         </>

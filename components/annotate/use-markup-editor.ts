@@ -39,7 +39,11 @@ export function useMarkupEditor(dieId: string, canEdit: boolean, userId: string 
     let cancelled = false;
     let unsubscribe = () => {};
     const reloadFrame = async () => {
-      await Promise.all([qc.invalidateQueries({ queryKey: ["micrographs", dieId] }), qc.invalidateQueries({ queryKey: ["die", dieId] }), qc.invalidateQueries({ queryKey: ["pads", dieId] })]);
+      await Promise.all([
+        qc.invalidateQueries({ queryKey: ["micrographs", dieId] }),
+        qc.invalidateQueries({ queryKey: ["die", dieId] }),
+        qc.invalidateQueries({ queryKey: ["pads", dieId] }),
+      ]);
       setGeneration((g) => g + 1);
     };
     const restoreFrame = (undo: FrameUndo) => {

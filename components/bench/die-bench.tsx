@@ -118,26 +118,52 @@ export function DieBench({ initial, userId, linkedThreadId = null }: { initial: 
               onWork={setWork}
               onAligned={() => qc.invalidateQueries({ queryKey: ["micrographs", die.id] })}
               onTopViewer={setApi}
-              overlay={(a, t) => (editor && state ? <MarkupOverlay api={a} editor={editor} state={state} imageToDie={t} hiddenKinds={ws.hiddenKinds} labels={ws.labels} extraDrawers={drawers} isHidden={ws.isHidden} /> : null)}
+              overlay={(a, t) =>
+                editor && state ? (
+                  <MarkupOverlay
+                    api={a}
+                    editor={editor}
+                    state={state}
+                    imageToDie={t}
+                    hiddenKinds={ws.hiddenKinds}
+                    labels={ws.labels}
+                    extraDrawers={drawers}
+                    isHidden={ws.isHidden}
+                  />
+                ) : null
+              }
             />
           ) : (
-          <ViewerPane
-            micrograph={shown}
-            canEdit={editable}
-            onViewer={setApi}
-            overlay={
-              api && editor && state && shown?.transform ? (
-                <MarkupOverlay api={api} editor={editor} state={state} imageToDie={shown.transform} hiddenKinds={ws.hiddenKinds} labels={ws.labels} extraDrawers={drawers} isHidden={ws.isHidden} />
-              ) : null
-            }
-          />
+            <ViewerPane
+              micrograph={shown}
+              canEdit={editable}
+              onViewer={setApi}
+              overlay={
+                api && editor && state && shown?.transform ? (
+                  <MarkupOverlay
+                    api={api}
+                    editor={editor}
+                    state={state}
+                    imageToDie={shown.transform}
+                    hiddenKinds={ws.hiddenKinds}
+                    labels={ws.labels}
+                    extraDrawers={drawers}
+                    isHidden={ws.isHidden}
+                  />
+                ) : null
+              }
+            />
           )}
           {work.kind === "view" && shown && !shown.transform && (
             <p role="status" className="absolute bottom-12 left-1/2 -translate-x-1/2 rounded bg-ink-900/95 px-3 py-1.5 text-xs text-ink-200">
               This micrograph is not in the die frame yet ({shown.scaleUmPerPx ? "align it to the reference" : "calibrate its scale"}); markup shows once it is.
             </p>
           )}
-          {loadError && <p role="alert" className="absolute left-3 top-3 text-sm text-danger-400">{loadError}</p>}
+          {loadError && (
+            <p role="alert" className="absolute left-3 top-3 text-sm text-danger-400">
+              {loadError}
+            </p>
+          )}
           {editor && state && <EditorNotice editor={editor} state={state} />}
         </section>
         <PanelResizer width={panel.width} onResize={panel.resize} />
@@ -150,27 +176,65 @@ export function DieBench({ initial, userId, linkedThreadId = null }: { initial: 
                 label: "Inspect",
                 content: (
                   <div className="flex flex-col gap-5">
-                    {editor && state ? <Inspector editor={editor} selected={[...state.selection].map((id) => state.shapes.get(id)!).filter(Boolean)} canEdit={editable} die={dieSize} umPerPx={umPerPx} /> : <p className="text-sm text-ink-400">Loading markup…</p>}
-                    <Legend hidden={ws.hiddenKinds} onToggle={ws.toggleKind} counts={ws.counts} hiddenReview={ws.hiddenReview} onToggleReview={ws.toggleReview} />
+                    {editor && state ? (
+                      <Inspector
+                        editor={editor}
+                        selected={[...state.selection].map((id) => state.shapes.get(id)!).filter(Boolean)}
+                        canEdit={editable}
+                        die={dieSize}
+                        umPerPx={umPerPx}
+                      />
+                    ) : (
+                      <p className="text-sm text-ink-400">Loading markup…</p>
+                    )}
+                    <Legend
+                      hidden={ws.hiddenKinds}
+                      onToggle={ws.toggleKind}
+                      counts={ws.counts}
+                      hiddenReview={ws.hiddenReview}
+                      onToggleReview={ws.toggleReview}
+                    />
                     <label className="flex items-center gap-2 text-xs text-ink-300">
                       <input type="checkbox" checked={ws.labels} onChange={(e) => ws.setLabels(e.target.checked)} className="accent-kerf-500" /> Show labels
                     </label>
                   </div>
                 ),
               },
-              { id: "pads", label: "Pad table", content: <PadTablePanel dieId={die.id} selection={state?.selection ?? new Set()} onPick={ws.pick} umPerPx={umPerPx} /> },
+              {
+                id: "pads",
+                label: "Pad table",
+                content: <PadTablePanel dieId={die.id} selection={state?.selection ?? new Set()} onPick={ws.pick} umPerPx={umPerPx} />,
+              },
               {
                 id: "markup",
                 label: "Markup",
-                content: editor && state ? <MarkupTablePanel dieId={die.id} shapes={state.shapeList} authors={ws.authors} editor={editor} canEdit={editable} onPick={ws.pick} umPerPx={umPerPx} /> : null,
+                content:
+                  editor && state ? (
+                    <MarkupTablePanel
+                      dieId={die.id}
+                      shapes={state.shapeList}
+                      authors={ws.authors}
+                      editor={editor}
+                      canEdit={editable}
+                      onPick={ws.pick}
+                      umPerPx={umPerPx}
+                    />
+                  ) : null,
               },
               {
                 id: "estimates",
                 label: "Estimates",
-                content: editor && state ? <EstimatesPanel selected={[...state.selection].map((id) => state.shapes.get(id)!).filter(Boolean)} editor={editor} canEdit={editable} /> : null,
+                content:
+                  editor && state ? (
+                    <EstimatesPanel selected={[...state.selection].map((id) => state.shapes.get(id)!).filter(Boolean)} editor={editor} canEdit={editable} />
+                  ) : null,
               },
               { id: "symmetry", label: "Symmetry", content: state ? <SymmetryPanel view={symmetry} shapes={state.shapeList} onPick={ws.pick} /> : null },
-              { id: "summary", label: "Summary", content: state ? <DieSummaryPanel die={die} shapes={state.shapeList} onPick={ws.pick} umPerPx={umPerPx} /> : null },
+              {
+                id: "summary",
+                label: "Summary",
+                content: state ? <DieSummaryPanel die={die} shapes={state.shapeList} onPick={ws.pick} umPerPx={umPerPx} /> : null,
+              },
               {
                 id: "review",
                 label: "Review",
@@ -192,12 +256,26 @@ export function DieBench({ initial, userId, linkedThreadId = null }: { initial: 
                           </Button>
                         )}
                       </div>
-                      {micrographs.isPending ? <p className="text-sm text-ink-400">Loading…</p> : <MicrographList
+                      {micrographs.isPending ? (
+                        <p className="text-sm text-ink-400">Loading…</p>
+                      ) : (
+                        <MicrographList
                           items={micrographs.data ?? []}
                           selectedId={shown?.id ?? null}
-                          onSelect={(id) => { setSelectedId(id); setWork({ kind: "view" }); }}
-                          onRetry={editable ? async (id) => { await apiFetch(`/api/micrographs/${id}/retry`, { method: "POST" }); await qc.invalidateQueries({ queryKey: ["micrographs", die.id] }); } : undefined}
-                        />}
+                          onSelect={(id) => {
+                            setSelectedId(id);
+                            setWork({ kind: "view" });
+                          }}
+                          onRetry={
+                            editable
+                              ? async (id) => {
+                                  await apiFetch(`/api/micrographs/${id}/retry`, { method: "POST" });
+                                  await qc.invalidateQueries({ queryKey: ["micrographs", die.id] });
+                                }
+                              : undefined
+                          }
+                        />
+                      )}
                     </section>
                     <MicrographsManager dieId={die.id} items={list} editable={editable} onWork={setWork} />
                   </div>

@@ -13,7 +13,13 @@ function subscribeStorage(changed: () => void): () => void {
  * and client alike (the server snapshot is null), then React re-renders with the stored width.
  */
 export function useSidePanelWidth() {
-  const stored = parseStoredWidth(useSyncExternalStore(subscribeStorage, () => window.localStorage.getItem(PANEL_WIDTH_KEY), () => null));
+  const stored = parseStoredWidth(
+    useSyncExternalStore(
+      subscribeStorage,
+      () => window.localStorage.getItem(PANEL_WIDTH_KEY),
+      () => null,
+    ),
+  );
   const [dragged, setDragged] = useState<number | null>(null);
   const width = dragged ?? (stored !== null ? clampPanelWidth(stored, window.innerWidth) : DEFAULT_PANEL_WIDTH);
   const resize = (w: number) => {

@@ -23,7 +23,14 @@ export function SideTabs({ tabs, initial }: { tabs: { id: string; label: string;
         ))}
       </div>
       {tabs.map((t) => (
-        <div key={t.id} role="tabpanel" id={`panel-${t.id}`} aria-labelledby={`tab-${t.id}`} hidden={active !== t.id} className="min-h-0 flex-1 overflow-y-auto p-4">
+        <div
+          key={t.id}
+          role="tabpanel"
+          id={`panel-${t.id}`}
+          aria-labelledby={`tab-${t.id}`}
+          hidden={active !== t.id}
+          className="min-h-0 flex-1 overflow-y-auto p-4"
+        >
           {active === t.id && t.content}
         </div>
       ))}

@@ -17,7 +17,17 @@ function sourceOf(m: MicrographDto): MicrographSource | null {
  * The work area: the selected micrograph in the viewer (its preview while the pyramid is
  * built), with the two-point calibration tool for those who may edit.
  */
-export function ViewerPane({ micrograph, canEdit, onViewer, overlay }: { micrograph: MicrographDto | null; canEdit: boolean; onViewer?: (api: ViewerApi | null) => void; overlay?: React.ReactNode }) {
+export function ViewerPane({
+  micrograph,
+  canEdit,
+  onViewer,
+  overlay,
+}: {
+  micrograph: MicrographDto | null;
+  canEdit: boolean;
+  onViewer?: (api: ViewerApi | null) => void;
+  overlay?: React.ReactNode;
+}) {
   const qc = useQueryClient();
   const [api, setApi] = useState<ViewerApi | null>(null);
   const [calibrating, setCalibrating] = useState(false);
@@ -25,7 +35,15 @@ export function ViewerPane({ micrograph, canEdit, onViewer, overlay }: { microgr
   if (!micrograph) return <Empty text="No micrographs on this die yet. Upload one to start reading it." />;
   const source = sourceOf(micrograph);
   if (!source || !micrograph.width || !micrograph.height) {
-    return <Empty text={micrograph.status === "failed" ? `This micrograph could not be tiled: ${micrograph.error}` : `Preparing “${micrograph.label}”… ${micrograph.progress} %`} />;
+    return (
+      <Empty
+        text={
+          micrograph.status === "failed"
+            ? `This micrograph could not be tiled: ${micrograph.error}`
+            : `Preparing “${micrograph.label}”… ${micrograph.progress} %`
+        }
+      />
+    );
   }
   return (
     <div className="relative h-full w-full">

@@ -29,9 +29,13 @@ export function AlignmentWorkspace({ moving, fixed, onDone }: { moving: Microgra
     if (!source || !m.width || !m.height) return <p className="p-4 text-sm text-ink-400">“{m.label}” is still being prepared.</p>;
     return (
       <div className="relative min-w-0 flex-1" data-testid={`align-${side}`} data-micrograph-id={m.id}>
-        <p className="pointer-events-none absolute left-1/2 top-2 z-20 -translate-x-1/2 rounded bg-ink-900/90 px-2 py-0.5 text-xs text-ink-200">{side === "left" ? `New: ${m.label}` : `Aligned: ${m.label}`}</p>
+        <p className="pointer-events-none absolute left-1/2 top-2 z-20 -translate-x-1/2 rounded bg-ink-900/90 px-2 py-0.5 text-xs text-ink-200">
+          {side === "left" ? `New: ${m.label}` : `Aligned: ${m.label}`}
+        </p>
         <MicrographViewer source={source} imageWidth={m.width} imageHeight={m.height} umPerPx={m.scaleUmPerPx} transform={m.transform} onReady={set}>
-          {api && <PairMarkers api={api} side={side} markers={marks} onMove={(n, p) => (n <= session.pairs.length ? session.move(n - 1, side, p) : undefined)} />}
+          {api && (
+            <PairMarkers api={api} side={side} markers={marks} onMove={(n, p) => (n <= session.pairs.length ? session.move(n - 1, side, p) : undefined)} />
+          )}
         </MicrographViewer>
       </div>
     );

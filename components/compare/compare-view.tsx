@@ -22,12 +22,32 @@ type Props = {
   onTopViewer?: (api: ViewerApi | null) => void;
 };
 
-function Pane({ m, onApi, children, style, testId }: { m: MicrographDto; onApi: (a: ViewerApi) => void; children?: ReactNode; style?: React.CSSProperties; testId: string }) {
+function Pane({
+  m,
+  onApi,
+  children,
+  style,
+  testId,
+}: {
+  m: MicrographDto;
+  onApi: (a: ViewerApi) => void;
+  children?: ReactNode;
+  style?: React.CSSProperties;
+  testId: string;
+}) {
   const source = sourceOf(m);
   if (!source || !m.width || !m.height) return <p className="p-4 text-sm text-ink-400">“{m.label}” is still being prepared.</p>;
   return (
     <div className="absolute inset-0" style={style} data-testid={testId} data-micrograph-id={m.id}>
-      <MicrographViewer source={source} imageWidth={m.width} imageHeight={m.height} umPerPx={m.scaleUmPerPx} transform={m.transform} onReady={onApi} drawer="canvas">
+      <MicrographViewer
+        source={source}
+        imageWidth={m.width}
+        imageHeight={m.height}
+        umPerPx={m.scaleUmPerPx}
+        transform={m.transform}
+        onReady={onApi}
+        drawer="canvas"
+      >
         {children}
       </MicrographViewer>
     </div>
@@ -68,12 +88,21 @@ export function CompareView({ top, bottom, mode, overlay, onTopViewer }: Props) 
     <div className="flex h-full w-full flex-col">
       <div className="flex items-center gap-4 border-b border-ink-800 bg-ink-900 px-3 py-1.5 text-xs text-ink-300">
         <span>
-          {stacked ? "Top" : "Left"}: <strong className="text-ink-100">{top.label}</strong> · {stacked ? "Below" : "Right"}: <strong className="text-ink-100">{bottom.label}</strong>
+          {stacked ? "Top" : "Left"}: <strong className="text-ink-100">{top.label}</strong> · {stacked ? "Below" : "Right"}:{" "}
+          <strong className="text-ink-100">{bottom.label}</strong>
         </span>
         {mode === "blend" && (
           <label className="flex items-center gap-2">
             Opacity of the top one
-            <input type="range" min={0} max={100} value={Math.round(opacity * 100)} onChange={(e) => setOpacity(Number(e.target.value) / 100)} aria-label="Blend opacity" className="accent-kerf-500" />
+            <input
+              type="range"
+              min={0}
+              max={100}
+              value={Math.round(opacity * 100)}
+              onChange={(e) => setOpacity(Number(e.target.value) / 100)}
+              aria-label="Blend opacity"
+              className="accent-kerf-500"
+            />
             <output>{Math.round(opacity * 100)} %</output>
             <span className="text-ink-400">(F flips between the two)</span>
           </label>

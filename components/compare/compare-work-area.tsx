@@ -44,7 +44,13 @@ export function CompareWorkArea({ work, items, onWork, onAligned, overlay, onTop
     <div className="flex h-full flex-col">
       <div className="flex items-center gap-1.5 border-b border-ink-800 bg-ink-900 px-3 py-1">
         {(Object.keys(COMPARE_MODE_LABELS) as CompareMode[]).map((mode) => (
-          <Button key={mode} variant={mode === work.mode ? "primary" : "secondary"} className="px-2 py-0.5 text-xs" aria-pressed={mode === work.mode} onClick={() => onWork({ ...work, mode })}>
+          <Button
+            key={mode}
+            variant={mode === work.mode ? "primary" : "secondary"}
+            className="px-2 py-0.5 text-xs"
+            aria-pressed={mode === work.mode}
+            onClick={() => onWork({ ...work, mode })}
+          >
             {COMPARE_MODE_LABELS[mode]}
           </Button>
         ))}
@@ -57,7 +63,14 @@ export function CompareWorkArea({ work, items, onWork, onAligned, overlay, onTop
       </div>
       <div className="min-h-0 flex-1">
         {/* Side by side and stacked hold different viewers: a new view (and viewer APIs) for each. */}
-        <CompareView key={`${top.id}-${bottom.id}-${work.mode === "side_by_side" ? "pair" : "stack"}`} top={top} bottom={bottom} mode={work.mode} overlay={overlay} onTopViewer={onTopViewer} />
+        <CompareView
+          key={`${top.id}-${bottom.id}-${work.mode === "side_by_side" ? "pair" : "stack"}`}
+          top={top}
+          bottom={bottom}
+          mode={work.mode}
+          overlay={overlay}
+          onTopViewer={onTopViewer}
+        />
       </div>
     </div>
   );

@@ -52,22 +52,34 @@ export function MicrographsManager({ dieId, items, editable, onWork }: Props) {
           <li key={m.id} className="flex flex-wrap items-center gap-1.5 rounded border border-ink-800 p-1.5" data-testid={`manage-${m.id}`}>
             <span className="min-w-[8rem] flex-1 break-words text-ink-100" title={m.label}>
               {m.label}{" "}
-              <span className={m.isReference ? "text-kerf-300" : m.transform ? "text-ok-400" : "text-ink-400"}>{m.isReference ? "reference" : m.transform ? "in die frame" : "not aligned"}</span>
+              <span className={m.isReference ? "text-kerf-300" : m.transform ? "text-ok-400" : "text-ink-400"}>
+                {m.isReference ? "reference" : m.transform ? "in die frame" : "not aligned"}
+              </span>
             </span>
             {editable && (
               <>
-                <Button className="px-1.5 py-0.5 text-xs" disabled={i === 0} onClick={() => move(i, -1)} aria-label={`Move ${m.label} up`}>↑</Button>
-                <Button className="px-1.5 py-0.5 text-xs" disabled={i === items.length - 1} onClick={() => move(i, 1)} aria-label={`Move ${m.label} down`}>↓</Button>
-                <Button className="px-1.5 py-0.5 text-xs" onClick={() => rename(m)}>Rename</Button>
+                <Button className="px-1.5 py-0.5 text-xs" disabled={i === 0} onClick={() => move(i, -1)} aria-label={`Move ${m.label} up`}>
+                  ↑
+                </Button>
+                <Button className="px-1.5 py-0.5 text-xs" disabled={i === items.length - 1} onClick={() => move(i, 1)} aria-label={`Move ${m.label} down`}>
+                  ↓
+                </Button>
+                <Button className="px-1.5 py-0.5 text-xs" onClick={() => rename(m)}>
+                  Rename
+                </Button>
                 {fixedFor(m) && m.status === "ready" && (
                   <Button className="px-1.5 py-0.5 text-xs" onClick={() => onWork({ kind: "align", movingId: m.id, fixedId: fixedFor(m)!.id })}>
                     {m.transform ? "Re-align" : "Align"}
                   </Button>
                 )}
                 {!m.isReference && m.transform && (
-                  <Button className="px-1.5 py-0.5 text-xs" onClick={() => run(() => apiFetch(`/api/micrographs/${m.id}/reference`, { method: "PUT" }))}>Make reference</Button>
+                  <Button className="px-1.5 py-0.5 text-xs" onClick={() => run(() => apiFetch(`/api/micrographs/${m.id}/reference`, { method: "PUT" }))}>
+                    Make reference
+                  </Button>
                 )}
-                <Button variant="danger" className="px-1.5 py-0.5 text-xs" onClick={() => setDeleting(m)}>Delete</Button>
+                <Button variant="danger" className="px-1.5 py-0.5 text-xs" onClick={() => setDeleting(m)}>
+                  Delete
+                </Button>
               </>
             )}
           </li>
@@ -77,26 +89,59 @@ export function MicrographsManager({ dieId, items, editable, onWork }: Props) {
         <div className="flex flex-col gap-2 rounded border border-ink-800 p-2">
           <label className="flex items-center gap-2">
             First
-            <select aria-label="First micrograph" value={top} onChange={(e) => { const top = e.target.value; setPick((p) => ({ ...p, top })); }} className="min-w-0 flex-1 rounded bg-ink-800 px-1 py-0.5">
-              {aligned.map((m) => <option key={m.id} value={m.id}>{m.label}</option>)}
+            <select
+              aria-label="First micrograph"
+              value={top}
+              onChange={(e) => {
+                const top = e.target.value;
+                setPick((p) => ({ ...p, top }));
+              }}
+              className="min-w-0 flex-1 rounded bg-ink-800 px-1 py-0.5"
+            >
+              {aligned.map((m) => (
+                <option key={m.id} value={m.id}>
+                  {m.label}
+                </option>
+              ))}
             </select>
           </label>
           <label className="flex items-center gap-2">
             Second
-            <select aria-label="Second micrograph" value={bottom} onChange={(e) => { const bottom = e.target.value; setPick((p) => ({ ...p, bottom })); }} className="min-w-0 flex-1 rounded bg-ink-800 px-1 py-0.5">
-              {aligned.map((m) => <option key={m.id} value={m.id}>{m.label}</option>)}
+            <select
+              aria-label="Second micrograph"
+              value={bottom}
+              onChange={(e) => {
+                const bottom = e.target.value;
+                setPick((p) => ({ ...p, bottom }));
+              }}
+              className="min-w-0 flex-1 rounded bg-ink-800 px-1 py-0.5"
+            >
+              {aligned.map((m) => (
+                <option key={m.id} value={m.id}>
+                  {m.label}
+                </option>
+              ))}
             </select>
           </label>
           <div className="flex gap-1.5">
             {(Object.keys(COMPARE_MODE_LABELS) as CompareMode[]).map((mode) => (
-              <Button key={mode} className="px-2 py-0.5 text-xs" disabled={top === bottom} onClick={() => onWork({ kind: "compare", topId: top, bottomId: bottom, mode })}>
+              <Button
+                key={mode}
+                className="px-2 py-0.5 text-xs"
+                disabled={top === bottom}
+                onClick={() => onWork({ kind: "compare", topId: top, bottomId: bottom, mode })}
+              >
                 {COMPARE_MODE_LABELS[mode]}
               </Button>
             ))}
           </div>
         </div>
       )}
-      {error && <p role="alert" className="text-danger-400">{error}</p>}
+      {error && (
+        <p role="alert" className="text-danger-400">
+          {error}
+        </p>
+      )}
       <ConfirmDialog
         open={!!deleting}
         title="Delete this micrograph?"

@@ -8,7 +8,17 @@ export type Marker = { readonly n: number; readonly imagePx: readonly [number, n
  * Numbered control-point marks over one viewer, redrawn with the view. Each mark can be
  * dragged (pointer capture) to move its point; onMove gets the new image px.
  */
-export function PairMarkers({ api, side, markers, onMove }: { api: ViewerApi; side: "left" | "right"; markers: readonly Marker[]; onMove?: (n: number, p: [number, number]) => void }) {
+export function PairMarkers({
+  api,
+  side,
+  markers,
+  onMove,
+}: {
+  api: ViewerApi;
+  side: "left" | "right";
+  markers: readonly Marker[];
+  onMove?: (n: number, p: [number, number]) => void;
+}) {
   useViewVersion(api);
   const toImage = (e: React.PointerEvent) => {
     const r = api.viewer.element.getBoundingClientRect();

@@ -6,7 +6,17 @@ import type { KeyboardEvent, PointerEvent, RefObject } from "react";
  * The draggable line of the swipe mode, as a slider for keyboards and screen readers too
  * (arrow keys move it 2 %). `value` is the fraction of the width (or height) left of (above) it.
  */
-export function SwipeDivider({ host, value, vertical, onChange }: { host: RefObject<HTMLDivElement | null>; value: number; vertical: boolean; onChange: (v: number) => void }) {
+export function SwipeDivider({
+  host,
+  value,
+  vertical,
+  onChange,
+}: {
+  host: RefObject<HTMLDivElement | null>;
+  value: number;
+  vertical: boolean;
+  onChange: (v: number) => void;
+}) {
   const fromPointer = (e: PointerEvent<HTMLDivElement>) => {
     const r = host.current?.getBoundingClientRect();
     if (!r) return;

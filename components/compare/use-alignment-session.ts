@@ -90,7 +90,8 @@ export function useAlignmentSession(movingId: string, fixedToDie: Affine2x3) {
       setPairs([...list, { imagePx: pending, fixedPx: p }]);
       setPending(null);
     },
-    move: (i: number, side: "left" | "right", p: [number, number]) => setPairs(list.map((q, k) => (k !== i ? q : side === "left" ? { ...q, imagePx: p } : { ...q, fixedPx: p }))),
+    move: (i: number, side: "left" | "right", p: [number, number]) =>
+      setPairs(list.map((q, k) => (k !== i ? q : side === "left" ? { ...q, imagePx: p } : { ...q, fixedPx: p }))),
     remove: (i: number) => setPairs(list.filter((_, k) => k !== i)),
     cancelPending: () => setPending(null),
   };

@@ -19,7 +19,11 @@ function applyLock(leader: ViewerApi, leaderT: Affine2x3, follower: ViewerApi, f
   const centre = { x: size.x / 2, y: size.y / 2 };
   const p = leader.screenToImage(centre.x, centre.y);
   if (!Number.isFinite(p.x)) return;
-  const want = followerView(leaderT, followerT, { imagePoint: [p.x, p.y], imageZoom: leader.imageZoom(), rotationDeg: leader.viewer.viewport.getRotation(true) });
+  const want = followerView(leaderT, followerT, {
+    imagePoint: [p.x, p.y],
+    imageZoom: leader.imageZoom(),
+    rotationDeg: leader.viewer.viewport.getRotation(true),
+  });
   vp.setRotation(want.rotationDeg, true);
   const now = follower.imageZoom();
   // No reference point: zoomTo then keeps the viewport centre, which is re-set just below.

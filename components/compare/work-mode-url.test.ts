@@ -23,10 +23,20 @@ describe("work mode in the URL", () => {
   });
 
   it("keeps an alignment session's pairs, pending point, model and mirrored flag", () => {
-    const s = { pairs: [{ imagePx: [10.123, 20] as [number, number], fixedPx: [30, 40.5] as [number, number] }], pending: [5, 6] as [number, number], model: "affine" as const, mirrored: true };
+    const s = {
+      pairs: [{ imagePx: [10.123, 20] as [number, number], fixedPx: [30, 40.5] as [number, number] }],
+      pending: [5, 6] as [number, number],
+      model: "affine" as const,
+      mirrored: true,
+    };
     const p = paramsWithSession(paramsWithWorkMode(new URLSearchParams(), { kind: "align", movingId: A, fixedId: B }), s);
     expect(sessionFromParams(new URLSearchParams(p.toString()))).toEqual({ ...s, pairs: [{ imagePx: [10.12, 20], fixedPx: [30, 40.5] }] });
-    expect(sessionFromParams(paramsWithSession(p, { pairs: [], pending: null, model: null, mirrored: false }))).toEqual({ pairs: [], pending: null, model: null, mirrored: false });
+    expect(sessionFromParams(paramsWithSession(p, { pairs: [], pending: null, model: null, mirrored: false }))).toEqual({
+      pairs: [],
+      pending: null,
+      model: null,
+      mirrored: false,
+    });
   });
 
   it("ignores a session that is absent or malformed", () => {

@@ -16,7 +16,8 @@ export function workModeFromParams(p: URLSearchParams): WorkMode {
   const id = (k: string) => (ID.test(p.get(k) ?? "") ? p.get(k)! : null);
   if (p.get("work") === "align" && id("moving") && id("fixed")) return { kind: "align", movingId: id("moving")!, fixedId: id("fixed")! };
   const mode = p.get("mode") as CompareMode;
-  if (p.get("work") === "compare" && id("top") && id("bottom") && MODES.includes(mode)) return { kind: "compare", topId: id("top")!, bottomId: id("bottom")!, mode };
+  if (p.get("work") === "compare" && id("top") && id("bottom") && MODES.includes(mode))
+    return { kind: "compare", topId: id("top")!, bottomId: id("bottom")!, mode };
   return { kind: "view" };
 }
 
@@ -64,7 +65,12 @@ export function sessionFromParams(p: URLSearchParams): SessionInUrl | null {
   }
   const pend = p.get("pending") ? nums(p.get("pending")!, 2) : null;
   const model = p.get("model");
-  return { pairs, pending: pend ? [pend[0], pend[1]] : null, model: model === "affine" || model === "similarity" ? model : null, mirrored: p.get("mirrored") === "1" };
+  return {
+    pairs,
+    pending: pend ? [pend[0], pend[1]] : null,
+    model: model === "affine" || model === "similarity" ? model : null,
+    mirrored: p.get("mirrored") === "1",
+  };
 }
 
 /** `params` with the session written in. */

@@ -110,7 +110,8 @@ export function ExportPanel({ die, micrographs, api, shownId }: { die: DieDto; m
               <legend>Region</legend>
               {(["view", "die", "typed"] as const).map((r) => (
                 <label key={r} className="mr-3">
-                  <input type="radio" name="region" checked={mode === r} onChange={() => setMode(r)} /> {r === "view" ? "Current view" : r === "die" ? "Whole die" : "Rectangle (µm)"}
+                  <input type="radio" name="region" checked={mode === r} onChange={() => setMode(r)} />{" "}
+                  {r === "view" ? "Current view" : r === "die" ? "Whole die" : "Rectangle (µm)"}
                 </label>
               ))}
             </fieldset>
@@ -119,7 +120,13 @@ export function ExportPanel({ die, micrographs, api, shownId }: { die: DieDto; m
                 {(["x", "y", "width", "height"] as const).map((k) => (
                   <label key={k}>
                     {k}
-                    <input aria-label={`Region ${k} (µm)`} className={field} type="number" value={typed[k]} onChange={(e) => setTyped({ ...typed, [k]: num(e.target.value) })} />
+                    <input
+                      aria-label={`Region ${k} (µm)`}
+                      className={field}
+                      type="number"
+                      value={typed[k]}
+                      onChange={(e) => setTyped({ ...typed, [k]: num(e.target.value) })}
+                    />
                   </label>
                 ))}
               </div>
@@ -127,18 +134,40 @@ export function ExportPanel({ die, micrographs, api, shownId }: { die: DieDto; m
             <div className="flex items-end gap-2 text-xs">
               <label>
                 <input type="radio" name="size" checked={sizeBy === "width"} onChange={() => setSizeBy("width")} /> Width (px)
-                <input aria-label="Output width (px)" className={field} type="number" min={16} max={16384} value={widthPx} disabled={sizeBy !== "width"} onChange={(e) => setWidthPx(num(e.target.value))} />
+                <input
+                  aria-label="Output width (px)"
+                  className={field}
+                  type="number"
+                  min={16}
+                  max={16384}
+                  value={widthPx}
+                  disabled={sizeBy !== "width"}
+                  onChange={(e) => setWidthPx(num(e.target.value))}
+                />
               </label>
               <label>
                 <input type="radio" name="size" checked={sizeBy === "scale"} onChange={() => setSizeBy("scale")} /> Scale (µm/px)
-                <input aria-label="Output scale (µm per pixel)" className={field} type="number" step="any" value={umPerPx} disabled={sizeBy !== "scale"} onChange={(e) => setUmPerPx(num(e.target.value))} />
+                <input
+                  aria-label="Output scale (µm per pixel)"
+                  className={field}
+                  type="number"
+                  step="any"
+                  value={umPerPx}
+                  disabled={sizeBy !== "scale"}
+                  onChange={(e) => setUmPerPx(num(e.target.value))}
+                />
               </label>
             </div>
             <fieldset className="flex flex-wrap gap-x-3 text-xs">
               <legend>Markup shown</legend>
               {MARKUP_KINDS.map((k) => (
                 <label key={k}>
-                  <input type="checkbox" checked={kinds.has(k)} onChange={(e) => setKinds((s) => (e.target.checked ? new Set([...s, k]) : new Set([...s].filter((x) => x !== k))))} /> <span style={{ color: KIND_STYLE[k].colour }}>■</span> {KIND_STYLE[k].label}
+                  <input
+                    type="checkbox"
+                    checked={kinds.has(k)}
+                    onChange={(e) => setKinds((s) => (e.target.checked ? new Set([...s, k]) : new Set([...s].filter((x) => x !== k))))}
+                  />{" "}
+                  <span style={{ color: KIND_STYLE[k].colour }}>■</span> {KIND_STYLE[k].label}
                 </label>
               ))}
             </fieldset>
@@ -163,10 +192,18 @@ export function ExportPanel({ die, micrographs, api, shownId }: { die: DieDto; m
       </section>
       <section aria-label="Downloads" className="space-y-1 text-xs">
         <h3 className="font-semibold uppercase tracking-wide text-ink-400">Tables and report</h3>
-        <a className="mr-3 underline" href={`/api/dies/${die.id}/pads.csv`}>Pad table (CSV)</a>
-        <a className="mr-3 underline" href={`/api/dies/${die.id}/markup.csv`}>Markup table (CSV)</a>
-        <a className="mr-3 underline" href={`/api/dies/${die.id}/markup.geojson`}>Markup (GeoJSON)</a>
-        <a className="underline" href={`/api/dies/${die.id}/report.pdf`}>Die report (PDF)</a>
+        <a className="mr-3 underline" href={`/api/dies/${die.id}/pads.csv`}>
+          Pad table (CSV)
+        </a>
+        <a className="mr-3 underline" href={`/api/dies/${die.id}/markup.csv`}>
+          Markup table (CSV)
+        </a>
+        <a className="mr-3 underline" href={`/api/dies/${die.id}/markup.geojson`}>
+          Markup (GeoJSON)
+        </a>
+        <a className="underline" href={`/api/dies/${die.id}/report.pdf`}>
+          Die report (PDF)
+        </a>
       </section>
       <RecentExports list={list.data ?? []} />
       {(die.yourRole === "owner" || die.yourRole === "analyst") && <ImportGeojson dieId={die.id} />}
@@ -200,7 +237,13 @@ function ExportPreview({ dieId, formKey, body, onRefresh }: { dieId: string; for
       {p ? (
         // A data: URL rendered on request, not a static asset: next/image has nothing to optimise.
         // eslint-disable-next-line @next/next/no-img-element
-        <img src={`data:image/png;base64,${p.png}`} alt="Preview of the annotated PNG" width={p.previewWidth} height={p.previewHeight} className={`h-auto w-full ${preview.isFetching ? "opacity-60" : ""}`} />
+        <img
+          src={`data:image/png;base64,${p.png}`}
+          alt="Preview of the annotated PNG"
+          width={p.previewWidth}
+          height={p.previewHeight}
+          className={`h-auto w-full ${preview.isFetching ? "opacity-60" : ""}`}
+        />
       ) : (
         <div className="flex h-32 items-center justify-center text-ink-500">{preview.isError ? "No preview" : "Rendering preview…"}</div>
       )}
@@ -218,11 +261,12 @@ function ExportPreview({ dieId, formKey, body, onRefresh }: { dieId: string; for
           {(preview.error as Error).message}
         </p>
       )}
-      {!preview.isError && p?.warnings.map((w) => (
-        <p key={w} className="text-amber-300">
-          {w}
-        </p>
-      ))}
+      {!preview.isError &&
+        p?.warnings.map((w) => (
+          <p key={w} className="text-amber-300">
+            {w}
+          </p>
+        ))}
     </figure>
   );
 }
@@ -259,7 +303,14 @@ function RecentExports({ list }: { list: ExportDto[] }) {
       <ul className="space-y-1">
         {list.map((e) => (
           <li key={e.id}>
-            {e.fileUrl ? <a className="underline" href={e.fileUrl}>{e.fileName}</a> : <span>{e.status}</span>} · {e.result ? `${e.result.width} × ${e.result.height} px` : ""} · {e.createdByName ?? ""} · {e.createdAt.slice(0, 16).replace("T", " ")}
+            {e.fileUrl ? (
+              <a className="underline" href={e.fileUrl}>
+                {e.fileName}
+              </a>
+            ) : (
+              <span>{e.status}</span>
+            )}{" "}
+            · {e.result ? `${e.result.width} × ${e.result.height} px` : ""} · {e.createdByName ?? ""} · {e.createdAt.slice(0, 16).replace("T", " ")}
           </li>
         ))}
       </ul>

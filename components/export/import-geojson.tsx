@@ -44,12 +44,21 @@ export function ImportGeojson({ dieId }: { dieId: string }) {
   return (
     <section className="space-y-2" aria-label="Import GeoJSON">
       <h3 className="text-xs font-semibold uppercase tracking-wide text-ink-400">Import markup (GeoJSON)</h3>
-      <input type="file" accept=".geojson,.json,application/geo+json,application/json" aria-label="GeoJSON file" onChange={(e) => pick(e.target.files?.[0])} className="block w-full text-xs text-ink-300" />
+      <input
+        type="file"
+        accept=".geojson,.json,application/geo+json,application/json"
+        aria-label="GeoJSON file"
+        onChange={(e) => pick(e.target.files?.[0])}
+        className="block w-full text-xs text-ink-300"
+      />
       {preview && (
         <div className="rounded border border-ink-700 p-2 text-xs text-ink-200" data-testid="import-preview">
           <p>
-            Would add {preview.total} shapes: {Object.entries(preview.counts).map(([k, n]) => `${n} ${k.replace("_", " ")}`).join(", ")}.
-            {preview.unlinkedWireBonds > 0 && ` ${preview.unlinkedWireBonds} wire bonds name a pad not in the file and lose that link.`}
+            Would add {preview.total} shapes:{" "}
+            {Object.entries(preview.counts)
+              .map(([k, n]) => `${n} ${k.replace("_", " ")}`)
+              .join(", ")}
+            .{preview.unlinkedWireBonds > 0 && ` ${preview.unlinkedWireBonds} wire bonds name a pad not in the file and lose that link.`}
           </p>
           <Button onClick={run}>Import {preview.total} shapes</Button>
         </div>

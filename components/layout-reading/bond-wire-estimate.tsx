@@ -26,7 +26,16 @@ export function BondWireEstimate({ shape, editor, canEdit }: { shape: Shape<"wir
         <ReadOnlyValue label="Wire diameter (inspector)" value={`${diameterUm} µm`} />
         <NumberInput id="bond-count" label="Bonds in parallel" value={count} onChange={setCount} />
         <NumberInput id="bond-pitch" label="Pitch" unit="µm" value={pitch} onChange={setPitch} disabled={!(n > 1)} />
-        <SelectInput id="bond-regime" label="Current distribution" value={regime} onChange={setRegime} options={[["dc", "uniform (low frequency)"], ["hf", "on the surface (high frequency)"]]} />
+        <SelectInput
+          id="bond-regime"
+          label="Current distribution"
+          value={regime}
+          onChange={setRegime}
+          options={[
+            ["dc", "uniform (low frequency)"],
+            ["hf", "on the surface (high frequency)"],
+          ]}
+        />
       </div>
       <EstimateResult title="Round wire in free space" outcome={outcome} testId="bond-wire" />
       <SaveEstimate editor={editor} shape={shape} kind="bond-wire" inputs={inputs} outcome={outcome} canEdit={canEdit} />

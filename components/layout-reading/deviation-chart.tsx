@@ -24,11 +24,23 @@ export function DeviationChart({ deviations, toleranceUm, fullScaleUm }: { devia
   const fmt = (v: number) => v.toFixed(d);
   const tolX = Number.isFinite(toleranceUm) && toleranceUm >= lo && toleranceUm <= hi ? x(toleranceUm) : null;
   return (
-    <svg viewBox={`0 0 ${W} ${H}`} role="img" aria-label={`Histogram of ${deviations.length} pair deviations from ${fmt(lo)} to ${fmt(hi)} µm`} className="w-full">
+    <svg
+      viewBox={`0 0 ${W} ${H}`}
+      role="img"
+      aria-label={`Histogram of ${deviations.length} pair deviations from ${fmt(lo)} to ${fmt(hi)} µm`}
+      className="w-full"
+    >
       <line x1={PAD.left} y1={H - PAD.bottom} x2={W - PAD.right} y2={H - PAD.bottom} stroke="#3c444c" />
       <line x1={PAD.left} y1={PAD.top} x2={PAD.left} y2={H - PAD.bottom} stroke="#3c444c" />
       {bins.map((b) => (
-        <rect key={b.fromUm} x={x(b.fromUm) + 1} y={y(b.count)} width={Math.max(1, x(b.toUm) - x(b.fromUm) - 2)} height={H - PAD.bottom - y(b.count)} fill={deviationColour((b.fromUm + b.toUm) / 2, fullScaleUm)}>
+        <rect
+          key={b.fromUm}
+          x={x(b.fromUm) + 1}
+          y={y(b.count)}
+          width={Math.max(1, x(b.toUm) - x(b.fromUm) - 2)}
+          height={H - PAD.bottom - y(b.count)}
+          fill={deviationColour((b.fromUm + b.toUm) / 2, fullScaleUm)}
+        >
           <title>{`${fmt(b.fromUm)}–${fmt(b.toUm)} µm: ${b.count} pair${b.count === 1 ? "" : "s"}`}</title>
         </rect>
       ))}

@@ -16,8 +16,17 @@ import { runEstimate } from "./estimate-result";
 import { NumberInput, parseNumber, SelectInput } from "./fields";
 
 const WAFERS_MM = [150, 200, 300] as const;
-const MODEL_NAMES: Record<YieldModel, string> = { poisson: "Poisson", murphy: "Murphy", "negative-binomial": "negative binomial (α)", "bose-einstein": "Bose–Einstein (N)" };
-const SOURCE_TEXT = { die_outline: "from the marked die outline", outline_box: "bounding box of the marked outline (not a rectangle)", recorded: "from the die's recorded size" };
+const MODEL_NAMES: Record<YieldModel, string> = {
+  poisson: "Poisson",
+  murphy: "Murphy",
+  "negative-binomial": "negative binomial (α)",
+  "bose-einstein": "Bose–Einstein (N)",
+};
+const SOURCE_TEXT = {
+  die_outline: "from the marked die outline",
+  outline_box: "bounding box of the marked outline (not a rectangle)",
+  recorded: "from the die's recorded size",
+};
 
 function Row({ label, value, testId }: { label: string; value: string; testId?: string }) {
   return (
@@ -36,7 +45,16 @@ function WaferEconomics({ widthUm, heightUm }: { widthUm: number; heightUm: numb
   const [model, setModel] = useState<YieldModel>("negative-binomial");
   const [alpha, setAlpha] = useState("4");
   const outcomes = WAFERS_MM.map((d) =>
-    runEstimate(() => waferEstimate({ waferDiameterMm: d, dieWidthMm: widthUm / 1000, dieHeightMm: heightUm / 1000, defectDensityPerCm2: parseNumber(density), model, alpha: parseNumber(alpha) })),
+    runEstimate(() =>
+      waferEstimate({
+        waferDiameterMm: d,
+        dieWidthMm: widthUm / 1000,
+        dieHeightMm: heightUm / 1000,
+        defectDensityPerCm2: parseNumber(density),
+        model,
+        alpha: parseNumber(alpha),
+      }),
+    ),
   );
   const first = outcomes[0];
   return (
@@ -48,7 +66,9 @@ function WaferEconomics({ widthUm, heightUm }: { widthUm: number; heightUm: numb
         {model === "negative-binomial" && <NumberInput id="wafer-alpha" label="Clustering α" value={alpha} onChange={setAlpha} />}
       </div>
       {!first.ok ? (
-        <p role="alert" className="text-xs text-danger-400">{first.message}</p>
+        <p role="alert" className="text-xs text-danger-400">
+          {first.message}
+        </p>
       ) : (
         <>
           <table className="w-full text-sm">
@@ -73,7 +93,9 @@ function WaferEconomics({ widthUm, heightUm }: { widthUm: number; heightUm: numb
               )}
             </tbody>
           </table>
-          <p className="text-[11px] text-ink-400">{first.result.formula}. Source: {first.result.source}.</p>
+          <p className="text-[11px] text-ink-400">
+            {first.result.formula}. Source: {first.result.source}.
+          </p>
         </>
       )}
     </section>
@@ -81,8 +103,22 @@ function WaferEconomics({ widthUm, heightUm }: { widthUm: number; heightUm: numb
 }
 
 /** The die in one panel: size, pads and their density and pitch, states, wafer economics, saved estimates. */
-export function DieSummaryPanel({ die, shapes, onPick, umPerPx = null }: { die: DieDto; shapes: readonly AnyShape[]; onPick: (id: string) => void; umPerPx?: number | null }) {
-  const pads = useQuery({ queryKey: ["pads", die.id], queryFn: () => apiFetch<PadTable & { outlineSource: string }>(`/api/dies/${die.id}/pads`), retry: false });
+export function DieSummaryPanel({
+  die,
+  shapes,
+  onPick,
+  umPerPx = null,
+}: {
+  die: DieDto;
+  shapes: readonly AnyShape[];
+  onPick: (id: string) => void;
+  umPerPx?: number | null;
+}) {
+  const pads = useQuery({
+    queryKey: ["pads", die.id],
+    queryFn: () => apiFetch<PadTable & { outlineSource: string }>(`/api/dies/${die.id}/pads`),
+    retry: false,
+  });
   const size = dieSize(shapes, die);
   const counts = padStateCounts(shapes);
   const estimates = useMemo(() => savedEstimateRows(shapes, shapeLabel), [shapes]);
@@ -106,7 +142,11 @@ export function DieSummaryPanel({ die, shapes, onPick, umPerPx = null }: { die: 
             <Row label="Pads per mm²" value={density.padsPerMm2.toFixed(2)} />
           </>
         )}
-        <Row label="Smallest pad pitch" value={typeof minPitch === "number" ? `${formatUm(minPitch, umPerPx)} µm` : pads.isPending ? "…" : "—"} testId="summary-min-pitch" />
+        <Row
+          label="Smallest pad pitch"
+          value={typeof minPitch === "number" ? `${formatUm(minPitch, umPerPx)} µm` : pads.isPending ? "…" : "—"}
+          testId="summary-min-pitch"
+        />
         <Row label="Bonded / probed / unbonded" value={`${counts.bonded} / ${counts.probed} / ${counts.unbonded}`} testId="summary-states" />
       </dl>
       {size && <p className="-mt-3 text-[11px] text-ink-400">Size {SOURCE_TEXT[size.source]}.</p>}
@@ -119,7 +159,12 @@ export function DieSummaryPanel({ die, shapes, onPick, umPerPx = null }: { die: 
           <ul className="flex flex-col gap-1 text-sm">
             {estimates.map((e) => (
               <li key={`${e.shapeId}:${e.key}`} className="flex items-baseline justify-between gap-2">
-                <button type="button" onClick={() => onPick(e.shapeId)} className="truncate text-left hover:underline" style={{ color: KIND_STYLE[e.shapeKind].colour }}>
+                <button
+                  type="button"
+                  onClick={() => onPick(e.shapeId)}
+                  className="truncate text-left hover:underline"
+                  style={{ color: KIND_STYLE[e.shapeKind].colour }}
+                >
                   {e.label || KIND_STYLE[e.shapeKind].label}
                 </button>
                 <span className="tabular-nums">{summariseSavedEstimate(e.estimate) ?? threeFigures(Number.NaN)}</span>

@@ -1,10 +1,25 @@
 "use client";
 
 /** Compact labelled inputs for the reading panels (numbers typed as text, parsed by the caller). */
-const CONTROL = "w-full rounded border border-ink-700 bg-ink-950 px-1.5 py-1 text-sm text-ink-100 focus:border-kerf-500 focus:outline-none disabled:text-ink-400";
+const CONTROL =
+  "w-full rounded border border-ink-700 bg-ink-950 px-1.5 py-1 text-sm text-ink-100 focus:border-kerf-500 focus:outline-none disabled:text-ink-400";
 
 /** A number typed as text; empty or unparsable text reaches the formula as NaN and is reported by name. */
-export function NumberInput({ id, label, value, onChange, unit, disabled }: { id: string; label: string; value: string; onChange: (v: string) => void; unit?: string; disabled?: boolean }) {
+export function NumberInput({
+  id,
+  label,
+  value,
+  onChange,
+  unit,
+  disabled,
+}: {
+  id: string;
+  label: string;
+  value: string;
+  onChange: (v: string) => void;
+  unit?: string;
+  disabled?: boolean;
+}) {
   return (
     <div className="flex flex-col gap-0.5">
       <label htmlFor={id} className="text-[11px] font-medium text-ink-300">
@@ -17,7 +32,19 @@ export function NumberInput({ id, label, value, onChange, unit, disabled }: { id
 }
 
 /** A choice among fixed options. */
-export function SelectInput<T extends string>({ id, label, value, options, onChange }: { id: string; label: string; value: T; options: readonly (readonly [T, string])[]; onChange: (v: T) => void }) {
+export function SelectInput<T extends string>({
+  id,
+  label,
+  value,
+  options,
+  onChange,
+}: {
+  id: string;
+  label: string;
+  value: T;
+  options: readonly (readonly [T, string])[];
+  onChange: (v: T) => void;
+}) {
   return (
     <div className="flex flex-col gap-0.5">
       <label htmlFor={id} className="text-[11px] font-medium text-ink-300">

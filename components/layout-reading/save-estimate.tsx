@@ -14,7 +14,21 @@ type Inputs = Record<string, number | string | boolean | undefined>;
  * "Save on shape": stores the estimate in the shape's properties.estimates through the editor,
  * so it is undoable, saved like any other edit, and shows in the markup table and exports.
  */
-export function SaveEstimate<T extends EstimateMeta>({ editor, shape, kind, inputs, outcome, canEdit }: { editor: Editor; shape: AnyShape; kind: SavedEstimateKind; inputs: Inputs; outcome: Outcome<T>; canEdit: boolean }) {
+export function SaveEstimate<T extends EstimateMeta>({
+  editor,
+  shape,
+  kind,
+  inputs,
+  outcome,
+  canEdit,
+}: {
+  editor: Editor;
+  shape: AnyShape;
+  kind: SavedEstimateKind;
+  inputs: Inputs;
+  outcome: Outcome<T>;
+  canEdit: boolean;
+}) {
   const [note, setNote] = useState<string | null>(null);
   const saved = savedEstimatesOf(shape.properties)[kind];
   const summary = saved ? summariseSavedEstimate(saved) : null;

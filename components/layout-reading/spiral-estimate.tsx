@@ -9,8 +9,16 @@ import { EstimateResult, runEstimate } from "./estimate-result";
 import { NumberInput, parseNumber, SelectInput } from "./fields";
 import { SaveEstimate } from "./save-estimate";
 
-const SHAPES: readonly (readonly [SpiralShape, string])[] = [["square", "square"], ["hexagonal", "hexagonal"], ["octagonal", "octagonal"], ["circular", "circular"]];
-const METHODS: readonly (readonly [SpiralMethod, string])[] = [["current-sheet", "current sheet"], ["wheeler", "modified Wheeler"]];
+const SHAPES: readonly (readonly [SpiralShape, string])[] = [
+  ["square", "square"],
+  ["hexagonal", "hexagonal"],
+  ["octagonal", "octagonal"],
+  ["circular", "circular"],
+];
+const METHODS: readonly (readonly [SpiralMethod, string])[] = [
+  ["current-sheet", "current sheet"],
+  ["wheeler", "modified Wheeler"],
+];
 
 /** A block read as a planar spiral: outer diameter from the block's size, the winding typed. */
 export function SpiralEstimate({ shape, editor, canEdit }: { shape: Shape<"block">; editor: Editor; canEdit: boolean }) {
@@ -20,7 +28,14 @@ export function SpiralEstimate({ shape, editor, canEdit }: { shape: Shape<"block
   const [outer, setOuter] = useState(() => spiralOuterDiameterFromBlock(shape).toFixed(1));
   const [width, setWidth] = useState("10");
   const [spacing, setSpacing] = useState("5");
-  const inputs = { shape: form, method, turns: parseNumber(turns), outerDiameterUm: parseNumber(outer), widthUm: parseNumber(width), spacingUm: parseNumber(spacing) };
+  const inputs = {
+    shape: form,
+    method,
+    turns: parseNumber(turns),
+    outerDiameterUm: parseNumber(outer),
+    widthUm: parseNumber(width),
+    spacingUm: parseNumber(spacing),
+  };
   const outcome = runEstimate(() => spiralInductance(inputs));
   return (
     <section aria-label="Spiral inductance" className="flex flex-col gap-2">

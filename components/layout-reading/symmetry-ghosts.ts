@@ -42,7 +42,12 @@ function ghost(ctx: CanvasRenderingContext2D, m: Affine2x3, g: Geometry, colour:
  * coloured by the pair's deviation, so a symmetric pair shows its ghost on top of the shape;
  * shapes with no partner show their mirror image in grey where the partner is missing.
  */
-export function symmetryGhostDrawer(report: SymmetryReport, axis: LineStringGeometry, geometryOf: ReadonlyMap<string, Geometry>, fullScaleUm: number): OverlayDrawer {
+export function symmetryGhostDrawer(
+  report: SymmetryReport,
+  axis: LineStringGeometry,
+  geometryOf: ReadonlyMap<string, Geometry>,
+  fullScaleUm: number,
+): OverlayDrawer {
   const line = axisLine(axis);
   const mirrored = new Map<string, Geometry>();
   const mirror = (id: string) => {

@@ -7,7 +7,12 @@ import { ILLUMINATION_LABELS } from "@/lib/validation/micrographs";
 
 function StatusLine({ m }: { m: MicrographDto }) {
   if (m.status === "ready") return <span className="text-ok-400">Ready</span>;
-  if (m.status === "failed") return <span className="text-danger-400" role="alert">Failed: {m.error}</span>;
+  if (m.status === "failed")
+    return (
+      <span className="text-danger-400" role="alert">
+        Failed: {m.error}
+      </span>
+    );
   return (
     <span className="flex flex-col gap-1">
       <span className="text-ink-300">
@@ -31,12 +36,18 @@ function RetryTiling({ m, onRetry }: { m: MicrographDto; onRetry: (id: string) =
         onClick={() => {
           setBusy(true);
           setError(null);
-          onRetry(m.id).catch((e: Error) => setError(e.message)).finally(() => setBusy(false));
+          onRetry(m.id)
+            .catch((e: Error) => setError(e.message))
+            .finally(() => setBusy(false));
         }}
       >
         {busy ? "Queuing…" : "Tile again"}
       </Button>
-      {error && <span role="alert" className="text-xs text-danger-400">{error}</span>}
+      {error && (
+        <span role="alert" className="text-xs text-danger-400">
+          {error}
+        </span>
+      )}
     </span>
   );
 }
@@ -45,7 +56,17 @@ function RetryTiling({ m, onRetry }: { m: MicrographDto; onRetry: (id: string) =
  * A die's micrographs with thumbnail, illumination, scale and status; click to show one. A
  * failed one offers tiling again (beside its button, not inside it) when `onRetry` is given.
  */
-export function MicrographList({ items, selectedId, onSelect, onRetry }: { items: MicrographDto[]; selectedId: string | null; onSelect: (id: string) => void; onRetry?: (id: string) => Promise<void> }) {
+export function MicrographList({
+  items,
+  selectedId,
+  onSelect,
+  onRetry,
+}: {
+  items: MicrographDto[];
+  selectedId: string | null;
+  onSelect: (id: string) => void;
+  onRetry?: (id: string) => Promise<void>;
+}) {
   if (items.length === 0) return <p className="text-sm text-ink-400">No micrographs yet.</p>;
   return (
     <ul className="flex flex-col gap-2" aria-label="Micrographs">

@@ -44,7 +44,15 @@ export function UploadMicrograph({ dieId, onUploaded, onCancel }: { dieId: strin
   const [progress, setProgress] = useState<{ loaded: number; total: number } | null>(null);
   const [error, setError] = useState<string | null>(null);
   const { register, handleSubmit, formState } = useForm<Values>({
-    defaultValues: { label: "", illumination: "bright_field", objectiveMag: "", numericalAperture: "", cameraPixelPitchUm: "", adapterMag: "1", scaleUmPerPx: "" },
+    defaultValues: {
+      label: "",
+      illumination: "bright_field",
+      objectiveMag: "",
+      numericalAperture: "",
+      cameraPixelPitchUm: "",
+      adapterMag: "1",
+      scaleUmPerPx: "",
+    },
   });
   return (
     <form
@@ -95,7 +103,14 @@ export function UploadMicrograph({ dieId, onUploaded, onCancel }: { dieId: strin
         <TextField id="mg-na" label="Numerical aperture" inputMode="decimal" hint="e.g. 0.45" {...register("numericalAperture")} />
         <TextField id="mg-pitch" label="Camera pixel pitch (µm)" inputMode="decimal" hint="e.g. 3.45" {...register("cameraPixelPitchUm")} />
         <TextField id="mg-adapter" label="Adapter magnification" inputMode="decimal" hint="e.g. 1 (none)" {...register("adapterMag")} />
-        <TextField id="mg-scale" className="col-span-2" label="Or scale directly (µm per pixel)" inputMode="decimal" hint="Leave all empty to calibrate on the image later" {...register("scaleUmPerPx")} />
+        <TextField
+          id="mg-scale"
+          className="col-span-2"
+          label="Or scale directly (µm per pixel)"
+          inputMode="decimal"
+          hint="Leave all empty to calibrate on the image later"
+          {...register("scaleUmPerPx")}
+        />
       </fieldset>
       {progress && (
         <div className="flex flex-col gap-1">

@@ -26,7 +26,10 @@ const WORDS: Record<string, string> = {
 export function ActivityList({ dieId }: { dieId: string }) {
   const q = useInfiniteQuery({
     queryKey: ["activity", dieId],
-    queryFn: ({ pageParam }) => apiFetch<{ items: ActivityItem[]; nextBefore: string | null }>(`/api/dies/${dieId}/activity?limit=20${pageParam ? `&before=${encodeURIComponent(pageParam)}` : ""}`),
+    queryFn: ({ pageParam }) =>
+      apiFetch<{ items: ActivityItem[]; nextBefore: string | null }>(
+        `/api/dies/${dieId}/activity?limit=20${pageParam ? `&before=${encodeURIComponent(pageParam)}` : ""}`,
+      ),
     initialPageParam: "",
     getNextPageParam: (last) => last.nextBefore ?? undefined,
   });
@@ -37,7 +40,8 @@ export function ActivityList({ dieId }: { dieId: string }) {
       <ol className="flex flex-col gap-1 text-xs text-ink-300">
         {items.map((i) => (
           <li key={i.id}>
-            <span className="text-ink-100">{i.actorName ?? "Someone"}</span> {WORDS[i.action] ?? i.action} {i.detail && <span className="text-ink-400">{i.action.startsWith("markup.") ? `a ${i.detail}` : `“${i.detail}”`}</span>}
+            <span className="text-ink-100">{i.actorName ?? "Someone"}</span> {WORDS[i.action] ?? i.action}{" "}
+            {i.detail && <span className="text-ink-400">{i.action.startsWith("markup.") ? `a ${i.detail}` : `“${i.detail}”`}</span>}
             <span className="block text-ink-500">{new Date(i.at).toLocaleString()}</span>
           </li>
         ))}

@@ -26,7 +26,10 @@ export function InvitationsSection({ teamId }: { teamId: string }) {
     },
     onError: (e: Error) => setMessage(e.message),
   });
-  const revoke = useMutation({ mutationFn: (id: string) => apiFetch(`/api/teams/${teamId}/invitations/${id}`, { method: "DELETE" }), onSuccess: () => qc.invalidateQueries({ queryKey: key }) });
+  const revoke = useMutation({
+    mutationFn: (id: string) => apiFetch(`/api/teams/${teamId}/invitations/${id}`, { method: "DELETE" }),
+    onSuccess: () => qc.invalidateQueries({ queryKey: key }),
+  });
   const undelivered = (outbox.data ?? []).filter((o) => o.status !== "sent" && o.attempts > 0);
   return (
     <section aria-label="Invitations" className="flex flex-col gap-3">
@@ -40,11 +43,21 @@ export function InvitationsSection({ teamId }: { teamId: string }) {
       >
         <label className="text-sm text-ink-200">
           E-mail
-          <input type="email" required value={email} onChange={(e) => setEmail(e.target.value)} className="ml-2 rounded-md border border-ink-700 bg-ink-950 px-2 py-1 text-sm" />
+          <input
+            type="email"
+            required
+            value={email}
+            onChange={(e) => setEmail(e.target.value)}
+            className="ml-2 rounded-md border border-ink-700 bg-ink-950 px-2 py-1 text-sm"
+          />
         </label>
         <label className="text-sm text-ink-200">
           Role
-          <select value={role} onChange={(e) => setRole(e.target.value as TeamRole)} className="ml-2 rounded-md border border-ink-700 bg-ink-950 px-2 py-1 text-sm">
+          <select
+            value={role}
+            onChange={(e) => setRole(e.target.value as TeamRole)}
+            className="ml-2 rounded-md border border-ink-700 bg-ink-950 px-2 py-1 text-sm"
+          >
             {ROLES.map((r) => (
               <option key={r} value={r}>
                 {ROLE_LABELS[r]}
@@ -56,7 +69,9 @@ export function InvitationsSection({ teamId }: { teamId: string }) {
           Send invitation
         </Button>
       </form>
-      <p aria-live="polite" className="text-sm text-ink-300">{message}</p>
+      <p aria-live="polite" className="text-sm text-ink-300">
+        {message}
+      </p>
       <h3 className="text-sm font-semibold">Pending invitations</h3>
       <ul className="flex flex-col gap-1 text-sm">
         {(pending.data ?? []).length === 0 && <li className="text-ink-400">None.</li>}

@@ -15,7 +15,9 @@ export function MailboxView({ messages, problems }: { messages: MailboxEntry[]; 
   return (
     <div className="flex flex-col gap-4">
       <h1 className="text-xl font-semibold">Mailbox</h1>
-      <p className="text-sm text-ink-300">No mail server is configured, so Kerfline keeps the mail it sends on this machine. These are the messages for your teams.</p>
+      <p className="text-sm text-ink-300">
+        No mail server is configured, so Kerfline keeps the mail it sends on this machine. These are the messages for your teams.
+      </p>
       {problems.length > 0 && (
         <section aria-label="Mail not delivered" className="rounded-md border border-danger-500/50 p-3">
           <h2 className="text-sm font-semibold text-danger-400">Mail not delivered yet</h2>
@@ -33,7 +35,10 @@ export function MailboxView({ messages, problems }: { messages: MailboxEntry[]; 
           {messages.length === 0 && <li className="text-sm text-ink-400">No messages yet.</li>}
           {messages.map((m) => (
             <li key={m.id}>
-              <button onClick={() => setOpenId(m.id)} className={`w-full rounded-md border p-2 text-left text-sm ${openId === m.id ? "border-kerf-500 bg-ink-800" : "border-ink-800 hover:bg-ink-800"}`}>
+              <button
+                onClick={() => setOpenId(m.id)}
+                className={`w-full rounded-md border p-2 text-left text-sm ${openId === m.id ? "border-kerf-500 bg-ink-800" : "border-ink-800 hover:bg-ink-800"}`}
+              >
                 <span className="block truncate font-medium text-ink-100">{m.subject}</span>
                 <span className="block truncate text-xs text-ink-400">
                   to {m.to} · {new Date(m.date).toLocaleString()}

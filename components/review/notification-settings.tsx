@@ -32,7 +32,11 @@ export function NotificationSettings({ initial }: { initial: NotificationPrefs }
           <input type="checkbox" checked={prefs[k]} onChange={(e) => toggle(k, e.target.checked)} className="accent-kerf-500" /> {LABELS[k]}
         </label>
       ))}
-      {error && <p role="alert" className="text-sm text-danger-400">{error}</p>}
+      {error && (
+        <p role="alert" className="text-sm text-danger-400">
+          {error}
+        </p>
+      )}
     </section>
   );
 }

@@ -6,7 +6,14 @@ import { mentionQueryAt } from "@/lib/review/mentions";
 import type { MemberDto } from "@/lib/dto/teams";
 
 /** A comment box with @mention autocomplete of the team's members. */
-export function ReplyBox({ members, label, submitLabel, onSubmit, initial = "", onCancel }: {
+export function ReplyBox({
+  members,
+  label,
+  submitLabel,
+  onSubmit,
+  initial = "",
+  onCancel,
+}: {
   members: readonly MemberDto[];
   label: string;
   submitLabel: string;
@@ -20,7 +27,9 @@ export function ReplyBox({ members, label, submitLabel, onSubmit, initial = "", 
   const [busy, setBusy] = useState(false);
   const area = useRef<HTMLTextAreaElement>(null);
   const q = mentionQueryAt(text, caret);
-  const suggestions = q ? members.filter((m) => m.name.toLowerCase().startsWith(q.query.toLowerCase()) || m.email.toLowerCase().startsWith(q.query.toLowerCase())).slice(0, 6) : [];
+  const suggestions = q
+    ? members.filter((m) => m.name.toLowerCase().startsWith(q.query.toLowerCase()) || m.email.toLowerCase().startsWith(q.query.toLowerCase())).slice(0, 6)
+    : [];
 
   const choose = (m: MemberDto) => {
     if (!q) return;
@@ -65,17 +74,30 @@ export function ReplyBox({ members, label, submitLabel, onSubmit, initial = "", 
         />
       </label>
       {suggestions.length > 0 && (
-        <ul role="listbox" aria-label="Mention a team member" className="absolute left-0 top-full z-10 mt-1 w-64 rounded-md border border-ink-700 bg-ink-900 shadow-lg">
+        <ul
+          role="listbox"
+          aria-label="Mention a team member"
+          className="absolute left-0 top-full z-10 mt-1 w-64 rounded-md border border-ink-700 bg-ink-900 shadow-lg"
+        >
           {suggestions.map((m) => (
             <li key={m.userId} role="option" aria-selected={false}>
-              <button type="button" className="w-full px-2 py-1 text-left text-sm hover:bg-ink-800" onMouseDown={(e) => e.preventDefault()} onClick={() => choose(m)}>
+              <button
+                type="button"
+                className="w-full px-2 py-1 text-left text-sm hover:bg-ink-800"
+                onMouseDown={(e) => e.preventDefault()}
+                onClick={() => choose(m)}
+              >
                 {m.name} <span className="text-xs text-ink-400">{m.email}</span>
               </button>
             </li>
           ))}
         </ul>
       )}
-      {error && <p role="alert" className="text-xs text-danger-400">{error}</p>}
+      {error && (
+        <p role="alert" className="text-xs text-danger-400">
+          {error}
+        </p>
+      )}
       <div className="flex gap-2">
         <Button variant="primary" disabled={busy || !text.trim()} onClick={submit}>
           {submitLabel}

@@ -28,11 +28,26 @@ const FILTERS: { id: Filter; label: string }[] = [
 
 const boxPolygon = (b: { minX: number; minY: number; maxX: number; maxY: number }) => ({
   type: "Polygon",
-  coordinates: [[[b.minX, b.minY], [b.maxX, b.minY], [b.maxX, b.maxY], [b.minX, b.maxY], [b.minX, b.minY]]],
+  coordinates: [
+    [
+      [b.minX, b.minY],
+      [b.maxX, b.minY],
+      [b.maxX, b.maxY],
+      [b.minX, b.maxY],
+      [b.minX, b.minY],
+    ],
+  ],
 });
 
 /** The Review tab: review status, threads with filters, one thread, starting threads, activity. */
-export function ReviewPanel({ die, userId, review, state, api, transform }: {
+export function ReviewPanel({
+  die,
+  userId,
+  review,
+  state,
+  api,
+  transform,
+}: {
   die: DieDto;
   userId: string;
   review: ReviewBench;
@@ -58,14 +73,29 @@ export function ReviewPanel({ die, userId, review, state, api, transform }: {
   );
   const selected = list.find((t) => t.id === review.selectedId);
   if (selected) {
-    return <ThreadView thread={selected} number={list.indexOf(selected) + 1} members={members} userId={userId} canComment={canComment} api={review.threads} onBack={() => review.select(null)} />;
+    return (
+      <ThreadView
+        thread={selected}
+        number={list.indexOf(selected) + 1}
+        members={members}
+        userId={userId}
+        canComment={canComment}
+        api={review.threads}
+        onBack={() => review.select(null)}
+      />
+    );
   }
 
   const regionBox = () => {
     const shapes = selection.map((id) => state?.shapes.get(id)).filter((s) => !!s);
     if (shapes.length) {
       const boxes = shapes.map((s) => boundingBox(s!.geometry));
-      return { minX: Math.min(...boxes.map((b) => b.minX)), minY: Math.min(...boxes.map((b) => b.minY)), maxX: Math.max(...boxes.map((b) => b.maxX)), maxY: Math.max(...boxes.map((b) => b.maxY)) };
+      return {
+        minX: Math.min(...boxes.map((b) => b.minX)),
+        minY: Math.min(...boxes.map((b) => b.minY)),
+        maxX: Math.max(...boxes.map((b) => b.maxX)),
+        maxY: Math.max(...boxes.map((b) => b.maxY)),
+      };
     }
     return api && transform ? viewBoxUm(api, transform) : null;
   };
@@ -99,7 +129,13 @@ export function ReviewPanel({ die, userId, review, state, api, transform }: {
         {starting && (
           <ReplyBox
             members={members}
-            label={starting === "shape" ? "First comment on the selected shape" : selection.length ? "First comment on the selection's area" : "First comment on the area in view"}
+            label={
+              starting === "shape"
+                ? "First comment on the selected shape"
+                : selection.length
+                  ? "First comment on the selection's area"
+                  : "First comment on the area in view"
+            }
             submitLabel="Start thread"
             onSubmit={startThread}
             onCancel={() => setStarting(null)}
@@ -107,7 +143,12 @@ export function ReviewPanel({ die, userId, review, state, api, transform }: {
         )}
         <div role="group" aria-label="Filter threads" className="flex flex-wrap gap-1">
           {FILTERS.map((f) => (
-            <button key={f.id} aria-pressed={filter === f.id} onClick={() => setFilter(f.id)} className={`rounded px-2 py-0.5 text-xs ${filter === f.id ? "bg-kerf-600/40 text-ink-100" : "bg-ink-800 text-ink-300"}`}>
+            <button
+              key={f.id}
+              aria-pressed={filter === f.id}
+              onClick={() => setFilter(f.id)}
+              className={`rounded px-2 py-0.5 text-xs ${filter === f.id ? "bg-kerf-600/40 text-ink-100" : "bg-ink-800 text-ink-300"}`}
+            >
               {f.label}
             </button>
           ))}

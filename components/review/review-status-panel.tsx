@@ -43,7 +43,12 @@ export function ReviewStatusPanel({ die, userId }: { die: DieDto; userId: string
         <>
           <label className="text-xs text-ink-300">
             Message
-            <textarea value={message} onChange={(e) => setMessage(e.target.value)} rows={2} className="mt-1 w-full rounded-md border border-ink-700 bg-ink-950 p-2 text-sm text-ink-100" />
+            <textarea
+              value={message}
+              onChange={(e) => setMessage(e.target.value)}
+              rows={2}
+              className="mt-1 w-full rounded-md border border-ink-700 bg-ink-950 p-2 text-sm text-ink-100"
+            />
           </label>
           <div className="flex flex-wrap gap-2">
             {actions.map((a) => (
@@ -54,8 +59,14 @@ export function ReviewStatusPanel({ die, userId }: { die: DieDto; userId: string
           </div>
         </>
       )}
-      {isAnalyst && die.reviewStatus === "in_review" && <p className="text-xs text-ink-400">You analysed this die, so another owner or reviewer decides its review.</p>}
-      {error && <p role="alert" className="text-xs text-danger-400">{error}</p>}
+      {isAnalyst && die.reviewStatus === "in_review" && (
+        <p className="text-xs text-ink-400">You analysed this die, so another owner or reviewer decides its review.</p>
+      )}
+      {error && (
+        <p role="alert" className="text-xs text-danger-400">
+          {error}
+        </p>
+      )}
       <ol aria-label="Review history" className="flex flex-col gap-1 text-xs text-ink-300">
         {(history.data ?? []).map((h) => (
           <li key={h.id}>

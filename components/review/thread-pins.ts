@@ -7,7 +7,10 @@ const OPEN = "#f2a93b";
 const RESOLVED = "#7fa88a";
 
 /** Draws a numbered pin at each thread's anchor, in screen px through the die → screen matrix. */
-export function threadPinsDrawer(pins: readonly { id: string; pin: readonly [number, number]; status: "open" | "resolved" }[], selectedId: string | null): OverlayDrawer {
+export function threadPinsDrawer(
+  pins: readonly { id: string; pin: readonly [number, number]; status: "open" | "resolved" }[],
+  selectedId: string | null,
+): OverlayDrawer {
   return (ctx: CanvasRenderingContext2D, matrix: Affine2x3) => {
     ctx.save();
     pins.forEach((t, i) => {

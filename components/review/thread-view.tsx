@@ -11,7 +11,15 @@ import type { ThreadsApi } from "./use-threads";
 const when = (iso: string) => new Date(iso).toLocaleString();
 
 /** One thread: its comments (own ones editable), a reply box, resolve / reopen. */
-export function ThreadView({ thread, number, members, userId, canComment, api, onBack }: {
+export function ThreadView({
+  thread,
+  number,
+  members,
+  userId,
+  canComment,
+  api,
+  onBack,
+}: {
   thread: ThreadDto;
   number: number;
   members: readonly MemberDto[];
@@ -50,23 +58,38 @@ export function ThreadView({ thread, number, members, userId, canComment, api, o
               {c.editedAt && " · edited"}
             </p>
             {editing === c.id ? (
-              <ReplyBox members={members} label="Edit comment" submitLabel="Save" initial={c.body} onCancel={() => setEditing(null)} onSubmit={async (body) => {
-                await api.edit.mutateAsync({ commentId: c.id, body });
-                setEditing(null);
-              }} />
+              <ReplyBox
+                members={members}
+                label="Edit comment"
+                submitLabel="Save"
+                initial={c.body}
+                onCancel={() => setEditing(null)}
+                onSubmit={async (body) => {
+                  await api.edit.mutateAsync({ commentId: c.id, body });
+                  setEditing(null);
+                }}
+              />
             ) : (
               <CommentBody body={c.body} names={names} />
             )}
             {c.authorId === userId && canComment && editing !== c.id && (
               <div className="mt-1 flex gap-2 text-xs">
-                <button className="text-ink-400 hover:text-ink-200" onClick={() => setEditing(c.id)}>Edit</button>
-                <button className="text-ink-400 hover:text-danger-400" onClick={() => api.remove.mutateAsync(c.id).catch((e: Error) => setError(e.message))}>Delete</button>
+                <button className="text-ink-400 hover:text-ink-200" onClick={() => setEditing(c.id)}>
+                  Edit
+                </button>
+                <button className="text-ink-400 hover:text-danger-400" onClick={() => api.remove.mutateAsync(c.id).catch((e: Error) => setError(e.message))}>
+                  Delete
+                </button>
               </div>
             )}
           </li>
         ))}
       </ol>
-      {error && <p role="alert" className="text-xs text-danger-400">{error}</p>}
+      {error && (
+        <p role="alert" className="text-xs text-danger-400">
+          {error}
+        </p>
+      )}
       {canComment && (
         <>
           <ReplyBox members={members} label="Reply" submitLabel="Reply" onSubmit={(body) => api.reply.mutateAsync({ threadId: thread.id, body })} />

@@ -31,7 +31,12 @@ export function viewBoxUm(api: ViewerApi, transform: Affine2x3): BoundingBox {
     const img = api.screenToImage(x, y);
     return applyAffine(transform, img.x, img.y);
   });
-  return { minX: Math.min(corners[0][0], corners[1][0]), minY: Math.min(corners[0][1], corners[1][1]), maxX: Math.max(corners[0][0], corners[1][0]), maxY: Math.max(corners[0][1], corners[1][1]) };
+  return {
+    minX: Math.min(corners[0][0], corners[1][0]),
+    minY: Math.min(corners[0][1], corners[1][1]),
+    maxX: Math.max(corners[0][0], corners[1][0]),
+    maxY: Math.max(corners[0][1], corners[1][1]),
+  };
 }
 
 /**
@@ -41,7 +46,14 @@ export function viewBoxUm(api: ViewerApi, transform: Affine2x3): BoundingBox {
  * reading `window.location` during render gave the client a first render different from the
  * server's HTML (a hydration error on every deep link).
  */
-export function useReviewBench(dieId: string, linkedThreadId: string | null, state: EditorState | null, api: ViewerApi | null, transform: Affine2x3 | null, pick: (id: string) => void) {
+export function useReviewBench(
+  dieId: string,
+  linkedThreadId: string | null,
+  state: EditorState | null,
+  api: ViewerApi | null,
+  transform: Affine2x3 | null,
+  pick: (id: string) => void,
+) {
   const threads = useThreads(dieId);
   const [selectedId, setSelectedId] = useState<string | null>(linkedThreadId);
   const list = useMemo(() => threads.threads.data ?? [], [threads.threads.data]);

@@ -14,12 +14,22 @@ export function useThreads(dieId: string) {
     void qc.invalidateQueries({ queryKey: ["activity", dieId] });
   };
   const start = useMutation({
-    mutationFn: (body: { shapeId: string; body: string } | { region: unknown; body: string }) => apiFetch<ThreadDto>(`/api/dies/${dieId}/threads`, { method: "POST", body }),
+    mutationFn: (body: { shapeId: string; body: string } | { region: unknown; body: string }) =>
+      apiFetch<ThreadDto>(`/api/dies/${dieId}/threads`, { method: "POST", body }),
     onSuccess: refresh,
   });
-  const reply = useMutation({ mutationFn: (p: { threadId: string; body: string }) => apiFetch(`/api/threads/${p.threadId}/comments`, { method: "POST", body: { body: p.body } }), onSuccess: refresh });
-  const setStatus = useMutation({ mutationFn: (p: { threadId: string; resolve: boolean }) => apiFetch(`/api/threads/${p.threadId}/${p.resolve ? "resolve" : "reopen"}`, { method: "POST" }), onSuccess: refresh });
-  const edit = useMutation({ mutationFn: (p: { commentId: string; body: string }) => apiFetch(`/api/comments/${p.commentId}`, { method: "PATCH", body: { body: p.body } }), onSuccess: refresh });
+  const reply = useMutation({
+    mutationFn: (p: { threadId: string; body: string }) => apiFetch(`/api/threads/${p.threadId}/comments`, { method: "POST", body: { body: p.body } }),
+    onSuccess: refresh,
+  });
+  const setStatus = useMutation({
+    mutationFn: (p: { threadId: string; resolve: boolean }) => apiFetch(`/api/threads/${p.threadId}/${p.resolve ? "resolve" : "reopen"}`, { method: "POST" }),
+    onSuccess: refresh,
+  });
+  const edit = useMutation({
+    mutationFn: (p: { commentId: string; body: string }) => apiFetch(`/api/comments/${p.commentId}`, { method: "PATCH", body: { body: p.body } }),
+    onSuccess: refresh,
+  });
   const remove = useMutation({ mutationFn: (commentId: string) => apiFetch(`/api/comments/${commentId}`, { method: "DELETE" }), onSuccess: refresh });
   return { threads, start, reply, setStatus, edit, remove };
 }

@@ -6,8 +6,6 @@ import "./zod-jitless";
 
 /** One TanStack Query client per browser tab. */
 export function QueryProvider({ children }: { children: React.ReactNode }) {
-  const [client] = useState(
-    () => new QueryClient({ defaultOptions: { queries: { staleTime: 10_000, retry: 1, refetchOnWindowFocus: false } } }),
-  );
+  const [client] = useState(() => new QueryClient({ defaultOptions: { queries: { staleTime: 10_000, retry: 1, refetchOnWindowFocus: false } } }));
   return <QueryClientProvider client={client}>{children}</QueryClientProvider>;
 }

@@ -5,7 +5,15 @@ import { Button } from "@/components/ui/button";
 import { parseKnownLength } from "./known-length";
 
 /** Asks for the true length between the two calibration points. */
-export function CalibrationForm({ distancePx, onSubmit, onCancel }: { distancePx: number; onSubmit: (lengthUm: number) => Promise<void> | void; onCancel: () => void }) {
+export function CalibrationForm({
+  distancePx,
+  onSubmit,
+  onCancel,
+}: {
+  distancePx: number;
+  onSubmit: (lengthUm: number) => Promise<void> | void;
+  onCancel: () => void;
+}) {
   const id = useId();
   const [text, setText] = useState("");
   const [error, setError] = useState<string | null>(null);

@@ -42,7 +42,18 @@ export type MicrographViewerProps = {
 const SHORTCUTS = "Plus or equals zooms in, minus zooms out, 0 fits the die, arrow keys pan. Drag to pan, scroll to zoom.";
 
 /** The micrograph viewer: deep-zoom image, our own controls, scale bar, cursor readout, overlay layer. */
-export function MicrographViewer({ source, imageWidth, imageHeight, umPerPx, transform, numericalAperture, onReady, children, className = "", drawer }: MicrographViewerProps) {
+export function MicrographViewer({
+  source,
+  imageWidth,
+  imageHeight,
+  umPerPx,
+  transform,
+  numericalAperture,
+  onReady,
+  children,
+  className = "",
+  drawer,
+}: MicrographViewerProps) {
   const keysId = useId();
   const hostRef = useRef<HTMLDivElement>(null);
   const [surface, setSurface] = useState<HTMLDivElement | null>(null);
@@ -107,7 +118,13 @@ export function MicrographViewer({ source, imageWidth, imageHeight, umPerPx, tra
 }
 
 /** Scale bar and resolution note at the bottom-left, cursor position at the bottom centre. */
-function ViewerReadouts({ api, surface, umPerPx, transform, numericalAperture }: { api: ViewerApi | null; surface: HTMLElement | null } & Pick<MicrographViewerProps, "umPerPx" | "transform" | "numericalAperture">) {
+function ViewerReadouts({
+  api,
+  surface,
+  umPerPx,
+  transform,
+  numericalAperture,
+}: { api: ViewerApi | null; surface: HTMLElement | null } & Pick<MicrographViewerProps, "umPerPx" | "transform" | "numericalAperture">) {
   return (
     <>
       <div className="absolute bottom-2 left-2 z-20 flex flex-col items-start gap-1">

@@ -89,7 +89,13 @@ function showSource(viewer: OpenSeadragon.Viewer, source: MicrographSource, size
  * Creates an OpenSeadragon viewer inside host, keeps it showing source, and destroys it on
  * unmount. Returns the viewer's API once it exists, the loaded namespace, and the load status.
  */
-export function useOsdViewer(host: RefObject<HTMLDivElement | null>, source: MicrographSource, imageWidth: number, imageHeight: number, drawer?: "webgl" | "canvas") {
+export function useOsdViewer(
+  host: RefObject<HTMLDivElement | null>,
+  source: MicrographSource,
+  imageWidth: number,
+  imageHeight: number,
+  drawer?: "webgl" | "canvas",
+) {
   const [api, setApi] = useState<ViewerApi | null>(null);
   const [osd, setOsd] = useState<OsdNamespace | null>(null);
   const [status, setStatus] = useState<ViewerStatus>({ state: "loading" });

@@ -2,7 +2,9 @@ import type { SVGProps } from "react";
 
 // Drawn for Kerfline on a 16-unit grid with 1.5-unit strokes in the current text colour.
 function Icon(props: SVGProps<SVGSVGElement>) {
-  return <svg viewBox="0 0 16 16" width="16" height="16" fill="none" stroke="currentColor" strokeWidth="1.5" strokeLinecap="round" aria-hidden="true" {...props} />;
+  return (
+    <svg viewBox="0 0 16 16" width="16" height="16" fill="none" stroke="currentColor" strokeWidth="1.5" strokeLinecap="round" aria-hidden="true" {...props} />
+  );
 }
 
 /** A plus sign. */
@@ -35,9 +37,7 @@ export function FitDieIcon() {
 
 /** Four corners pushed outwards. */
 export function FullScreenIcon({ exit = false }: { exit?: boolean }) {
-  const d = exit
-    ? "M6 2.5V6H2.5M10 2.5V6h3.5M6 13.5V10H2.5M10 13.5V10h3.5"
-    : "M2.5 6V2.5H6M13.5 6V2.5H10M2.5 10v3.5H6M13.5 10v3.5H10";
+  const d = exit ? "M6 2.5V6H2.5M10 2.5V6h3.5M6 13.5V10H2.5M10 13.5V10h3.5" : "M2.5 6V2.5H6M13.5 6V2.5H10M2.5 10v3.5H6M13.5 10v3.5H10";
   return (
     <Icon>
       <path d={d} strokeLinejoin="round" />

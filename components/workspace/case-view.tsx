@@ -103,9 +103,18 @@ export function CaseView({ initial }: { initial: CaseDto }) {
           )}
         </div>
         {dies.isPending && <p className="text-sm text-ink-400">Loading dies…</p>}
-        {dies.isError && <p role="alert" className="text-sm text-danger-400">{dies.error.message}</p>}
+        {dies.isError && (
+          <p role="alert" className="text-sm text-danger-400">
+            {dies.error.message}
+          </p>
+        )}
         {dies.data && (
-          <DataTable data={dies.data} columns={columns} filterLabel="Filter dies" empty={editable ? "No dies yet. Add the first with “New die”." : "No dies in this case yet."} />
+          <DataTable
+            data={dies.data}
+            columns={columns}
+            filterLabel="Filter dies"
+            empty={editable ? "No dies yet. Add the first with “New die”." : "No dies in this case yet."}
+          />
         )}
       </section>
       <Dialog open={dialog === "edit"} onClose={() => setDialog(null)} title="Edit case">

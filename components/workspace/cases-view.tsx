@@ -54,7 +54,11 @@ export function CasesView({ editableTeams }: { editableTeams: { id: string; name
         )}
       </div>
       {cases.isPending && <p className="text-sm text-ink-400">Loading cases…</p>}
-      {cases.isError && <p role="alert" className="text-sm text-danger-400">{cases.error.message}</p>}
+      {cases.isError && (
+        <p role="alert" className="text-sm text-danger-400">
+          {cases.error.message}
+        </p>
+      )}
       {cases.data && (
         <DataTable
           data={cases.data}
@@ -78,7 +82,11 @@ export function CasesView({ editableTeams }: { editableTeams: { id: string; name
           {editableTeams.length > 1 && (
             <label className="flex flex-col gap-1 text-xs font-medium text-ink-300">
               Team
-              <select value={teamId} onChange={(e) => setTeamId(e.target.value)} className="rounded-md border border-ink-700 bg-ink-900 px-2 py-1.5 text-sm text-ink-100">
+              <select
+                value={teamId}
+                onChange={(e) => setTeamId(e.target.value)}
+                className="rounded-md border border-ink-700 bg-ink-900 px-2 py-1.5 text-sm text-ink-100"
+              >
                 {editableTeams.map((t) => (
                   <option key={t.id} value={t.id}>
                     {t.name}

@@ -48,7 +48,15 @@ export function DieForm({
     >
       <TextField id="die-name" label="Name" error={e.name?.message} {...register("name")} />
       <div className="grid grid-cols-2 gap-3">
-        <TextField id="die-width" type="number" step="any" label="Width (µm)" hint="Leave empty if not known yet" error={e.widthUm?.message} {...register("widthUm", optionalNumber)} />
+        <TextField
+          id="die-width"
+          type="number"
+          step="any"
+          label="Width (µm)"
+          hint="Leave empty if not known yet"
+          error={e.widthUm?.message}
+          {...register("widthUm", optionalNumber)}
+        />
         <TextField id="die-height" type="number" step="any" label="Height (µm)" error={e.heightUm?.message} {...register("heightUm", optionalNumber)} />
       </div>
       <TextArea id="die-notes" label="Notes" error={e.notes?.message} {...register("notes")} />

@@ -17,7 +17,9 @@ export const cases = pgTable(
   "cases",
   {
     id: uuid("id").primaryKey().defaultRandom(),
-    teamId: uuid("team_id").notNull().references(() => teams.id, { onDelete: "cascade" }),
+    teamId: uuid("team_id")
+      .notNull()
+      .references(() => teams.id, { onDelete: "cascade" }),
     title: text("title").notNull(),
     partMarking: text("part_marking").notNull().default(""),
     package: text("package").notNull().default(""),
@@ -34,7 +36,9 @@ export const dies = pgTable(
   "dies",
   {
     id: uuid("id").primaryKey().defaultRandom(),
-    caseId: uuid("case_id").notNull().references(() => cases.id, { onDelete: "cascade" }),
+    caseId: uuid("case_id")
+      .notNull()
+      .references(() => cases.id, { onDelete: "cascade" }),
     name: text("name").notNull(),
     widthUm: doublePrecision("width_um"),
     heightUm: doublePrecision("height_um"),
@@ -53,7 +57,9 @@ export const micrographs = pgTable(
   "micrographs",
   {
     id: uuid("id").primaryKey().defaultRandom(),
-    dieId: uuid("die_id").notNull().references(() => dies.id, { onDelete: "cascade" }),
+    dieId: uuid("die_id")
+      .notNull()
+      .references(() => dies.id, { onDelete: "cascade" }),
     label: text("label").notNull(),
     illumination: illuminationEnum("illumination").notNull().default("bright_field"),
     objectiveMag: doublePrecision("objective_mag"),
@@ -107,7 +113,9 @@ export const markup = pgTable(
   {
     /** Chosen by the client when it re-creates a shape (undo of a delete keeps the same id). */
     id: uuid("id").primaryKey().defaultRandom(),
-    dieId: uuid("die_id").notNull().references(() => dies.id, { onDelete: "cascade" }),
+    dieId: uuid("die_id")
+      .notNull()
+      .references(() => dies.id, { onDelete: "cascade" }),
     kind: markupKindEnum("kind").notNull(),
     geometry: jsonb("geometry").$type<Geometry>().notNull(),
     properties: jsonb("properties").$type<Record<string, unknown>>().notNull().default({}),

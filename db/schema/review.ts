@@ -18,7 +18,9 @@ export const threads = pgTable(
   "threads",
   {
     id: uuid("id").primaryKey().defaultRandom(),
-    dieId: uuid("die_id").notNull().references(() => dies.id, { onDelete: "cascade" }),
+    dieId: uuid("die_id")
+      .notNull()
+      .references(() => dies.id, { onDelete: "cascade" }),
     shapeId: uuid("shape_id"),
     /** GeoJSON Point or Polygon in die µm: the region, or where the shape was last. */
     anchor: jsonb("anchor").$type<Geometry>().notNull(),
@@ -36,7 +38,9 @@ export const comments = pgTable(
   "comments",
   {
     id: uuid("id").primaryKey().defaultRandom(),
-    threadId: uuid("thread_id").notNull().references(() => threads.id, { onDelete: "cascade" }),
+    threadId: uuid("thread_id")
+      .notNull()
+      .references(() => threads.id, { onDelete: "cascade" }),
     authorId: uuid("author_id").references(() => users.id, { onDelete: "set null" }),
     /** Stored verbatim; rendered through a safe formatter, never as HTML. */
     body: text("body").notNull(),
@@ -49,8 +53,12 @@ export const comments = pgTable(
 export const commentMentions = pgTable(
   "comment_mentions",
   {
-    commentId: uuid("comment_id").notNull().references(() => comments.id, { onDelete: "cascade" }),
-    userId: uuid("user_id").notNull().references(() => users.id, { onDelete: "cascade" }),
+    commentId: uuid("comment_id")
+      .notNull()
+      .references(() => comments.id, { onDelete: "cascade" }),
+    userId: uuid("user_id")
+      .notNull()
+      .references(() => users.id, { onDelete: "cascade" }),
   },
   (t) => [primaryKey({ columns: [t.commentId, t.userId] }), index("comment_mentions_user_idx").on(t.userId)],
 );
@@ -62,7 +70,9 @@ export const reviewEvents = pgTable(
   "review_events",
   {
     id: uuid("id").primaryKey().defaultRandom(),
-    dieId: uuid("die_id").notNull().references(() => dies.id, { onDelete: "cascade" }),
+    dieId: uuid("die_id")
+      .notNull()
+      .references(() => dies.id, { onDelete: "cascade" }),
     actorId: uuid("actor_id").references(() => users.id, { onDelete: "set null" }),
     action: reviewActionEnum("action").notNull(),
     fromStatus: reviewStatusEnum("from_status").notNull(),
@@ -104,7 +114,9 @@ export const outbox = pgTable(
 export const notificationPrefs = pgTable(
   "notification_prefs",
   {
-    userId: uuid("user_id").notNull().references(() => users.id, { onDelete: "cascade" }),
+    userId: uuid("user_id")
+      .notNull()
+      .references(() => users.id, { onDelete: "cascade" }),
     kind: text("kind").$type<NotificationKind>().notNull(),
     enabled: boolean("enabled").notNull(),
   },
@@ -119,10 +131,16 @@ export const inboxItems = pgTable(
   "inbox_items",
   {
     id: uuid("id").primaryKey().defaultRandom(),
-    userId: uuid("user_id").notNull().references(() => users.id, { onDelete: "cascade" }),
-    teamId: uuid("team_id").notNull().references(() => teams.id, { onDelete: "cascade" }),
+    userId: uuid("user_id")
+      .notNull()
+      .references(() => users.id, { onDelete: "cascade" }),
+    teamId: uuid("team_id")
+      .notNull()
+      .references(() => teams.id, { onDelete: "cascade" }),
     kind: text("kind").$type<InboxKind>().notNull(),
-    dieId: uuid("die_id").notNull().references(() => dies.id, { onDelete: "cascade" }),
+    dieId: uuid("die_id")
+      .notNull()
+      .references(() => dies.id, { onDelete: "cascade" }),
     threadId: uuid("thread_id").references(() => threads.id, { onDelete: "cascade" }),
     text: text("text").notNull(),
     /** Names the event and the recipient, like the outbox's: one item per event and person. */

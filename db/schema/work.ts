@@ -55,7 +55,9 @@ export const exports = pgTable(
   "exports",
   {
     id: uuid("id").primaryKey().defaultRandom(),
-    dieId: uuid("die_id").notNull().references(() => dies.id, { onDelete: "cascade" }),
+    dieId: uuid("die_id")
+      .notNull()
+      .references(() => dies.id, { onDelete: "cascade" }),
     micrographId: uuid("micrograph_id").references(() => micrographs.id, { onDelete: "set null" }),
     kind: exportKindEnum("kind").notNull(),
     status: jobStatusEnum("status").notNull().default("queued"),

@@ -7,7 +7,14 @@ import { solveAffine } from "./affine-fit";
 import { pairsThrough, seededGaussian, similarityTransform } from "./test-support";
 import type { ControlPointPair } from "./types";
 
-const spread: [number, number][] = [[150, 220], [5800, 310], [6020, 3900], [240, 3720], [3100, 2000], [4500, 1200]];
+const spread: [number, number][] = [
+  [150, 220],
+  [5800, 310],
+  [6020, 3900],
+  [240, 3720],
+  [3100, 2000],
+  [4500, 1200],
+];
 // A general affine with slight shear and unequal axis scales, y flipped (negative determinant).
 const sheared: Affine2x3 = [
   [0.41, 0.012, 100.5],
@@ -26,7 +33,10 @@ function expectTransformClose(actual: Affine2x3, expected: readonly (readonly nu
 function design(pairs: readonly ControlPointPair[]) {
   const rows: number[][] = [];
   const rhs: number[] = [];
-  for (const { imagePx: [x, y], dieUm: [u, v] } of pairs) {
+  for (const {
+    imagePx: [x, y],
+    dieUm: [u, v],
+  } of pairs) {
     rows.push([x, y, 1, 0, 0, 0], [0, 0, 0, x, y, 1]);
     rhs.push(u, v);
   }
@@ -109,7 +119,12 @@ describe("solveAffine: degenerate input", () => {
   });
 
   it("rejects collinear image points", () => {
-    const line = pairsThrough(sheared, [[0, 0], [100, 100], [250, 250], [400, 400]]);
+    const line = pairsThrough(sheared, [
+      [0, 0],
+      [100, 100],
+      [250, 250],
+      [400, 400],
+    ]);
     expect(() => solveAffine(line)).toThrow(/image control points lie on one line/);
   });
 

@@ -28,12 +28,7 @@ function linearLeastSquares(source: readonly [number, number][], target: readonl
   });
   const det = sxx * syy - sxy * sxy;
   // Spp⁻¹ = [syy −sxy; −sxy sxx]/det; rows of M are the target rows times it.
-  return [
-    (ux * syy - uy * sxy) / det,
-    (uy * sxx - ux * sxy) / det,
-    (vx * syy - vy * sxy) / det,
-    (vy * sxx - vx * sxy) / det,
-  ] as const;
+  return [(ux * syy - uy * sxy) / det, (uy * sxx - ux * sxy) / det, (vx * syy - vy * sxy) / det, (vy * sxx - vx * sxy) / det] as const;
 }
 
 /**

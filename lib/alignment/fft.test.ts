@@ -74,7 +74,7 @@ describe("fft2d", () => {
     const h = 8;
     const re = new Float64Array(w * h);
     const im = new Float64Array(w * h);
-    for (let y = 0; y < h; y++) for (let x = 0; x < w; x++) re[y * w + x] = Math.cos(2 * Math.PI * (3 * x / w + 2 * y / h));
+    for (let y = 0; y < h; y++) for (let x = 0; x < w; x++) re[y * w + x] = Math.cos(2 * Math.PI * ((3 * x) / w + (2 * y) / h));
     fft2d(re, im, w, h);
     // cos(2π(kx/W + ly/H)) = ½(e^{+…} + e^{−…}): W·H/2 at (3, 2) and at (W−3, H−2).
     expect(re[2 * w + 3]).toBeCloseTo((w * h) / 2, 9);

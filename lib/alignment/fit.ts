@@ -17,10 +17,7 @@ export const MIN_PAIRS: Record<AlignmentModel, number> = { similarity: 2, affine
 export function checkInsideImage(pairs: readonly ControlPointPair[], widthPx: number, heightPx: number): void {
   pairs.forEach(({ imagePx: [x, y] }, i) => {
     if (!(x >= 0 && y >= 0 && x <= widthPx && y <= heightPx)) {
-      throw new AlignmentInputError(
-        `control point ${i + 1} (${x}, ${y}) lies outside the micrograph (${widthPx} × ${heightPx} px)`,
-        [i],
-      );
+      throw new AlignmentInputError(`control point ${i + 1} (${x}, ${y}) lies outside the micrograph (${widthPx} × ${heightPx} px)`, [i]);
     }
   });
 }

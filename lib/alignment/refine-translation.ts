@@ -21,7 +21,12 @@ export type TranslationRefinement = {
 type Box = { minX: number; minY: number; maxX: number; maxY: number };
 
 function dieBox({ image, imageToDie }: PlacedImage): Box {
-  const corners = [[0, 0], [image.width, 0], [0, image.height], [image.width, image.height]].map(([x, y]) => applyAffine(imageToDie, x, y));
+  const corners = [
+    [0, 0],
+    [image.width, 0],
+    [0, image.height],
+    [image.width, image.height],
+  ].map(([x, y]) => applyAffine(imageToDie, x, y));
   const xs = corners.map((c) => c[0]);
   const ys = corners.map((c) => c[1]);
   return { minX: Math.min(...xs), minY: Math.min(...ys), maxX: Math.max(...xs), maxY: Math.max(...ys) };

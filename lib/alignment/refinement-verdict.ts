@@ -35,7 +35,8 @@ export function judgeRefinement(r: { rmsBeforeUm: number | null; rmsAfterUm: num
   const strength = `match strength ${r.peak.toFixed(2)}`;
   let reason: string;
   if (!strongEnough) reason = `The images matched too weakly to use (${strength}, below ${MIN_MATCH_STRENGTH.toFixed(2)}); keep the control-point fit.`;
-  else if (improved === false) reason = `It does not improve the fit: RMS on the control points ${um(r.rmsBeforeUm!)} before, ${um(r.rmsAfterUm!)} after; keep the control-point fit.`;
+  else if (improved === false)
+    reason = `It does not improve the fit: RMS on the control points ${um(r.rmsBeforeUm!)} before, ${um(r.rmsAfterUm!)} after; keep the control-point fit.`;
   else if (improved === null) reason = `The images matched (${strength}); there are no control points to check it against.`;
   else reason = `It improves the fit: RMS on the control points ${um(r.rmsBeforeUm!)} before, ${um(r.rmsAfterUm!)} after (${strength}).`;
   return { improved, strongEnough, proposed: strongEnough && improved !== false, reason };

@@ -23,7 +23,15 @@ describe("sampleBilinear", () => {
 describe("resampleToGrid", () => {
   it("samples through the grid-to-image transform and fills what is off the image with the mean", () => {
     // Grid px (i, j) centre → image (i + 0.5 + 1, j + 0.5): a one-pixel shift to the right.
-    const { data: out, covered } = resampleToGrid(ramp, [[1, 0, 1], [0, 1, 0]], 6, 4);
+    const { data: out, covered } = resampleToGrid(
+      ramp,
+      [
+        [1, 0, 1],
+        [0, 1, 0],
+      ],
+      6,
+      4,
+    );
     expect(out[0]).toBeCloseTo(2 * 1.5 + 3 * 0.5, 12);
     expect(covered).toBeCloseTo(20 / 24, 12); // the last column (image x 6.5) is off the image
     const inside = Array.from(out).filter((_, k) => k % 6 !== 5);

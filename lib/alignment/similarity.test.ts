@@ -7,7 +7,14 @@ import { solveSimilarity } from "./similarity";
 import { pairsThrough, seededGaussian, similarityTransform } from "./test-support";
 import type { ControlPointPair } from "./types";
 
-const spread: [number, number][] = [[150, 220], [5800, 310], [6020, 3900], [240, 3720], [3100, 2000], [4500, 1200]];
+const spread: [number, number][] = [
+  [150, 220],
+  [5800, 310],
+  [6020, 3900],
+  [240, 3720],
+  [3100, 2000],
+  [4500, 1200],
+];
 // The dark-field case of the demo die: 0.4 µm/px, scaled 1.02, rotated 1.5°, shifted.
 const truth = similarityTransform(0.4 * 1.02, 1.5, -35.5, 1642.25);
 
@@ -27,7 +34,10 @@ function expectTransformClose(actual: Affine2x3, expected: readonly (readonly nu
 function linearSimilarity(pairs: readonly ControlPointPair[]): Affine2x3 {
   const rows: number[][] = [];
   const rhs: number[] = [];
-  for (const { imagePx: [x, y], dieUm: [u, v] } of pairs) {
+  for (const {
+    imagePx: [x, y],
+    dieUm: [u, v],
+  } of pairs) {
     rows.push([x, y, 1, 0]); // u = a·x − b·(−y) + tx
     rows.push([-y, x, 0, 1]); // v = b·x + a·(−y) + ty
     rhs.push(u, v);
@@ -62,7 +72,9 @@ function umeyamaBySvd(pairs: readonly ControlPointPair[]) {
   const sDiag = matDet(u) * matDet(v) < 0 ? [1, -1] : [1, 1]; // the reflection guard
   const r = u.mmul(Matrix.diag(sDiag)).mmul(v.transpose());
   const c = (svd.diagonal[0] * sDiag[0] + svd.diagonal[1] * sDiag[1]) / varSrc;
-  const t = Matrix.columnVector(md).sub(r.mmul(Matrix.columnVector(ms)).mul(c)).to1DArray();
+  const t = Matrix.columnVector(md)
+    .sub(r.mmul(Matrix.columnVector(ms)).mul(c))
+    .to1DArray();
   const transform: Affine2x3 = [
     [c * r.get(0, 0), -c * r.get(0, 1), t[0]],
     [c * r.get(1, 0), -c * r.get(1, 1), t[1]],
@@ -100,10 +112,14 @@ describe("solveSimilarity: exact data", () => {
 });
 
 describe("solveSimilarity: noisy data", () => {
-  const noisy = pairsThrough(truth, spread, (() => {
-    const g = seededGaussian(20240611);
-    return () => 0.5 * g(); // σ = 0.5 µm on each die coordinate
-  })());
+  const noisy = pairsThrough(
+    truth,
+    spread,
+    (() => {
+      const g = seededGaussian(20240611);
+      return () => 0.5 * g(); // σ = 0.5 µm on each die coordinate
+    })(),
+  );
 
   it("matches ml-matrix's linear least squares on the same points", () => {
     const result = solveSimilarity(noisy);
@@ -153,7 +169,11 @@ describe("solveSimilarity: reflection guard", () => {
   it("lets clicking noise on three nearly collinear points keep the requested handedness", () => {
     // Nearly collinear points cannot tell a photo from its mirror image: reflecting a line
     // about itself changes nothing (by hand), so noise must not flip the answer. 200 seeded trials.
-    const line: [number, number][] = [[100, 2000], [3000, 2000.5], [6000, 2000]];
+    const line: [number, number][] = [
+      [100, 2000],
+      [3000, 2000.5],
+      [6000, 2000],
+    ];
     for (let seed = 1; seed <= 200; seed++) {
       const g = seededGaussian(seed);
       const result = solveSimilarity(pairsThrough(truth, line, () => 0.5 * g()));

@@ -28,8 +28,14 @@ export function checkPairs(pairs: readonly ControlPointPair[], minPairs: number,
       throw new AlignmentInputError(`control point ${i + 1} has a missing, NaN or infinite coordinate`, [i]);
     }
   });
-  rejectCoincident(pairs.map((p) => p.imagePx), "image");
-  rejectCoincident(pairs.map((p) => p.dieUm), "die");
+  rejectCoincident(
+    pairs.map((p) => p.imagePx),
+    "image",
+  );
+  rejectCoincident(
+    pairs.map((p) => p.dieUm),
+    "die",
+  );
 }
 
 function extent(points: readonly Xy[]): number {
@@ -43,10 +49,7 @@ function rejectCoincident(points: readonly Xy[], side: "image" | "die"): void {
   for (let i = 0; i < points.length; i++) {
     for (let j = i + 1; j < points.length; j++) {
       if (Math.hypot(points[i][0] - points[j][0], points[i][1] - points[j][1]) <= tolerance) {
-        throw new AlignmentInputError(
-          `control points ${i + 1} and ${j + 1} are at the same ${side} position; move or remove one`,
-          [i, j],
-        );
+        throw new AlignmentInputError(`control points ${i + 1} and ${j + 1} are at the same ${side} position; move or remove one`, [i, j]);
       }
     }
   }

@@ -20,9 +20,21 @@ describe("followerView", () => {
   it("puts every die point on the same screen px in both views", () => {
     const leader = { imagePoint: [1200, 800] as const, imageZoom: 0.37, rotationDeg: 10 };
     const f = followerView(leaderT, followerT, leader);
-    for (const p of [[0, 0], [3000, 0], [1500, 1100], [2900, 2100]] as const) {
+    for (const p of [
+      [0, 0],
+      [3000, 0],
+      [1500, 1100],
+      [2900, 2100],
+    ] as const) {
       const die = applyAffine(followerT, p[0], p[1]);
-      const inLeader = applyAffine([[1, 0, 300], [0, -1, 1900]], die[0], die[1]); // leaderT⁻¹ by hand
+      const inLeader = applyAffine(
+        [
+          [1, 0, 300],
+          [0, -1, 1900],
+        ],
+        die[0],
+        die[1],
+      ); // leaderT⁻¹ by hand
       const a = toScreen(inLeader, leader, [400, 300]);
       const b = toScreen(p, f, [400, 300]);
       expect(Math.hypot(a[0] - b[0], a[1] - b[1])).toBeLessThan(1e-9);

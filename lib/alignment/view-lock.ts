@@ -18,7 +18,11 @@ export type FollowerView = {
  * for similarity transforms of equal handedness (an affine's shear cannot be shown by a
  * rotate-and-zoom view; the mean scale and the x-axis direction are used then).
  */
-export function followerView(leaderToDie: Affine2x3, followerToDie: Affine2x3, leader: { imagePoint: readonly [number, number]; imageZoom: number; rotationDeg: number }): FollowerView {
+export function followerView(
+  leaderToDie: Affine2x3,
+  followerToDie: Affine2x3,
+  leader: { imagePoint: readonly [number, number]; imageZoom: number; rotationDeg: number },
+): FollowerView {
   const [u, v] = applyAffine(leaderToDie, leader.imagePoint[0], leader.imagePoint[1]);
   const imagePoint = applyAffine(invertAffine(followerToDie), u, v);
   // follower px → leader px: its scale multiplies the zoom, its angle adds to the rotation.

@@ -3,7 +3,13 @@ import type { ExportRequest } from "@/lib/validation/exports";
 import type { ExportKind, JobStatus } from "@/lib/dto/stored-values";
 
 /** What the renderer wrote back into the export's params once done. */
-export type ExportResult = { width: number; height: number; umPerPx: number; warnings: string[]; scaleBar: { lengthUm: number; label: string; px: number; x: number; y: number } };
+export type ExportResult = {
+  width: number;
+  height: number;
+  umPerPx: number;
+  warnings: string[];
+  scaleBar: { lengthUm: number; label: string; px: number; x: number; y: number };
+};
 
 export type ExportDto = {
   id: string;

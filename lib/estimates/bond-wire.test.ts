@@ -13,7 +13,7 @@ function neumannMutual(l: number, d: number): number {
   const f = (u: number) => (2 * (l - u)) / Math.sqrt(u * u + d * d);
   let s = f(0) + f(l);
   for (let i = 1; i < n; i++) s += f(i * h) * (i % 2 ? 4 : 2);
-  return 1e-7 * (s * h) / 3;
+  return (1e-7 * (s * h)) / 3;
 }
 
 describe("bondWireInductance", () => {

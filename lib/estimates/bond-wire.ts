@@ -5,13 +5,7 @@
 import { TO_NH, UM } from "./constants";
 import { EstimateInputError, requireInteger, requirePositive } from "./input-error";
 import type { EstimateMeta } from "./types";
-import {
-  equalCurrentInductance,
-  inductiveSplitInductance,
-  parallelMutual,
-  partialInductanceMatrix,
-  roundWireSelf,
-} from "./wire-partial-inductance";
+import { equalCurrentInductance, inductiveSplitInductance, parallelMutual, partialInductanceMatrix, roundWireSelf } from "./wire-partial-inductance";
 
 export type BondWireInput = {
   lengthUm: number;
@@ -58,8 +52,7 @@ export function bondWireInductance(input: BondWireInput): BondWireEstimate {
   const self = roundWireSelf(l, (diameterUm * UM) / 2, regime);
   const base = {
     units: { inductanceNh: "nH", selfInductanceNh: "nH", mutualNh: "nH", inductiveSplitNh: "nH" },
-    source:
-      "Rosa, Bull. Bureau of Standards 4, 1908; Grover, Inductance Calculations, 1946 (self and mutual inductance of straight wires)",
+    source: "Rosa, Bull. Bureau of Standards 4, 1908; Grover, Inductance Calculations, 1946 (self and mutual inductance of straight wires)",
     warnings,
   };
   if (count === 1) {

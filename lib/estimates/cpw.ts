@@ -43,7 +43,7 @@ function unbacked(w: number, s: number, er: number, h: number | undefined): Line
     h === undefined
       ? "εe = (εr + 1)/2, Z0 = (30π/√εe)·K(k0′)/K(k0), k0 = w/(w + 2s)"
       : "εe = 1 + (εr − 1)/2·[K(k1)/K(k1′)]·[K(k0′)/K(k0)], k1 = sinh(πw/4h)/sinh(π(w + 2s)/4h), Z0 = (30π/√εe)·K(k0′)/K(k0)";
-  return { z0: (ETA0 / 4) / (Math.sqrt(ee) * q0), ee, formula };
+  return { z0: ETA0 / 4 / (Math.sqrt(ee) * q0), ee, formula };
 }
 
 /** Conductor-backed: εe = (q0 + εr·q3)/(q0 + q3), Z0 = (60π/√εe)/(q0 + q3). */
@@ -52,7 +52,7 @@ function backed(w: number, s: number, er: number, h: number): Line {
   const q3 = q(backedSubstrateModulus(w, s, h));
   const ee = (q0 + er * q3) / (q0 + q3);
   return {
-    z0: (ETA0 / 2) / (Math.sqrt(ee) * (q0 + q3)),
+    z0: ETA0 / 2 / (Math.sqrt(ee) * (q0 + q3)),
     ee,
     formula:
       "k3 = tanh(πw/4h)/tanh(π(w + 2s)/4h); εe = (1 + εr·K(k0′)K(k3)/(K(k0)K(k3′)))/(1 + K(k0′)K(k3)/(K(k0)K(k3′))); " +

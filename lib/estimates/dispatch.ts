@@ -18,18 +18,15 @@ export const ESTIMATE_KINDS = ["bond-wire", "strip", "spiral", "microstrip", "cp
 type EstimateKind = (typeof ESTIMATE_KINDS)[number];
 
 export type AnyEstimate =
-  | BondWireEstimate
-  | StripEstimate
-  | SpiralEstimate
-  | MicrostripEstimate
-  | MicrostripSynthesisEstimate
-  | CpwEstimate
-  | OpticsEstimate
-  | WaferEstimate;
+  BondWireEstimate | StripEstimate | SpiralEstimate | MicrostripEstimate | MicrostripSynthesisEstimate | CpwEstimate | OpticsEstimate | WaferEstimate;
 
 /** Microstrip: widthUm → analysis; z0Ohm without widthUm → synthesis. */
 function microstrip(p: QueryParams): MicrostripEstimate | MicrostripSynthesisEstimate {
-  const common = { heightUm: numberParam(p, "heightUm"), er: numberParam(p, "er"), thicknessUm: numberParam(p, "thicknessUm", { default: 0, allowZero: true }) };
+  const common = {
+    heightUm: numberParam(p, "heightUm"),
+    er: numberParam(p, "er"),
+    thicknessUm: numberParam(p, "thicknessUm", { default: 0, allowZero: true }),
+  };
   const widthUm = optionalNumberParam(p, "widthUm");
   const z0Ohm = optionalNumberParam(p, "z0Ohm");
   if (widthUm !== undefined && z0Ohm !== undefined) {
@@ -49,8 +46,7 @@ const READERS: Record<EstimateKind, (p: QueryParams) => AnyEstimate> = {
       pitchUm: optionalNumberParam(p, "pitchUm"),
       regime: enumParam(p, "regime", ["dc", "hf"] as const, "dc"),
     }),
-  strip: (p) =>
-    stripInductance({ lengthUm: numberParam(p, "lengthUm"), widthUm: numberParam(p, "widthUm"), thicknessUm: numberParam(p, "thicknessUm") }),
+  strip: (p) => stripInductance({ lengthUm: numberParam(p, "lengthUm"), widthUm: numberParam(p, "widthUm"), thicknessUm: numberParam(p, "thicknessUm") }),
   spiral: (p) =>
     spiralInductance({
       shape: enumParam(p, "shape", ["square", "hexagonal", "octagonal", "circular"] as const),

@@ -54,8 +54,7 @@ export function microstripWarnings(u: number, er: number, tn: number): string[] 
 }
 
 export const MICROSTRIP_SOURCE = "Hammerstad & Jensen, IEEE MTT-S International Microwave Symposium Digest, 1980 (quasi-static)";
-export const MICROSTRIP_FORMULA =
-  "Z0 = Z01(ur)/√εe(ur), Z01(u) = η0/2π·ln[f(u)/u + √(1 + 4/u²)], εe = εe(ur)·[Z01(u1)/Z01(ur)]² (Hammerstad & Jensen eqs 1–9)";
+export const MICROSTRIP_FORMULA = "Z0 = Z01(ur)/√εe(ur), Z01(u) = η0/2π·ln[f(u)/u + √(1 + 4/u²)], εe = εe(ur)·[Z01(u1)/Z01(ur)]² (Hammerstad & Jensen eqs 1–9)";
 
 /** Characteristic impedance and effective permittivity of a microstrip of given width. */
 export function microstripAnalysis(input: MicrostripInput): MicrostripEstimate {

@@ -56,10 +56,8 @@ export function opticsEstimate(input: OpticsInput): OpticsEstimate {
     totalMagnification: m,
     nyquistPixelUm: rayleighUm / 2,
     units: { rayleighUm: "µm", abbeUm: "µm", objectPixelUm: "µm", depthOfFieldUm: "µm", totalMagnification: "1", nyquistPixelUm: "µm" },
-    formula:
-      "pixel = pitch/(M_obj·M_adapter); Rayleigh d = 0.61·λ/NA; Abbe d = λ/(2·NA); depth of field = λ·n/NA² + n·e/(M·NA)",
-    source:
-      "Rayleigh criterion and Abbe limit (Born & Wolf, Principles of Optics); depth of field after Inoué & Spring, 2nd ed., 1997",
+    formula: "pixel = pitch/(M_obj·M_adapter); Rayleigh d = 0.61·λ/NA; Abbe d = λ/(2·NA); depth of field = λ·n/NA² + n·e/(M·NA)",
+    source: "Rayleigh criterion and Abbe limit (Born & Wolf, Principles of Optics); depth of field after Inoué & Spring, 2nd ed., 1997",
     warnings,
   };
 }

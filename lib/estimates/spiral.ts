@@ -80,10 +80,7 @@ export function spiralInductance(input: SpiralInput): SpiralEstimate {
     averageDiameterUm: dAvg,
     fillRatio: rho,
     units: { inductanceNh: "nH", innerDiameterUm: "µm", averageDiameterUm: "µm", fillRatio: "1" },
-    formula:
-      method === "wheeler"
-        ? "L = K1·µ0·n²·d_avg/(1 + K2·ρ) (modified Wheeler)"
-        : "L = µ0·n²·d_avg·c1/2·[ln(c2/ρ) + c3·ρ + c4·ρ²] (current sheet)",
+    formula: method === "wheeler" ? "L = K1·µ0·n²·d_avg/(1 + K2·ρ) (modified Wheeler)" : "L = µ0·n²·d_avg·c1/2·[ln(c2/ρ) + c3·ρ + c4·ρ²] (current sheet)",
     source: "Mohan, del Mar Hershenson, Boyd & Lee, IEEE J. Solid-State Circuits 34(10), 1999",
     warnings: spiralWarnings(rho, w, s),
   };

@@ -48,7 +48,11 @@ describe("stripInductance", () => {
 
   it("agrees with the numerically integrated GMD for on-chip aspect ratios", () => {
     // Independent route: L = M(GMD) with the GMD integrated numerically (definition of the GMD).
-    for (const [w, t] of [[10, 1], [20, 3], [5, 2]]) {
+    for (const [w, t] of [
+      [10, 1],
+      [20, 3],
+      [5, 2],
+    ]) {
       const ref = filamentMutual(1e-3, rectangleGmd(w * 1e-6, t * 1e-6)) * 1e9;
       const ours = stripInductance({ lengthUm: 1000, widthUm: w, thicknessUm: t }).inductanceNh;
       expect(Math.abs(ours - ref) / ref).toBeLessThan(5e-3);

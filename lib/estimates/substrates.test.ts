@@ -6,7 +6,15 @@ describe("SUBSTRATE_PRESETS", () => {
     // Common practice (REFERENCES.md [practice]): Si 11.7–11.9, GaAs 12.9, InP 12.4, SiC 9.7–10,
     // sapphire 9.4–11.6, alumina 9.8, AlN 8.8, fused silica 3.8.
     const expected: Record<string, number> = {
-      si: 11.9, "sige-on-si": 11.9, gaas: 12.9, inp: 12.4, sic: 9.7, sapphire: 9.4, alumina: 9.8, aln: 8.8, "fused-silica": 3.8,
+      si: 11.9,
+      "sige-on-si": 11.9,
+      gaas: 12.9,
+      inp: 12.4,
+      sic: 9.7,
+      sapphire: 9.4,
+      alumina: 9.8,
+      aln: 8.8,
+      "fused-silica": 3.8,
     };
     for (const [id, er] of Object.entries(expected)) expect(substratePreset(id)?.er).toBe(er);
     expect(SUBSTRATE_PRESETS).toHaveLength(Object.keys(expected).length);

@@ -91,8 +91,7 @@ export function waferEstimate(input: WaferInput): WaferEstimate {
     dieAreaCm2: areaCm2,
     units: { grossDies: "dies", yield: "1", goodDies: "dies", grossDiesExact: "dies", dieAreaCm2: "cm²" },
     formula: `DPW = π(d/2)²/A − π·d/√(2A); ${FORMULAS[model]}; good dies = ⌊DPW·Y⌋`,
-    source:
-      "Hennessy & Patterson, Computer Architecture: A Quantitative Approach, 5th ed., §1.6; Murphy, Proc. IEEE 52(12), 1964; Stapper (negative binomial)",
+    source: "Hennessy & Patterson, Computer Architecture: A Quantitative Approach, 5th ed., §1.6; Murphy, Proc. IEEE 52(12), 1964; Stapper (negative binomial)",
     warnings,
   };
 }

@@ -48,7 +48,10 @@ export function equalCurrentInductance(matrix: number[][]): number {
  * (the inductive split minimises magnetic energy), and equals it for n ≤ 2 by symmetry.
  */
 export function inductiveSplitInductance(matrix: number[][]): number {
-  const x = solve(matrix, matrix.map(() => 1));
+  const x = solve(
+    matrix,
+    matrix.map(() => 1),
+  );
   return 1 / x.reduce((a, b) => a + b, 0);
 }
 

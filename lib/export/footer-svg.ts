@@ -66,7 +66,10 @@ export function footerSvg(width: number, top: number, umPerPx: number, title: Ti
   const pad = font;
   // Average glyph width is about 0.55 em in a sans-serif face; the title keeps to 45 % of the width.
   const lines = titleLines(title, Math.max(12, Math.floor((width * 0.45 - pad) / (font * 0.6))))
-    .map((l, i) => `<text x="${n2(pad)}" y="${n2(top + pad + font * (1.2 + i * 1.5))}" font-size="${n2(i === 0 ? font * 1.15 : font)}" fill="#e6e9ec"${i === 0 ? ' font-weight="bold"' : ""}>${xmlEscape(l)}</text>`)
+    .map(
+      (l, i) =>
+        `<text x="${n2(pad)}" y="${n2(top + pad + font * (1.2 + i * 1.5))}" font-size="${n2(i === 0 ? font * 1.15 : font)}" fill="#e6e9ec"${i === 0 ? ' font-weight="bold"' : ""}>${xmlEscape(l)}</text>`,
+    )
     .join("");
   const bar = niceScaleBarLength(umPerPx, width * 0.2);
   const thickness = Math.max(3, Math.round(font * 0.45));

@@ -86,7 +86,8 @@ export function parseMarkupImport(body: unknown, bounds: DieBounds, newId: () =>
       continue;
     }
     const outside = firstPositionOutside(r.data.geometry, bounds);
-    if (outside) issues.push({ path: ["features", i, "geometry", ...outside].join("."), message: `lies outside the die and its margin (${describeBounds(bounds)})` });
+    if (outside)
+      issues.push({ path: ["features", i, "geometry", ...outside].join("."), message: `lies outside the die and its margin (${describeBounds(bounds)})` });
     else parsed.push({ shape: r.data, sourceId: e.sourceId });
   }
   if (issues.length > 0) return { ok: false, failure: refused(issues) };

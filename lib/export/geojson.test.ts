@@ -7,7 +7,18 @@ import type { AnyShape } from "@/lib/markup/types";
 const pad: AnyShape = {
   id: "11111111-1111-4111-8111-111111111111",
   kind: "pad",
-  geometry: { type: "Polygon", coordinates: [[[10, 10], [90, 10], [90, 90], [10, 90], [10, 10]]] },
+  geometry: {
+    type: "Polygon",
+    coordinates: [
+      [
+        [10, 10],
+        [90, 10],
+        [90, 90],
+        [10, 90],
+        [10, 10],
+      ],
+    ],
+  },
   properties: { label: "VDD", net: "VDD", state: "bonded" },
   version: 1,
   createdBy: null,
@@ -16,7 +27,13 @@ const pad: AnyShape = {
 const bond: AnyShape = {
   id: "22222222-2222-4222-8222-222222222222",
   kind: "wire_bond",
-  geometry: { type: "LineString", coordinates: [[50, 50], [50, -300]] },
+  geometry: {
+    type: "LineString",
+    coordinates: [
+      [50, 50],
+      [50, -300],
+    ],
+  },
   properties: { diameterUm: 25, padId: pad.id },
   version: 1,
   createdBy: null,
@@ -67,19 +84,40 @@ describe("parseMarkupImport", () => {
     expect(r.ok && r.value.shapes[0].properties).toEqual({ diameterUm: 25, padId: null });
   });
 
-  const feature = (over: Record<string, unknown>) => ({ type: "Feature", geometry: { type: "Point", coordinates: [1, 2] }, properties: { kind: "note", text: "x" }, ...over });
+  const feature = (over: Record<string, unknown>) => ({
+    type: "Feature",
+    geometry: { type: "Point", coordinates: [1, 2] },
+    properties: { kind: "note", text: "x" },
+    ...over,
+  });
   const cases: [string, unknown, RegExp][] = [
     ["a bare array", [], /FeatureCollection object/],
     ["the wrong type", { type: "Feature", features: [] }, /type: must be "FeatureCollection"/],
     ["no features list", { type: "FeatureCollection" }, /features: must be a list/],
     ["an empty collection", { type: "FeatureCollection", features: [] }, /holds no features/],
     ["a feature without geometry", { type: "FeatureCollection", features: [feature({}), feature({ geometry: null })] }, /feature 1: geometry: is required/],
-    ["a coordinate given as text", { type: "FeatureCollection", features: [feature({ geometry: { type: "Point", coordinates: ["NaN", 2] } })] }, /feature 0: geometry\.coordinates\.0: must be a number/],
-    ["an infinite coordinate", { type: "FeatureCollection", features: [feature({ geometry: { type: "Point", coordinates: [Infinity, 2] } })] }, /feature 0: geometry\.coordinates\.0: must be finite/],
+    [
+      "a coordinate given as text",
+      { type: "FeatureCollection", features: [feature({ geometry: { type: "Point", coordinates: ["NaN", 2] } })] },
+      /feature 0: geometry\.coordinates\.0: must be a number/,
+    ],
+    [
+      "an infinite coordinate",
+      { type: "FeatureCollection", features: [feature({ geometry: { type: "Point", coordinates: [Infinity, 2] } })] },
+      /feature 0: geometry\.coordinates\.0: must be finite/,
+    ],
     ["an unknown kind", { type: "FeatureCollection", features: [feature({ properties: { kind: "via" } })] }, /feature 0: properties\.kind: must be one of pad/],
     ["a missing kind", { type: "FeatureCollection", features: [feature({ properties: { text: "x" } })] }, /feature 0: properties\.kind: is required/],
-    ["geometry of the wrong type for the kind", { type: "FeatureCollection", features: [feature({ properties: { kind: "pad" } })] }, /feature 0: geometry\.type: a pad needs a Polygon/],
-    ["a shape off the die", { type: "FeatureCollection", features: [feature({ geometry: { type: "Point", coordinates: [90_000, 2] } })] }, /feature 0: geometry\.coordinates: lies outside the die/],
+    [
+      "geometry of the wrong type for the kind",
+      { type: "FeatureCollection", features: [feature({ properties: { kind: "pad" } })] },
+      /feature 0: geometry\.type: a pad needs a Polygon/,
+    ],
+    [
+      "a shape off the die",
+      { type: "FeatureCollection", features: [feature({ geometry: { type: "Point", coordinates: [90_000, 2] } })] },
+      /feature 0: geometry\.coordinates: lies outside the die/,
+    ],
   ];
   for (const [name, body, message] of cases) {
     it(`refuses ${name}, naming where`, () => {

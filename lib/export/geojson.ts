@@ -45,7 +45,12 @@ export function markupToFeatureCollection(
 ): MarkupFeatureCollection {
   return {
     type: "FeatureCollection",
-    kerfline: { units: "µm", frame: GEOJSON_FRAME, schemaVersion: MARKUP_SCHEMA_VERSION, ...(die ? { die: { name: die.name, widthUm: die.widthUm, heightUm: die.heightUm } } : {}) },
+    kerfline: {
+      units: "µm",
+      frame: GEOJSON_FRAME,
+      schemaVersion: MARKUP_SCHEMA_VERSION,
+      ...(die ? { die: { name: die.name, widthUm: die.widthUm, heightUm: die.heightUm } } : {}),
+    },
     features: shapes.map(shapeToFeature),
   };
 }

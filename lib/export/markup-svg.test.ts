@@ -18,9 +18,29 @@ describe("labels in the annotated PNG", () => {
   it("gives a finished ruler its length, in the decimals the output scale resolves", () => {
     // A 300-400-500 right triangle: the ruler from (100, 100) to (400, 500) µm is 500 µm long;
     // at 4 µm/px whole micrometres are all a pixel resolves.
-    const ruler = shape("ruler", { type: "LineString", coordinates: [[100, 100], [400, 500]] }, { label: "" });
+    const ruler = shape(
+      "ruler",
+      {
+        type: "LineString",
+        coordinates: [
+          [100, 100],
+          [400, 500],
+        ],
+      },
+      { label: "" },
+    );
     expect(textOf(labelSvg(ruler, m, style))).toBe("500 µm");
-    const named = shape("ruler", { type: "LineString", coordinates: [[100, 100], [400, 500]] }, { label: "gate pitch" });
+    const named = shape(
+      "ruler",
+      {
+        type: "LineString",
+        coordinates: [
+          [100, 100],
+          [400, 500],
+        ],
+      },
+      { label: "gate pitch" },
+    );
     expect(textOf(labelSvg(named, m, style))).toBe("gate pitch: 500 µm");
   });
 
@@ -39,10 +59,26 @@ describe("labels in the annotated PNG", () => {
 });
 
 describe("placeThreadMarks", () => {
-  const overlaps = (c: [number, number], r: number, b: { x: number; y: number; width: number; height: number }) => c[0] + r > b.x && c[0] - r < b.x + b.width && c[1] + r > b.y && c[1] - r < b.y + b.height;
+  const overlaps = (c: [number, number], r: number, b: { x: number; y: number; width: number; height: number }) =>
+    c[0] + r > b.x && c[0] - r < b.x + b.width && c[1] + r > b.y && c[1] - r < b.y + b.height;
 
   it("moves a marker anchored on a labelled shape off its label, and markers off each other", () => {
-    const pad = shape("pad", { type: "Polygon", coordinates: [[[1000, 1000], [1400, 1000], [1400, 1400], [1000, 1400], [1000, 1000]]] }, { label: "VB2", net: "", state: "bonded" });
+    const pad = shape(
+      "pad",
+      {
+        type: "Polygon",
+        coordinates: [
+          [
+            [1000, 1000],
+            [1400, 1000],
+            [1400, 1400],
+            [1000, 1400],
+            [1000, 1000],
+          ],
+        ],
+      },
+      { label: "VB2", net: "", state: "bonded" },
+    );
     const box = labelBox(pad, m, style)!;
     // Both threads sit on the pad's centre (1200, 1200) µm = output (300, 700), where its label is.
     const threads = [
@@ -62,8 +98,36 @@ describe("placeThreadMarks", () => {
 describe("pad fill in the annotated PNG", () => {
   // Fill opacities of the palette (bonded 0.35, unbonded none); a pad's shown state follows its
   // bonds unless set by hand, so a pad stored as "unbonded" with a bond attached prints filled.
-  const pad = shape("pad", { type: "Polygon", coordinates: [[[0, 0], [80, 0], [80, 80], [0, 80], [0, 0]]] }, { label: "VB3", state: "unbonded" });
-  const bond = { ...shape("wire_bond", { type: "LineString", coordinates: [[40, 40], [40, -400]] }, { padId: "pad-1" }), id: "bond-1" } as AnyShape;
+  const pad = shape(
+    "pad",
+    {
+      type: "Polygon",
+      coordinates: [
+        [
+          [0, 0],
+          [80, 0],
+          [80, 80],
+          [0, 80],
+          [0, 0],
+        ],
+      ],
+    },
+    { label: "VB3", state: "unbonded" },
+  );
+  const bond = {
+    ...shape(
+      "wire_bond",
+      {
+        type: "LineString",
+        coordinates: [
+          [40, 40],
+          [40, -400],
+        ],
+      },
+      { padId: "pad-1" },
+    ),
+    id: "bond-1",
+  } as AnyShape;
   const fillOf = (svg: string) => /<path [^>]*fill="([^"]+)" stroke="#/.exec(svg)?.[1];
 
   it("fills a pad that carries a bond, even when only the pads are exported", () => {

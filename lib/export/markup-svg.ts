@@ -98,12 +98,19 @@ export function labelSvg(shape: AnyShape, m: Affine2x3, style: MarkupStyle): str
   const f = style.fontPx;
   const plate = `<rect x="${n2(box.x)}" y="${n2(box.y)}" width="${n2(box.width)}" height="${n2(box.height)}" rx="${n2(f * 0.25)}" fill="#000" fill-opacity="${LABEL_PLATE_OPACITY}"/>`;
   const colour = KIND_STYLE[shape.kind].colour;
-  const texts = box.lines.map((line, i) => `<text x="${n2(box.x + f * 0.25)}" y="${n2(box.baseline + i * f * LINE_HEIGHT)}" font-size="${n2(f)}" fill="${colour}">${xmlEscape(line)}</text>`);
+  const texts = box.lines.map(
+    (line, i) =>
+      `<text x="${n2(box.x + f * 0.25)}" y="${n2(box.baseline + i * f * LINE_HEIGHT)}" font-size="${n2(f)}" fill="${colour}">${xmlEscape(line)}</text>`,
+  );
   return plate + texts.join("");
 }
 
 /** Where a shape's label plate goes in output px (null when it has no label). */
-export function labelBox(shape: AnyShape, m: Affine2x3, style: MarkupStyle): { lines: string[]; x: number; y: number; width: number; height: number; baseline: number } | null {
+export function labelBox(
+  shape: AnyShape,
+  m: Affine2x3,
+  style: MarkupStyle,
+): { lines: string[]; x: number; y: number; width: number; height: number; baseline: number } | null {
   const text = exportLabelText(shape, m);
   if (!text) return null;
   const f = style.fontPx;

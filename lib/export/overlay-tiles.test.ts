@@ -11,7 +11,18 @@ const pad = (id: string, x: number, y: number, label = ""): AnyShape =>
   ({
     id,
     kind: "pad",
-    geometry: { type: "Polygon", coordinates: [[[x, y], [x + 40, y], [x + 40, y + 40], [x, y + 40], [x, y]]] },
+    geometry: {
+      type: "Polygon",
+      coordinates: [
+        [
+          [x, y],
+          [x + 40, y],
+          [x + 40, y + 40],
+          [x, y + 40],
+          [x, y],
+        ],
+      ],
+    },
     properties: { label, net: "", state: "bonded" },
     version: 1,
     createdBy: null,
@@ -28,7 +39,10 @@ describe("markupTiles", () => {
 
   it("draws a shape on a tile boundary in both tiles, each shifted to its own origin", () => {
     const tiles = markupTiles([pad("b", 1010, 600)], [], m, 4096, 1024, { labels: false });
-    expect(tiles.map((t) => [t.left, t.top])).toEqual([[0, 0], [1024, 0]]);
+    expect(tiles.map((t) => [t.left, t.top])).toEqual([
+      [0, 0],
+      [1024, 0],
+    ]);
     // X 1010 is 1010 in the first tile and −14 in the second.
     expect(tiles[0].svg).toContain("M1010,");
     expect(tiles[1].svg).toContain("M-14,");

@@ -84,7 +84,13 @@ export function markupTiles(
       ];
       // Styles follow the whole output's width, not the tile's.
       const layer = markupLayerSvg(inShapes, local, width, { labels: opts.labels, threads: inThreads });
-      tiles.push({ svg: `<svg xmlns="http://www.w3.org/2000/svg" width="${w}" height="${h}" font-family="${EXPORT_FONT_FAMILY}">${layer}</svg>`, left, top, width: w, height: h });
+      tiles.push({
+        svg: `<svg xmlns="http://www.w3.org/2000/svg" width="${w}" height="${h}" font-family="${EXPORT_FONT_FAMILY}">${layer}</svg>`,
+        left,
+        top,
+        width: w,
+        height: h,
+      });
     }
   }
   return tiles;

@@ -3,7 +3,6 @@ import { PDFDocument, rgb, type PDFFont, type PDFPage } from "pdf-lib";
 import { appFontBytes } from "@/lib/fonts/app-fonts";
 import { wrapText } from "./wrap-text";
 
-
 /**
  * A small flowing layout over pdf-lib: headings, paragraphs, tables that break across pages,
  * images scaled to the text width, and page numbers written once the page count is known.
@@ -76,7 +75,10 @@ export class PdfWriter {
 
   /** Lines of at most `width` at this size: word wrap, line breaks kept, long words broken. */
   wrap(text: string, size: number, font = this.font, width = this.width): string[] {
-    const clean = text.split(/\r?\n/).map((p) => printable(p, font)).join("\n");
+    const clean = text
+      .split(/\r?\n/)
+      .map((p) => printable(p, font))
+      .join("\n");
     return wrapText(clean, width, (t) => font.widthOfTextAtSize(t, size));
   }
 
@@ -145,7 +147,12 @@ export class PdfWriter {
       const cells = columns.map((c) => this.wrap(c.header, size, this.bold, c.width - 4));
       for (let i = 0; i < Math.max(...cells.map((c) => c.length)); i++) {
         this.y -= lineHeight;
-        this.drawCells(cells.map((c) => c[i] ?? ""), columns, size, this.bold);
+        this.drawCells(
+          cells.map((c) => c[i] ?? ""),
+          columns,
+          size,
+          this.bold,
+        );
       }
       this.y -= 2;
       this.page.drawLine({ start: { x: MARGIN, y: this.y }, end: { x: MARGIN + this.width, y: this.y }, thickness: 0.5, color: rgb(0.5, 0.5, 0.5) });
@@ -161,7 +168,12 @@ export class PdfWriter {
         this.ensure(i === 0 && height <= 4 ? lineHeight * height + 2 : lineHeight + 2);
         if (this.pageIndex !== before) header();
         this.y -= lineHeight;
-        this.drawCells(cells.map((c) => c[i] ?? ""), columns, size, this.font);
+        this.drawCells(
+          cells.map((c) => c[i] ?? ""),
+          columns,
+          size,
+          this.font,
+        );
       }
       this.y -= 2;
     }

@@ -4,13 +4,25 @@ import { planRender } from "./render-plan";
 import { downscaledSource, previewPlan, PREVIEW_WIDTH_PX } from "./preview-plan";
 
 // A 12,000 × 9,000 px micrograph at 0.25 µm/px, y flipped, with a 2,048 × 1,536 px copy.
-const original = { width: 12_000, height: 9_000, transform: [[0.25, 0, 0], [0, -0.25, 2250]] as const };
+const original = {
+  width: 12_000,
+  height: 9_000,
+  transform: [
+    [0.25, 0, 0],
+    [0, -0.25, 2250],
+  ] as const,
+};
 const die = { widthUm: 3000, heightUm: 2250 };
 
 describe("downscaledSource", () => {
   it("maps each corner of the copy onto the same die point as the original's corner", () => {
     const copy = downscaledSource(original, 2048, 1536);
-    for (const [u, v, x, y] of [[0, 0, 0, 0], [2048, 0, 12_000, 0], [0, 1536, 0, 9000], [2048, 1536, 12_000, 9000]]) {
+    for (const [u, v, x, y] of [
+      [0, 0, 0, 0],
+      [2048, 0, 12_000, 0],
+      [0, 1536, 0, 9000],
+      [2048, 1536, 12_000, 9000],
+    ]) {
       expect(applyAffine(copy.transform, u, v)).toEqual(applyAffine(original.transform, x, y));
     }
   });

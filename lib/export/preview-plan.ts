@@ -24,7 +24,12 @@ export function downscaledSource(original: SourceImage, width: number, height: n
  * copy when that copy still has at least one pixel per output pixel there, else from the
  * original. Says which it chose.
  */
-export function previewPlan(original: SourceImage, copy: { width: number; height: number } | null, full: RenderPlan, maxWidth = PREVIEW_WIDTH_PX): { plan: RenderPlan; fromCopy: boolean } {
+export function previewPlan(
+  original: SourceImage,
+  copy: { width: number; height: number } | null,
+  full: RenderPlan,
+  maxWidth = PREVIEW_WIDTH_PX,
+): { plan: RenderPlan; fromCopy: boolean } {
   const req: PlanRequest = { region: full.region, widthPx: Math.min(maxWidth, full.width) };
   const die = { widthUm: null, heightUm: null };
   if (copy) {

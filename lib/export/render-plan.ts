@@ -86,7 +86,12 @@ export type PlanResult = { readonly ok: true; readonly plan: RenderPlan } | { re
 const ROTATION_TOLERANCE = 1e-9;
 
 function corners(width: number, height: number): [number, number][] {
-  return [[0, 0], [width, 0], [0, height], [width, height]];
+  return [
+    [0, 0],
+    [width, 0],
+    [0, height],
+    [width, height],
+  ];
 }
 
 /** The die rectangle the micrograph covers (its bounding box when rotated), for dies of unknown size. */
@@ -207,7 +212,11 @@ function affineWindow(image: SourceImage, toOutput: Affine2x3, W: number, H: num
  * 16,384 px; warns when the output enlarges the source. Micrographs whose alignment rotates or
  * shears them are resampled through their transform, so the export is always in the die frame.
  */
-export function planRender(image: SourceImage, die: { widthUm: number | null; heightUm: number | null; extentUm?: ExtentUm | null }, req: PlanRequest): PlanResult {
+export function planRender(
+  image: SourceImage,
+  die: { widthUm: number | null; heightUm: number | null; extentUm?: ExtentUm | null },
+  req: PlanRequest,
+): PlanResult {
   const [[a, b], [c, d]] = image.transform;
   const axisAligned = Math.abs(b) <= ROTATION_TOLERANCE * Math.abs(a) && Math.abs(c) <= ROTATION_TOLERANCE * Math.abs(d) && a !== 0 && d !== 0;
   const region = req.region ?? wholeDieRegion(die) ?? imageExtentUm(image);
@@ -218,7 +227,10 @@ export function planRender(image: SourceImage, die: { widthUm: number | null; he
   const width = Math.round(region.width / s);
   const height = Math.round(region.height / s);
   if (width > MAX_OUTPUT_PX || height > MAX_OUTPUT_PX) {
-    return { ok: false, message: `The output would be ${width} × ${height} px; at most ${MAX_OUTPUT_PX} px on each side. Choose a coarser scale or a smaller region.` };
+    return {
+      ok: false,
+      message: `The output would be ${width} × ${height} px; at most ${MAX_OUTPUT_PX} px on each side. Choose a coarser scale or a smaller region.`,
+    };
   }
   if (width < 1 || height < 1) return { ok: false, message: "The output would be smaller than one pixel; choose a finer scale." };
   const dieToOutput: Affine2x3 = [
@@ -228,7 +240,10 @@ export function planRender(image: SourceImage, die: { widthUm: number | null; he
   const source = axisAligned ? axisWindow(image, region, width, height) : affineWindow(image, composeAffine(dieToOutput, image.transform), width, height);
   const k = s / native;
   const warnings: string[] = [];
-  if (k < 1 - 1e-9) warnings.push(`The output is enlarged ${(1 / k).toFixed(2)}× beyond the micrograph's resolution (${native.toPrecision(3)} µm/px); it shows no more detail than the source.`);
+  if (k < 1 - 1e-9)
+    warnings.push(
+      `The output is enlarged ${(1 / k).toFixed(2)}× beyond the micrograph's resolution (${native.toPrecision(3)} µm/px); it shows no more detail than the source.`,
+    );
   if (!source) warnings.push("The region does not overlap this micrograph; only the markup is drawn.");
   return { ok: true, plan: { region, umPerPx: s, width, height, dieToOutput, source, sourcePxPerOutputPx: k, warnings } };
 }

@@ -9,7 +9,9 @@ import { wrapText } from "./wrap-text";
 
 // The report read back by poppler's pdftotext (an independent PDF reader): every review message,
 // reply and saved estimate is there in full, and the layout flows instead of one page a section.
-const LONG = Array.from({ length: 60 }, (_, i) => `word${i}`).join(" ") + " the bias network of VB2 looks re-worked near the mixer; please confirm against the second dark-field frame.";
+const LONG =
+  Array.from({ length: 60 }, (_, i) => `word${i}`).join(" ") +
+  " the bias network of VB2 looks re-worked near the mixer; please confirm against the second dark-field frame.";
 const MESSAGES = [
   "Is the bandgap trimmed? Ω ± 5 %",
   LONG,
@@ -23,25 +25,49 @@ function data(): ReportData {
     generatedAt: "2026-12-02 14:30",
     generatedBy: "Ola Owner",
     caseInfo: { title: "NV-24R receiver teardown", partMarking: "NV24R-A", package: "QFN-24", sampleId: "S-0042" },
-    die: { name: "die 1", widthUm: 2399.9999812, heightUm: 1600.0000004, analyst: "Ana Analyst", reviewStatus: "with checker", notes: "Opened with fuming nitric acid by the lab (see the lab's safety rules)." },
+    die: {
+      name: "die 1",
+      widthUm: 2399.9999812,
+      heightUm: 1600.0000004,
+      analyst: "Ana Analyst",
+      reviewStatus: "with checker",
+      notes: "Opened with fuming nitric acid by the lab (see the lab's safety rules).",
+    },
     overview: null,
     padTable: { unavailable: "No pads are drawn." },
     blocks: [{ name: "LNA", function: "low-noise amplifier, first stage", areaUm2: 120000 }],
     measurements: [{ kind: "Ruler", label: "die width", lengthUm: 2399.9999812 }],
     reviewHistory: [
       { at: "2026-12-01 09:12", who: "Ana Analyst", action: "submit", from: "draft", to: "with checker", message: "Ready for a look: " + LONG },
-      { at: "2026-12-01 15:40", who: "Rita Reviewer", action: "request changes", from: "with checker", to: "returned", message: "Pads 7 and 8 swapped, please recheck the supply pins before sign-off." },
+      {
+        at: "2026-12-01 15:40",
+        who: "Rita Reviewer",
+        action: "request changes",
+        from: "with checker",
+        to: "returned",
+        message: "Pads 7 and 8 swapped, please recheck the supply pins before sign-off.",
+      },
     ],
     threads: [
       {
-        number: 1, status: "open", author: "Rita Reviewer", createdAt: "2026-12-01 15:31", on: "on block LNA", resolved: null,
+        number: 1,
+        status: "open",
+        author: "Rita Reviewer",
+        createdAt: "2026-12-01 15:31",
+        on: "on block LNA",
+        resolved: null,
         messages: [
           { author: "Rita Reviewer", at: "2026-12-01 15:31", body: MESSAGES[0], edited: false },
           { author: "Ana Analyst", at: "2026-12-01 16:02", body: MESSAGES[2], edited: true },
         ],
       },
       {
-        number: 2, status: "resolved", author: "Rita Reviewer", createdAt: "2026-12-01 15:33", on: "on a drawn region", resolved: "resolved by Rita Reviewer on 2026-12-02 08:00",
+        number: 2,
+        status: "resolved",
+        author: "Rita Reviewer",
+        createdAt: "2026-12-01 15:33",
+        on: "on a drawn region",
+        resolved: "resolved by Rita Reviewer on 2026-12-02 08:00",
         messages: [
           { author: "Rita Reviewer", at: "2026-12-01 15:33", body: MESSAGES[1], edited: false },
           { author: "Ana Analyst", at: "2026-12-01 16:10", body: MESSAGES[3], edited: false },
@@ -50,11 +76,45 @@ function data(): ReportData {
       },
     ],
     estimates: [
-      { shape: "Wire bond RFIN", formula: "Bond-wire inductance (Rosa; Grover)", summary: "L 1.02 nH", source: "Grover, Inductance Calculations", savedAt: "2026-12-01 14:00", warnings: "", values: [["length (µm)", "1000"], ["diameter (µm)", "25"], ["inductance (nH)", "1.024"]] },
-      { shape: "Trace TL1", formula: "Microstrip impedance (Hammerstad & Jensen)", summary: "Z0 49.8 Ω (microstrip)", source: "Hammerstad and Jensen 1980", savedAt: "2026-12-01 14:05", warnings: "w/h outside the fitted range", values: [["width (µm)", "10"], ["z0 (Ω)", "49.81"]] },
+      {
+        shape: "Wire bond RFIN",
+        formula: "Bond-wire inductance (Rosa; Grover)",
+        summary: "L 1.02 nH",
+        source: "Grover, Inductance Calculations",
+        savedAt: "2026-12-01 14:00",
+        warnings: "",
+        values: [
+          ["length (µm)", "1000"],
+          ["diameter (µm)", "25"],
+          ["inductance (nH)", "1.024"],
+        ],
+      },
+      {
+        shape: "Trace TL1",
+        formula: "Microstrip impedance (Hammerstad & Jensen)",
+        summary: "Z0 49.8 Ω (microstrip)",
+        source: "Hammerstad and Jensen 1980",
+        savedAt: "2026-12-01 14:05",
+        warnings: "w/h outside the fitted range",
+        values: [
+          ["width (µm)", "10"],
+          ["z0 (Ω)", "49.81"],
+        ],
+      },
     ],
     umPerPx: 0.45,
-    micrographs: [{ label: "bright field 5x", illumination: "bright field", size: "5334 × 3556", scale: "0.450 µm/px", objective: "5×, NA 0.15", reference: true, alignmentRms: "reference", status: "ready" }],
+    micrographs: [
+      {
+        label: "bright field 5x",
+        illumination: "bright field",
+        size: "5334 × 3556",
+        scale: "0.450 µm/px",
+        objective: "5×, NA 0.15",
+        reference: true,
+        alignmentRms: "reference",
+        status: "ready",
+      },
+    ],
   };
 }
 
@@ -77,7 +137,8 @@ describe("buildReportPdf", () => {
   it("prints every review message and reply in full, without ellipses", async () => {
     const { text } = pdfText(await buildReportPdf(data()));
     const flat = words(text);
-    for (const m of [...MESSAGES, "Pads 7 and 8 swapped, please recheck the supply pins before sign-off.", "Ready for a look: " + LONG]) expect(flat).toContain(words(m));
+    for (const m of [...MESSAGES, "Pads 7 and 8 swapped, please recheck the supply pins before sign-off.", "Ready for a look: " + LONG])
+      expect(flat).toContain(words(m));
     expect(text).not.toContain("…");
     for (const date of ["2026-12-01 15:31", "2026-12-01 16:02", "2026-12-02 08:00", "2026-12-01 09:12"]) expect(flat).toContain(date);
     expect(flat).toContain("resolved by Rita Reviewer");
@@ -104,7 +165,9 @@ describe("buildReportPdf", () => {
   });
 
   it("keeps a page-wide overview with the text that follows it", async () => {
-    const png = await sharp({ create: { width: 1600, height: 1067, channels: 3, background: { r: 90, g: 100, b: 80 } } }).png().toBuffer();
+    const png = await sharp({ create: { width: 1600, height: 1067, channels: 3, background: { r: 90, g: 100, b: 80 } } })
+      .png()
+      .toBuffer();
     const { pages } = pdfText(await buildReportPdf({ ...data(), overview: { png, caption: "bright field 5x, whole die" } }));
     expect(pages).toBeLessThanOrEqual(4);
   });

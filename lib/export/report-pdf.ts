@@ -7,12 +7,26 @@ export type ReportData = {
   readonly generatedAt: string;
   readonly generatedBy: string;
   readonly caseInfo: { readonly title: string; readonly partMarking: string; readonly package: string; readonly sampleId: string };
-  readonly die: { readonly name: string; readonly widthUm: number | null; readonly heightUm: number | null; readonly analyst: string; readonly reviewStatus: string; readonly notes: string };
+  readonly die: {
+    readonly name: string;
+    readonly widthUm: number | null;
+    readonly heightUm: number | null;
+    readonly analyst: string;
+    readonly reviewStatus: string;
+    readonly notes: string;
+  };
   readonly overview: { readonly png: Uint8Array; readonly caption: string } | null;
   readonly padTable: PadTable | { readonly unavailable: string };
   readonly blocks: readonly { readonly name: string; readonly function: string; readonly areaUm2: number }[];
   readonly measurements: readonly { readonly kind: string; readonly label: string; readonly lengthUm: number; readonly widthUm?: number }[];
-  readonly reviewHistory: readonly { readonly at: string; readonly who: string; readonly action: string; readonly from: string; readonly to: string; readonly message: string }[];
+  readonly reviewHistory: readonly {
+    readonly at: string;
+    readonly who: string;
+    readonly action: string;
+    readonly from: string;
+    readonly to: string;
+    readonly message: string;
+  }[];
   readonly threads: readonly ReportThread[];
   /** Estimates saved on shapes, each with every input and result it holds. */
   readonly estimates: readonly ReportEstimate[];
@@ -74,7 +88,14 @@ function sections(d: ReportData): Section[] {
       draw: (w) =>
         d.blocks.length === 0
           ? w.text("No blocks are marked.", 9)
-          : w.table([{ header: "Block", width: 150 }, { header: "Function", width: 245 }, { header: "Area (µm²)", width: 100, align: "right" }], d.blocks.map((b) => [b.name || "(unnamed)", b.function, b.areaUm2.toFixed(0)])),
+          : w.table(
+              [
+                { header: "Block", width: 150 },
+                { header: "Function", width: 245 },
+                { header: "Area (µm²)", width: 100, align: "right" },
+              ],
+              d.blocks.map((b) => [b.name || "(unnamed)", b.function, b.areaUm2.toFixed(0)]),
+            ),
     },
     {
       title: "Measurements",
@@ -82,7 +103,12 @@ function sections(d: ReportData): Section[] {
         d.measurements.length === 0
           ? w.text("No rulers or traces are drawn.", 9)
           : w.table(
-              [{ header: "Kind", width: 80 }, { header: "Label", width: 215 }, { header: "Length (µm)", width: 100, align: "right" }, { header: "Width (µm)", width: 100, align: "right" }],
+              [
+                { header: "Kind", width: 80 },
+                { header: "Label", width: 215 },
+                { header: "Length (µm)", width: 100, align: "right" },
+                { header: "Width (µm)", width: 100, align: "right" },
+              ],
               d.measurements.map((m) => [m.kind, m.label, um(m.lengthUm), m.widthUm === undefined ? "" : um(m.widthUm)]),
             ),
     },
@@ -92,7 +118,15 @@ function sections(d: ReportData): Section[] {
       title: "Micrographs",
       draw: (w) =>
         w.table(
-          [{ header: "Micrograph", width: 110 }, { header: "Illumination", width: 70 }, { header: "Pixels", width: 70 }, { header: "Scale", width: 70 }, { header: "Objective", width: 60 }, { header: "Alignment RMS", width: 70 }, { header: "Status", width: 45 }],
+          [
+            { header: "Micrograph", width: 110 },
+            { header: "Illumination", width: 70 },
+            { header: "Pixels", width: 70 },
+            { header: "Scale", width: 70 },
+            { header: "Objective", width: 60 },
+            { header: "Alignment RMS", width: 70 },
+            { header: "Status", width: 45 },
+          ],
           d.micrographs.map((m) => [`${m.label}${m.reference ? " (reference)" : ""}`, m.illumination, m.size, m.scale, m.objective, m.alignmentRms, m.status]),
         ),
     },
@@ -102,7 +136,10 @@ function sections(d: ReportData): Section[] {
 function padSection(w: PdfWriter, t: ReportData["padTable"], um: (v: number | null | undefined) => string) {
   if ("unavailable" in t) return w.text(t.unavailable, 9);
   const s = t.summary.padsPerSide;
-  w.text(`${t.rows.length} pads (N ${s.N}, E ${s.E}, S ${s.S}, W ${s.W}); smallest pitch ${t.summary.minPitchUm === null ? "—" : `${um(t.summary.minPitchUm)} µm`}. Numbered counter-clockwise from pad 1; positions from the die's lower-left corner.`, 9);
+  w.text(
+    `${t.rows.length} pads (N ${s.N}, E ${s.E}, S ${s.S}, W ${s.W}); smallest pitch ${t.summary.minPitchUm === null ? "—" : `${um(t.summary.minPitchUm)} µm`}. Numbered counter-clockwise from pad 1; positions from the die's lower-left corner.`,
+    9,
+  );
   const cols: Column[] = [
     { header: "No.", width: 30, align: "right" },
     { header: "Label", width: 90 },
@@ -114,7 +151,10 @@ function padSection(w: PdfWriter, t: ReportData["padTable"], um: (v: number | nu
     { header: "Size (µm)", width: 55, align: "right" },
     { header: "Pitch", width: 45, align: "right" },
   ];
-  w.table(cols, t.rows.map((r) => [String(r.number), r.label, r.net, r.state, r.side, um(r.xUm), um(r.yUm), `${um(r.widthUm)}×${um(r.heightUm)}`, um(r.pitchUm)]));
+  w.table(
+    cols,
+    t.rows.map((r) => [String(r.number), r.label, r.net, r.state, r.side, um(r.xUm), um(r.yUm), `${um(r.widthUm)}×${um(r.heightUm)}`, um(r.pitchUm)]),
+  );
 }
 
 function estimatesSection(w: PdfWriter, estimates: ReportData["estimates"]) {
@@ -129,7 +169,14 @@ function estimatesSection(w: PdfWriter, estimates: ReportData["estimates"]) {
 }
 
 function reviewSection(w: PdfWriter, d: ReportData) {
-  w.facts([["Review status", d.die.reviewStatus], ["Analyst", d.die.analyst]], 9.5, 110);
+  w.facts(
+    [
+      ["Review status", d.die.reviewStatus],
+      ["Analyst", d.die.analyst],
+    ],
+    9.5,
+    110,
+  );
   w.text("History", 11, { bold: true });
   if (d.reviewHistory.length === 0) w.text("The die has not been submitted for review yet.", 9);
   for (const h of d.reviewHistory) {

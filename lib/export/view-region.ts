@@ -32,7 +32,11 @@ const DIE_SURROUND = 0.1;
  * reach beyond that (wire bonds out to the package), with a margin of 3 % of the larger side of
  * die and markup on every edge so nothing touches the border. Null when the die has no size.
  */
-export function wholeDieRegion(die: { readonly widthUm: number | null; readonly heightUm: number | null; readonly extentUm?: ExtentUm | null }): DieRegion | null {
+export function wholeDieRegion(die: {
+  readonly widthUm: number | null;
+  readonly heightUm: number | null;
+  readonly extentUm?: ExtentUm | null;
+}): DieRegion | null {
   if (!die.widthUm || !die.heightUm) return null;
   const room = DIE_SURROUND * Math.max(die.widthUm, die.heightUm);
   let x0 = -room;

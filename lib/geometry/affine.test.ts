@@ -2,16 +2,7 @@ import { describe, it, expect } from "vitest";
 import { Matrix, inverse } from "ml-matrix";
 import type { Affine2x3 } from "./types";
 import { diePoint, imagePoint } from "./types";
-import {
-  applyAffine,
-  composeAffine,
-  determinant,
-  dieToImage,
-  frameFromScale,
-  imageToDie,
-  invertAffine,
-  meanScale,
-} from "./affine";
+import { applyAffine, composeAffine, determinant, dieToImage, frameFromScale, imageToDie, invertAffine, meanScale } from "./affine";
 
 const homogeneous = (m: Affine2x3) => new Matrix([[...m[0]], [...m[1]], [0, 0, 1]]);
 
@@ -81,7 +72,12 @@ describe("composeAffine", () => {
 
 describe("image ↔ die round trips", () => {
   it("return to the starting image pixel within 1e-9 µm", () => {
-    for (const [x, y] of [[0, 0], [6000, 4000], [1234.5, 987.25], [-50, 8000]]) {
+    for (const [x, y] of [
+      [0, 0],
+      [6000, 4000],
+      [1234.5, 987.25],
+      [-50, 8000],
+    ]) {
       const back = dieToImage(aligned, imageToDie(aligned, imagePoint(x, y)));
       // Error measured in die µm: the pixel error times the scale.
       expect(Math.hypot(back.x - x, back.y - y) * meanScale(aligned)).toBeLessThan(1e-9);
@@ -89,7 +85,11 @@ describe("image ↔ die round trips", () => {
   });
 
   it("return to the starting die point within 1e-9 µm", () => {
-    for (const [x, y] of [[0, 0], [2400, 1600], [1200.125, 800.5]]) {
+    for (const [x, y] of [
+      [0, 0],
+      [2400, 1600],
+      [1200.125, 800.5],
+    ]) {
       const back = imageToDie(aligned, dieToImage(aligned, diePoint(x, y)));
       expect(Math.hypot(back.x - x, back.y - y)).toBeLessThan(1e-9);
     }

@@ -138,8 +138,8 @@ export function geometryCentre(geometry: Geometry): Position {
   for (let i = 1; i < pts.length; i++) {
     const len = Math.hypot(pts[i][0] - pts[i - 1][0], pts[i][1] - pts[i - 1][1]);
     total += len;
-    sx += len * (pts[i][0] + pts[i - 1][0]) / 2;
-    sy += len * (pts[i][1] + pts[i - 1][1]) / 2;
+    sx += (len * (pts[i][0] + pts[i - 1][0])) / 2;
+    sy += (len * (pts[i][1] + pts[i - 1][1])) / 2;
   }
   return total === 0 ? pts[0] : [sx / total, sy / total];
 }

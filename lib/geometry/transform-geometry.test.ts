@@ -13,7 +13,10 @@ const frame: Affine2x3 = [
 /** The same mapping done by ml-matrix in homogeneous coordinates, as an independent check. */
 function viaMlMatrix(m: Affine2x3, x: number, y: number): number[] {
   const h = new Matrix([[...m[0]], [...m[1]], [0, 0, 1]]);
-  return h.mmul(Matrix.columnVector([x, y, 1])).to1DArray().slice(0, 2);
+  return h
+    .mmul(Matrix.columnVector([x, y, 1]))
+    .to1DArray()
+    .slice(0, 2);
 }
 
 describe("transformGeometry", () => {
@@ -34,8 +37,19 @@ describe("transformGeometry", () => {
     const poly: PolygonGeometry = {
       type: "Polygon",
       coordinates: [
-        [[0, 0], [10, 0], [10, 10], [0, 10], [0, 0]],
-        [[2, 2], [4, 2], [4, 4], [2, 2]],
+        [
+          [0, 0],
+          [10, 0],
+          [10, 10],
+          [0, 10],
+          [0, 0],
+        ],
+        [
+          [2, 2],
+          [4, 2],
+          [4, 4],
+          [2, 2],
+        ],
       ],
     };
     const out = transformGeometry(m, poly);
@@ -50,7 +64,14 @@ describe("transformGeometry", () => {
   });
 
   it("keeps a line's position count and leaves the input untouched", () => {
-    const line = { type: "LineString" as const, coordinates: [[0, 0], [4, 0], [4, 8]] as [number, number][] };
+    const line = {
+      type: "LineString" as const,
+      coordinates: [
+        [0, 0],
+        [4, 0],
+        [4, 8],
+      ] as [number, number][],
+    };
     const out = transformGeometry(frame, line);
     expect(out.coordinates).toHaveLength(3);
     expect(line.coordinates[2]).toEqual([4, 8]);
@@ -60,7 +81,20 @@ describe("transformGeometry", () => {
 
 describe("translateGeometry", () => {
   it("moves every position by (dx, dy)", () => {
-    const out = translateGeometry({ type: "LineString", coordinates: [[1, 2], [3, 4]] }, 10, -5);
-    expect(out.coordinates).toEqual([[11, -3], [13, -1]]);
+    const out = translateGeometry(
+      {
+        type: "LineString",
+        coordinates: [
+          [1, 2],
+          [3, 4],
+        ],
+      },
+      10,
+      -5,
+    );
+    expect(out.coordinates).toEqual([
+      [11, -3],
+      [13, -1],
+    ]);
   });
 });

@@ -16,10 +16,7 @@ export const diePoint = (x: number, y: number) => ({ x, y }) as DiePoint;
  * A 2x3 affine matrix [[a, b, tx], [c, d, ty]]: out = [[a, b], [c, d]]·in + [tx, ty].
  * Stored per micrograph as image px → die µm (the API's `transform`).
  */
-export type Affine2x3 = readonly [
-  readonly [number, number, number],
-  readonly [number, number, number],
-];
+export type Affine2x3 = readonly [readonly [number, number, number], readonly [number, number, number]];
 
 /** The same matrix as stored in JSON (the `transform` column and the API field). */
 export type Transform = [[number, number, number], [number, number, number]];

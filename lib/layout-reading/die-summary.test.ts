@@ -21,8 +21,20 @@ describe("dieSize", () => {
   });
 
   it("falls back to the bounding box of a non-rectangular outline, then to the recorded size", () => {
-    const l: Position[] = [[0, 0], [2000, 0], [2000, 1000], [1000, 1000], [1000, 1500], [0, 1500], [0, 0]];
-    expect(dieSize([shapeOf("die_outline", { type: "Polygon", coordinates: [l] })], RECORDED)).toEqual({ widthUm: 2000, heightUm: 1500, source: "outline_box" });
+    const l: Position[] = [
+      [0, 0],
+      [2000, 0],
+      [2000, 1000],
+      [1000, 1000],
+      [1000, 1500],
+      [0, 1500],
+      [0, 0],
+    ];
+    expect(dieSize([shapeOf("die_outline", { type: "Polygon", coordinates: [l] })], RECORDED)).toEqual({
+      widthUm: 2000,
+      heightUm: 1500,
+      source: "outline_box",
+    });
     expect(dieSize([], RECORDED)).toEqual({ widthUm: 2400, heightUm: 1600, source: "recorded" });
     expect(dieSize([], { widthUm: null, heightUm: 1600 })).toBeNull();
   });
@@ -47,7 +59,13 @@ describe("padStateCounts", () => {
       return shapeOf("pad", { type: "Polygon", coordinates: [rectRing(x - 40, y - 40, x + 40, y + 40)] }, { label: p.label, net: p.net, state: p.state });
     });
   const bondsFor = (pads: AnyShape[]) =>
-    NV24R_LAYOUT.wireBonds.map((b) => shapeOf("wire_bond", { type: "LineString", coordinates: [b.fromUm, b.toUm] }, { diameterUm: 25, padId: pads.find((p) => p.properties.label === b.pad)!.id }));
+    NV24R_LAYOUT.wireBonds.map((b) =>
+      shapeOf(
+        "wire_bond",
+        { type: "LineString", coordinates: [b.fromUm, b.toUm] },
+        { diameterUm: 25, padId: pads.find((p) => p.properties.label === b.pad)!.id },
+      ),
+    );
 
   it("counts the demo die's pads by state, bonded ones from their wire bonds", () => {
     const pads = demoPads();
@@ -67,7 +85,17 @@ describe("padStateCounts", () => {
 
 describe("savedEstimateRows", () => {
   it("lists every saved estimate with its shape", () => {
-    const wb = shapeOf("wire_bond", { type: "LineString", coordinates: [[0, 0], [1000, 0]] }, { label: "RFIN bond", diameterUm: 25, estimates: { "bond-wire": { inductanceNh: 0.865 } } });
+    const wb = shapeOf(
+      "wire_bond",
+      {
+        type: "LineString",
+        coordinates: [
+          [0, 0],
+          [1000, 0],
+        ],
+      },
+      { label: "RFIN bond", diameterUm: 25, estimates: { "bond-wire": { inductanceNh: 0.865 } } },
+    );
     const rows = savedEstimateRows([wb, shapeOf("note", { type: "Point", coordinates: [1, 1] }, { text: "x" })], (s) => String(s.properties.label ?? ""));
     expect(rows).toEqual([{ shapeId: wb.id, shapeKind: "wire_bond", label: "RFIN bond", key: "bond-wire", estimate: { inductanceNh: 0.865 } }]);
   });

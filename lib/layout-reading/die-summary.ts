@@ -67,7 +67,13 @@ export function padStateCounts(shapes: readonly AnyShape[]): PadStateCounts {
   return c;
 }
 
-export type SavedEstimateRow = { readonly shapeId: string; readonly shapeKind: MarkupKind; readonly label: string; readonly key: string; readonly estimate: SavedEstimate };
+export type SavedEstimateRow = {
+  readonly shapeId: string;
+  readonly shapeKind: MarkupKind;
+  readonly label: string;
+  readonly key: string;
+  readonly estimate: SavedEstimate;
+};
 
 /** Every estimate saved on the die's shapes, one row each, in drawing order. */
 export function savedEstimateRows(shapes: readonly AnyShape[], labelOf: (s: AnyShape) => string): SavedEstimateRow[] {

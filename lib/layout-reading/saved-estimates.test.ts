@@ -25,7 +25,17 @@ describe("toSavedEstimate", () => {
     // Rosa/Grover by hand for 1 mm of 25 µm wire: 0.86503 nH (see shape-inputs.test.ts).
     expect(record.inductanceNh as number).toBeCloseTo(0.86503, 4);
     expect(String(record.source)).toMatch(/Grover/);
-    const shape = { kind: "wire_bond", geometry: { type: "LineString", coordinates: [[0, 0], [1000, 0]] }, properties: { diameterUm: 25, estimates: { "bond-wire": record } } };
+    const shape = {
+      kind: "wire_bond",
+      geometry: {
+        type: "LineString",
+        coordinates: [
+          [0, 0],
+          [1000, 0],
+        ],
+      },
+      properties: { diameterUm: 25, estimates: { "bond-wire": record } },
+    };
     expect(newShapeSchema.safeParse(shape).success).toBe(true);
   });
 

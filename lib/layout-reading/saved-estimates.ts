@@ -63,7 +63,9 @@ export function summariseSavedEstimate(e: SavedEstimate): string | null {
 export function savedEstimatesOf(properties: Readonly<Record<string, unknown>>): SavedEstimates {
   const e = properties.estimates;
   if (!e || typeof e !== "object" || Array.isArray(e)) return {};
-  return Object.fromEntries(Object.entries(e as Record<string, unknown>).filter(([, v]) => v !== null && typeof v === "object" && !Array.isArray(v))) as SavedEstimates;
+  return Object.fromEntries(
+    Object.entries(e as Record<string, unknown>).filter(([, v]) => v !== null && typeof v === "object" && !Array.isArray(v)),
+  ) as SavedEstimates;
 }
 
 /** Every saved estimate of a shape as one line: "L 0.865 nH · Z0 49.8 Ω (microstrip)". */

@@ -4,21 +4,44 @@ import type { AnyShape } from "../markup/types";
 import { estimateRoleOf, spiralOuterDiameterFromBlock, traceInputs, wireBondInputs } from "./shape-inputs";
 import { rectRing, shapeOf } from "./test-shapes";
 
-const bond = (coords: [number, number][], props: Record<string, unknown> = {}) => shapeOf("wire_bond", { type: "LineString", coordinates: coords }, props) as AnyShape & { kind: "wire_bond" };
+const bond = (coords: [number, number][], props: Record<string, unknown> = {}) =>
+  shapeOf("wire_bond", { type: "LineString", coordinates: coords }, props) as AnyShape & { kind: "wire_bond" };
 
 describe("wireBondInputs", () => {
   it("takes the drawn length and the recorded diameter", () => {
     // A 600 × 800 µm run is 1000 µm long (3-4-5 right triangle).
-    expect(wireBondInputs(bond([[100, 100], [700, 900]], { diameterUm: 32 }))).toEqual({ lengthUm: 1000, diameterUm: 32 });
+    expect(
+      wireBondInputs(
+        bond(
+          [
+            [100, 100],
+            [700, 900],
+          ],
+          { diameterUm: 32 },
+        ),
+      ),
+    ).toEqual({ lengthUm: 1000, diameterUm: 32 });
   });
 
   it("falls back to 25 µm wire when no diameter is recorded", () => {
     // 25 µm (1 mil) gold wire is the usual ball-bond wire [practice].
-    expect(wireBondInputs(bond([[0, 0], [0, 500]])).diameterUm).toBe(25);
+    expect(
+      wireBondInputs(
+        bond([
+          [0, 0],
+          [0, 500],
+        ]),
+      ).diameterUm,
+    ).toBe(25);
   });
 
   it("feeds the Rosa/Grover round-wire formula", () => {
-    const { lengthUm, diameterUm } = wireBondInputs(bond([[0, 0], [600, 800]]));
+    const { lengthUm, diameterUm } = wireBondInputs(
+      bond([
+        [0, 0],
+        [600, 800],
+      ]),
+    );
     // Rosa 1908; Grover, Inductance Calculations, 1946: L = 2e-7·l·[ln(2l/r) − 0.75] H.
     // By hand: l = 1e-3 m, r = 12.5e-6 m, ln(160) = 5.07517 → 2e-10 × 4.32517 = 0.86503 nH.
     expect(bondWireInductance({ lengthUm, diameterUm }).inductanceNh).toBeCloseTo(0.86503, 4);
@@ -29,13 +52,35 @@ describe("wireBondInputs", () => {
 
 describe("traceInputs", () => {
   it("counts every segment of a meander and keeps the trace width", () => {
-    const trace = shapeOf("trace", { type: "LineString", coordinates: [[0, 0], [100, 0], [100, 50], [200, 50]] }, { widthUm: 6 }) as AnyShape & { kind: "trace" };
+    const trace = shapeOf(
+      "trace",
+      {
+        type: "LineString",
+        coordinates: [
+          [0, 0],
+          [100, 0],
+          [100, 50],
+          [200, 50],
+        ],
+      },
+      { widthUm: 6 },
+    ) as AnyShape & { kind: "trace" };
     // 100 + 50 + 100 µm, summed by hand.
     expect(traceInputs(trace)).toEqual({ lengthUm: 250, widthUm: 6 });
   });
 
   it("feeds Grover's straight-bar formula", () => {
-    const trace = shapeOf("trace", { type: "LineString", coordinates: [[0, 0], [1000, 0]] }, { widthUm: 9 }) as AnyShape & { kind: "trace" };
+    const trace = shapeOf(
+      "trace",
+      {
+        type: "LineString",
+        coordinates: [
+          [0, 0],
+          [1000, 0],
+        ],
+      },
+      { widthUm: 9 },
+    ) as AnyShape & { kind: "trace" };
     const { lengthUm, widthUm } = traceInputs(trace);
     // Grover 1946 / Terman 1943: L = 2e-7·l·[ln(2l/(w+t)) + 0.5 + 0.2235·(w+t)/l]; l = 1 mm,
     // w + t = 10 µm: ln(200) = 5.29832, + 0.5 + 0.002235 → 2e-10 × 5.80055 = 1.16011 nH, by hand.
@@ -45,7 +90,9 @@ describe("traceInputs", () => {
 
 describe("spiralOuterDiameterFromBlock", () => {
   it("takes the shorter side of the block's bounding box", () => {
-    const block = shapeOf("block", { type: "Polygon", coordinates: [rectRing(260, 700, 460, 960)] }, { name: "L1", function: "" }) as AnyShape & { kind: "block" };
+    const block = shapeOf("block", { type: "Polygon", coordinates: [rectRing(260, 700, 460, 960)] }, { name: "L1", function: "" }) as AnyShape & {
+      kind: "block";
+    };
     expect(spiralOuterDiameterFromBlock(block)).toBe(200);
   });
 
@@ -62,7 +109,14 @@ describe("spiralOuterDiameterFromBlock", () => {
 
 describe("estimateRoleOf", () => {
   it("offers estimates for wire bonds, traces and blocks only", () => {
-    expect(estimateRoleOf(bond([[0, 0], [1, 1]]))).toBe("wire-bond");
+    expect(
+      estimateRoleOf(
+        bond([
+          [0, 0],
+          [1, 1],
+        ]),
+      ),
+    ).toBe("wire-bond");
     expect(estimateRoleOf(shapeOf("note", { type: "Point", coordinates: [0, 0] }, { text: "x" }))).toBeNull();
   });
 });

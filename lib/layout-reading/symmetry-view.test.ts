@@ -4,13 +4,47 @@ import { shapeOf } from "./test-shapes";
 
 describe("axisOfShape", () => {
   it("joins the first and last vertex of a marked axis", () => {
-    const axis = shapeOf("symmetry_axis", { type: "LineString", coordinates: [[0, 800], [1200, 800.5], [2400, 800]] });
-    expect(axisOfShape(axis)).toEqual({ type: "LineString", coordinates: [[0, 800], [2400, 800]] });
+    const axis = shapeOf("symmetry_axis", {
+      type: "LineString",
+      coordinates: [
+        [0, 800],
+        [1200, 800.5],
+        [2400, 800],
+      ],
+    });
+    expect(axisOfShape(axis)).toEqual({
+      type: "LineString",
+      coordinates: [
+        [0, 800],
+        [2400, 800],
+      ],
+    });
   });
 
   it("refuses other kinds and a closed axis", () => {
-    expect(axisOfShape(shapeOf("ruler", { type: "LineString", coordinates: [[0, 0], [1, 1]] }))).toBeNull();
-    expect(axisOfShape(shapeOf("symmetry_axis", { type: "LineString", coordinates: [[0, 0], [5, 5], [0, 0]] }))).toBeNull();
+    expect(
+      axisOfShape(
+        shapeOf("ruler", {
+          type: "LineString",
+          coordinates: [
+            [0, 0],
+            [1, 1],
+          ],
+        }),
+      ),
+    ).toBeNull();
+    expect(
+      axisOfShape(
+        shapeOf("symmetry_axis", {
+          type: "LineString",
+          coordinates: [
+            [0, 0],
+            [5, 5],
+            [0, 0],
+          ],
+        }),
+      ),
+    ).toBeNull();
   });
 });
 

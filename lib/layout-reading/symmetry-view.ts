@@ -16,7 +16,13 @@ export function axisOfShape(shape: AnyShape): LineStringGeometry | null {
   const a = pts[0];
   const b = pts[pts.length - 1];
   if (!a || !b || (a[0] === b[0] && a[1] === b[1])) return null;
-  return { type: "LineString", coordinates: [[a[0], a[1]], [b[0], b[1]]] };
+  return {
+    type: "LineString",
+    coordinates: [
+      [a[0], a[1]],
+      [b[0], b[1]],
+    ],
+  };
 }
 
 /** The shapes as the symmetry report takes them (it ignores kinds it does not pair). */

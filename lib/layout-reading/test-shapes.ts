@@ -12,5 +12,11 @@ export function shapeOf(kind: AnyShape["kind"], geometry: AnyShape["geometry"], 
 
 /** A closed axis-aligned rectangle ring. */
 export function rectRing(x0: number, y0: number, x1: number, y1: number): Position[] {
-  return [[x0, y0], [x1, y0], [x1, y1], [x0, y1], [x0, y0]];
+  return [
+    [x0, y0],
+    [x1, y0],
+    [x1, y1],
+    [x0, y1],
+    [x0, y0],
+  ];
 }

@@ -12,7 +12,7 @@ describe("attachmentDisposition", () => {
 
   it("keeps a die's name readable in the ASCII fallback", () => {
     expect(safeFileName("NV-24R die A pad table.csv")).toBe("NV-24R-die-A-pad-table.csv");
-    expect(safeFileName("Prüfling µ/3 \"x\".csv")).toBe("Prufling-3-x.csv");
+    expect(safeFileName('Prüfling µ/3 "x".csv')).toBe("Prufling-3-x.csv");
     expect(safeFileName("///")).toBe("die");
   });
 });

@@ -10,7 +10,10 @@ type CsvValue = string | number | null;
 /** Fixed decimals with trailing zeros trimmed; −0 written as 0. */
 function csvNumber(value: number, decimals: number): string {
   if (Number.isInteger(value)) return Object.is(value, -0) ? "0" : String(value);
-  const text = value.toFixed(decimals).replace(/(\.\d*?)0+$/, "$1").replace(/\.$/, "");
+  const text = value
+    .toFixed(decimals)
+    .replace(/(\.\d*?)0+$/, "$1")
+    .replace(/\.$/, "");
   return text === "-0" ? "0" : text;
 }
 
@@ -35,7 +38,10 @@ function options(decimals: number, eof: boolean): Options {
 
 /** Records as RFC 4180 CSV: each record ended by CRLF, null cells empty. */
 export function csvRecords(records: readonly (readonly CsvValue[])[], decimals: number): string {
-  return stringify(records.map((r) => [...r]), options(decimals, true));
+  return stringify(
+    records.map((r) => [...r]),
+    options(decimals, true),
+  );
 }
 
 /** One text cell as it appears in a record (neutralised, quoted when needed). */

@@ -15,7 +15,10 @@ describe("markupEtag", () => {
 
   it("hashes the sorted id:version:updatedAt lines with SHA-256", () => {
     // Recomputed here with node:crypto's SHA-256 (FIPS 180-4) from the documented canonical text.
-    const text = `2\n${[a, b].map((s) => `${s.id}:${s.version}:${s.updatedAt}`).sort().join("\n")}`;
+    const text = `2\n${[a, b]
+      .map((s) => `${s.id}:${s.version}:${s.updatedAt}`)
+      .sort()
+      .join("\n")}`;
     const expected = createHash("sha256").update(text).digest("base64url").slice(0, 32);
     expect(markupEtag([a, b])).toBe(`"m-${expected}"`);
   });

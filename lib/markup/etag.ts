@@ -10,7 +10,9 @@ export type ShapeStamp = { readonly id: string; readonly version: number; readon
  */
 export function markupEtag(stamps: readonly ShapeStamp[]): string {
   const lines = stamps.map((s) => `${s.id}:${s.version}:${s.updatedAt}`).sort();
-  const hash = createHash("sha256").update(`${lines.length}\n${lines.join("\n")}`).digest("base64url");
+  const hash = createHash("sha256")
+    .update(`${lines.length}\n${lines.join("\n")}`)
+    .digest("base64url");
   return `"m-${hash.slice(0, 32)}"`;
 }
 

@@ -3,8 +3,18 @@ import { checkInsideDie, parseNewShapes, parseShapeOfKind } from "./markup-input
 import { dieBounds } from "./die-bounds";
 import { markupPatchSchema } from "@/lib/validation/markup";
 
-const square = [[0, 0], [80, 0], [80, 80], [0, 80]];
-const pad = (extra: Record<string, unknown> = {}) => ({ kind: "pad", geometry: { type: "Polygon", coordinates: [square] }, properties: { label: "VB1", net: "vb1", state: "bonded" }, ...extra });
+const square = [
+  [0, 0],
+  [80, 0],
+  [80, 80],
+  [0, 80],
+];
+const pad = (extra: Record<string, unknown> = {}) => ({
+  kind: "pad",
+  geometry: { type: "Polygon", coordinates: [square] },
+  properties: { label: "VB1", net: "vb1", state: "bonded" },
+  ...extra,
+});
 const ruler = (coordinates: unknown) => ({ kind: "ruler", geometry: { type: "LineString", coordinates } });
 
 function refusal(body: unknown) {
@@ -21,26 +31,111 @@ describe("parseNewShapes", () => {
   });
 
   it("fills each kind's defaults", () => {
-    const r = parseNewShapes([{ kind: "wire_bond", geometry: { type: "LineString", coordinates: [[0, 0], [100, 0]] } }, { kind: "pad", geometry: pad().geometry }]);
+    const r = parseNewShapes([
+      {
+        kind: "wire_bond",
+        geometry: {
+          type: "LineString",
+          coordinates: [
+            [0, 0],
+            [100, 0],
+          ],
+        },
+      },
+      { kind: "pad", geometry: pad().geometry },
+    ]);
     expect(r.ok && r.value.shapes.map((s) => s.properties)).toEqual([{ diameterUm: 25 }, { label: "", net: "", state: "unbonded" }]);
   });
 
   it("names the failing path", () => {
-    expect(refusal(ruler([[0, 0], [1, "2"]])).message).toBe("Invalid body: geometry.coordinates.1.1: must be a number");
-    expect(refusal(ruler([[0, 0], [1, Infinity]])).message).toBe("Invalid body: geometry.coordinates.1.1: must be finite");
-    expect(refusal(ruler([[0, 0], [1e12, 0]])).message).toMatch(/^Invalid body: geometry\.coordinates\.1\.0: must be within ±200000 µm/);
-    expect(refusal(pad({ properties: { label: "x".repeat(201), net: "", state: "bonded" } })).message).toBe("Invalid body: properties.label: must be at most 200 characters");
+    expect(
+      refusal(
+        ruler([
+          [0, 0],
+          [1, "2"],
+        ]),
+      ).message,
+    ).toBe("Invalid body: geometry.coordinates.1.1: must be a number");
+    expect(
+      refusal(
+        ruler([
+          [0, 0],
+          [1, Infinity],
+        ]),
+      ).message,
+    ).toBe("Invalid body: geometry.coordinates.1.1: must be finite");
+    expect(
+      refusal(
+        ruler([
+          [0, 0],
+          [1e12, 0],
+        ]),
+      ).message,
+    ).toMatch(/^Invalid body: geometry\.coordinates\.1\.0: must be within ±200000 µm/);
+    expect(refusal(pad({ properties: { label: "x".repeat(201), net: "", state: "bonded" } })).message).toBe(
+      "Invalid body: properties.label: must be at most 200 characters",
+    );
   });
 
   it("refuses too many vertices, too few distinct points and the wrong geometry for the kind", () => {
     const many = Array.from({ length: 10_001 }, (_, i) => [i / 10, (i % 7) / 10]);
     expect(refusal(ruler(many)).message).toMatch(/geometry\.coordinates: must have at most 10000 vertices/);
     // RFC 7946 §3.1.4: a LineString has two or more (distinct, here) positions.
-    expect(refusal(ruler([[5, 5], [5, 5]])).message).toMatch(/at least 2 distinct points/);
+    expect(
+      refusal(
+        ruler([
+          [5, 5],
+          [5, 5],
+        ]),
+      ).message,
+    ).toMatch(/at least 2 distinct points/);
     // RFC 7946 §3.1.6: a ring has at least four positions, the last equal to the first, so 3 distinct vertices.
-    expect(refusal(pad({ geometry: { type: "Polygon", coordinates: [[[0, 0], [10, 0], [0, 0]]] } })).message).toMatch(/geometry\.coordinates\.0: a ring needs at least 3 distinct vertices/);
-    expect(refusal(pad({ geometry: { type: "Polygon", coordinates: [[[0, 0], [10, 0], [20, 0], [0, 0]]] } })).message).toMatch(/enclose an area/);
-    expect(refusal(pad({ geometry: { type: "LineString", coordinates: [[0, 0], [1, 1]] } })).message).toMatch(/^Invalid body: geometry\.type: a pad needs a Polygon geometry/);
+    expect(
+      refusal(
+        pad({
+          geometry: {
+            type: "Polygon",
+            coordinates: [
+              [
+                [0, 0],
+                [10, 0],
+                [0, 0],
+              ],
+            ],
+          },
+        }),
+      ).message,
+    ).toMatch(/geometry\.coordinates\.0: a ring needs at least 3 distinct vertices/);
+    expect(
+      refusal(
+        pad({
+          geometry: {
+            type: "Polygon",
+            coordinates: [
+              [
+                [0, 0],
+                [10, 0],
+                [20, 0],
+                [0, 0],
+              ],
+            ],
+          },
+        }),
+      ).message,
+    ).toMatch(/enclose an area/);
+    expect(
+      refusal(
+        pad({
+          geometry: {
+            type: "LineString",
+            coordinates: [
+              [0, 0],
+              [1, 1],
+            ],
+          },
+        }),
+      ).message,
+    ).toMatch(/^Invalid body: geometry\.type: a pad needs a Polygon geometry/);
   });
 
   it("refuses a missing or unknown kind and unknown fields", () => {
@@ -52,7 +147,16 @@ describe("parseNewShapes", () => {
   });
 
   it("names the index of the failing item of an array and refuses repeated ids", () => {
-    const items = [pad(), pad(), pad(), ruler([[0, 0], [0, Infinity]]), pad()];
+    const items = [
+      pad(),
+      pad(),
+      pad(),
+      ruler([
+        [0, 0],
+        [0, Infinity],
+      ]),
+      pad(),
+    ];
     const f = refusal(items);
     expect(f.message).toBe("Invalid body: item 3: geometry.coordinates.1.1: must be finite");
     expect(f.issues[0].path).toBe("3.geometry.coordinates.1.1");
@@ -63,7 +167,11 @@ describe("parseNewShapes", () => {
   });
 
   it("bounds notes to 2000 characters and saved estimates to 50 small records", () => {
-    const note = (text: string, estimates?: unknown) => ({ kind: "note", geometry: { type: "Point", coordinates: [1, 1] }, properties: { text, ...(estimates ? { estimates } : {}) } });
+    const note = (text: string, estimates?: unknown) => ({
+      kind: "note",
+      geometry: { type: "Point", coordinates: [1, 1] },
+      properties: { text, ...(estimates ? { estimates } : {}) },
+    });
     expect(parseNewShapes(note("n".repeat(2000))).ok).toBe(true);
     expect(refusal(note("n".repeat(2001))).message).toMatch(/properties\.text: must be at most 2000 characters/);
     const fifty = Object.fromEntries(Array.from({ length: 50 }, (_, i) => [`e${i}`, { value: i, unit: "nH" }]));
@@ -82,10 +190,28 @@ describe("dieBounds and checkInsideDie", () => {
 
   it("names the first position outside", () => {
     const bounds = dieBounds({ widthUm: 2400, heightUm: 1600 });
-    const inside = { type: "Polygon" as const, coordinates: [[[-600, -500], [3000, -500], [3000, 2100], [-600, -500]] as [number, number][]] };
+    const inside = {
+      type: "Polygon" as const,
+      coordinates: [
+        [
+          [-600, -500],
+          [3000, -500],
+          [3000, 2100],
+          [-600, -500],
+        ] as [number, number][],
+      ],
+    };
     expect(checkInsideDie([inside], bounds, false)).toBeNull();
-    const out = { type: "LineString" as const, coordinates: [[0, 0], [3000.5, 0]] as [number, number][] };
-    expect(checkInsideDie([inside, out], bounds, true)?.message).toBe("Invalid body: item 1: geometry.coordinates.1: lies outside the die and its margin (x -600…3000 µm, y -500…2100 µm)");
+    const out = {
+      type: "LineString" as const,
+      coordinates: [
+        [0, 0],
+        [3000.5, 0],
+      ] as [number, number][],
+    };
+    expect(checkInsideDie([inside, out], bounds, true)?.message).toBe(
+      "Invalid body: item 1: geometry.coordinates.1: lies outside the die and its margin (x -600…3000 µm, y -500…2100 µm)",
+    );
     expect(checkInsideDie([{ type: "Point", coordinates: [0, -501] }], bounds, false)?.issues[0].path).toBe("geometry.coordinates");
   });
 });
@@ -99,9 +225,29 @@ describe("PATCH bodies", () => {
   });
 
   it("are re-checked against the stored kind", () => {
-    const r = parseShapeOfKind("note", { type: "LineString", coordinates: [[0, 0], [1, 1]] }, { text: "x" });
+    const r = parseShapeOfKind(
+      "note",
+      {
+        type: "LineString",
+        coordinates: [
+          [0, 0],
+          [1, 1],
+        ],
+      },
+      { text: "x" },
+    );
     expect(!r.ok && r.failure.message).toBe("Invalid body: geometry.type: a note needs a Point geometry");
-    const t = parseShapeOfKind("trace", { type: "LineString", coordinates: [[0, 0], [1, 1]] }, { label: "L1" });
+    const t = parseShapeOfKind(
+      "trace",
+      {
+        type: "LineString",
+        coordinates: [
+          [0, 0],
+          [1, 1],
+        ],
+      },
+      { label: "L1" },
+    );
     expect(!t.ok && t.failure.message).toBe("Invalid body: properties.widthUm: must be a number");
   });
 });

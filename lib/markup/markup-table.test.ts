@@ -13,14 +13,38 @@ const shape = (s: Omit<AnyShape, "version" | "updatedAt" | "createdBy"> & { crea
 const pad = shape({
   id: "pad-1",
   kind: "pad",
-  geometry: { type: "Polygon", coordinates: [[[100, 200], [180, 200], [180, 260], [100, 260], [100, 200]]] },
+  geometry: {
+    type: "Polygon",
+    coordinates: [
+      [
+        [100, 200],
+        [180, 200],
+        [180, 260],
+        [100, 260],
+        [100, 200],
+      ],
+    ],
+  },
   properties: { label: 'VB1, "bias"', net: "vb1", state: "bonded" },
 });
 // An L: a 40×10 bar along the bottom and a 10×20 post on its left end.
 const block = shape({
   id: "block-1",
   kind: "block",
-  geometry: { type: "Polygon", coordinates: [[[0, 0], [40, 0], [40, 10], [10, 10], [10, 30], [0, 30], [0, 0]]] },
+  geometry: {
+    type: "Polygon",
+    coordinates: [
+      [
+        [0, 0],
+        [40, 0],
+        [40, 10],
+        [10, 10],
+        [10, 30],
+        [0, 30],
+        [0, 0],
+      ],
+    ],
+  },
   properties: { name: "LNA", function: "low-noise amplifier" },
 });
 // A 100×100 square with a 20×20 hole centred on (70, 70).
@@ -30,22 +54,67 @@ const outline = shape({
   geometry: {
     type: "Polygon",
     coordinates: [
-      [[0, 0], [100, 0], [100, 100], [0, 100], [0, 0]],
-      [[60, 60], [60, 80], [80, 80], [80, 60], [60, 60]],
+      [
+        [0, 0],
+        [100, 0],
+        [100, 100],
+        [0, 100],
+        [0, 0],
+      ],
+      [
+        [60, 60],
+        [60, 80],
+        [80, 80],
+        [80, 60],
+        [60, 60],
+      ],
     ],
   },
   properties: {},
 });
-const ruler = shape({ id: "ruler-1", kind: "ruler", geometry: { type: "LineString", coordinates: [[0, 0], [3, 4], [3, 10]] }, properties: { label: "gap" } });
+const ruler = shape({
+  id: "ruler-1",
+  kind: "ruler",
+  geometry: {
+    type: "LineString",
+    coordinates: [
+      [0, 0],
+      [3, 4],
+      [3, 10],
+    ],
+  },
+  properties: { label: "gap" },
+});
 const note = shape({ id: "note-1", kind: "note", geometry: { type: "Point", coordinates: [12.5, -3] }, properties: { text: "scratch\nnear pad 3" } });
-const trace = shape({ id: "trace-1", kind: "trace", createdBy: null, geometry: { type: "LineString", coordinates: [[0, 0], [0, 2]] }, properties: { widthUm: 4 } });
+const trace = shape({
+  id: "trace-1",
+  kind: "trace",
+  createdBy: null,
+  geometry: {
+    type: "LineString",
+    coordinates: [
+      [0, 0],
+      [0, 2],
+    ],
+  },
+  properties: { widthUm: 4 },
+});
 
 const rows = markupTableRows([pad, block, outline, ruler, note, trace], authors);
 
 describe("markupTableRows", () => {
   it("gives a rectangle's area, size and centre", () => {
     // Hand-worked: 80 µm × 60 µm rectangle from (100, 200): area 4800 µm², centre (140, 230).
-    expect(rows[0]).toMatchObject({ label: 'VB1, "bias"', lengthUm: null, areaUm2: 4800, widthUm: 80, heightUm: 60, xUm: 140, yUm: 230, author: "Demo Analyst" });
+    expect(rows[0]).toMatchObject({
+      label: 'VB1, "bias"',
+      lengthUm: null,
+      areaUm2: 4800,
+      widthUm: 80,
+      heightUm: 60,
+      xUm: 140,
+      yUm: 230,
+      author: "Demo Analyst",
+    });
   });
 
   it("finds the centre of area of an L by composite areas", () => {
@@ -104,10 +173,24 @@ describe("markupTableCsv", () => {
     const records = parse(csv, { columns: true, record_delimiter: "\r\n" }) as Record<string, string>[];
     expect(Object.keys(records[0])).toEqual(MARKUP_TABLE_HEADERS);
     expect(records.map((r) => r.label)).toEqual(rows.map((r) => r.label));
-    expect(records[0]).toMatchObject({ id: "pad-1", kind: "pad", length_um: "", area_um2: "4800", x_um: "140", y_um: "230", author: "Demo Analyst", updated_at: T });
+    expect(records[0]).toMatchObject({
+      id: "pad-1",
+      kind: "pad",
+      length_um: "",
+      area_um2: "4800",
+      x_um: "140",
+      y_um: "230",
+      author: "Demo Analyst",
+      updated_at: T,
+    });
     records.forEach((rec, i) => {
       const row = rows[i];
-      for (const [key, value] of [["x_um", row.xUm], ["y_um", row.yUm], ["width_um", row.widthUm], ["height_um", row.heightUm]] as const) {
+      for (const [key, value] of [
+        ["x_um", row.xUm],
+        ["y_um", row.yUm],
+        ["width_um", row.widthUm],
+        ["height_um", row.heightUm],
+      ] as const) {
         expect(Math.abs(Number(rec[key]) - value)).toBeLessThanOrEqual(0.0005);
       }
     });

@@ -3,8 +3,20 @@ import { dieFrameOf, isOutsideDie } from "./outside-die";
 import type { AnyShape } from "./types";
 
 const T = "2026-03-02T10:00:00.000Z";
-const rect = (x0: number, y0: number, x1: number, y1: number) => ({ type: "Polygon" as const, coordinates: [[[x0, y0], [x1, y0], [x1, y1], [x0, y1], [x0, y0]] as [number, number][]] });
-const shape = (kind: AnyShape["kind"], geometry: AnyShape["geometry"]): AnyShape => ({ id: kind, kind, geometry, properties: {}, version: 1, createdBy: null, updatedAt: T }) as AnyShape;
+const rect = (x0: number, y0: number, x1: number, y1: number) => ({
+  type: "Polygon" as const,
+  coordinates: [
+    [
+      [x0, y0],
+      [x1, y0],
+      [x1, y1],
+      [x0, y1],
+      [x0, y0],
+    ] as [number, number][],
+  ],
+});
+const shape = (kind: AnyShape["kind"], geometry: AnyShape["geometry"]): AnyShape =>
+  ({ id: kind, kind, geometry, properties: {}, version: 1, createdBy: null, updatedAt: T }) as AnyShape;
 
 describe("isOutsideDie", () => {
   // The invented NV-24R die, 2400 × 1600 µm, its outline drawn at (100, 50).
@@ -20,7 +32,18 @@ describe("isOutsideDie", () => {
 
   it("never flags wire bonds, notes or rulers, which leave the die by nature", () => {
     const frame = dieFrameOf([], { widthUm: 2400, heightUm: 1600 });
-    expect(isOutsideDie(shape("wire_bond", { type: "LineString", coordinates: [[-400, 0], [-300, 0]] }), frame)).toBe(false);
+    expect(
+      isOutsideDie(
+        shape("wire_bond", {
+          type: "LineString",
+          coordinates: [
+            [-400, 0],
+            [-300, 0],
+          ],
+        }),
+        frame,
+      ),
+    ).toBe(false);
     expect(isOutsideDie(shape("note", { type: "Point", coordinates: [-300, 0] }), frame)).toBe(false);
     expect(isOutsideDie(shape("block", rect(2500, 0, 2600, 100)), frame)).toBe(true);
   });

@@ -19,7 +19,18 @@ export function dieFrameOf(shapes: Iterable<AnyShape>, die: { readonly widthUm: 
     if (outlines.length === 1) return dieFrameFromOutline(outlines[0].geometry as PolygonGeometry);
     if (outlines.length === 0 && die?.widthUm && die.heightUm) {
       const { widthUm: w, heightUm: h } = die;
-      return dieFrameFromOutline({ type: "Polygon", coordinates: [[[0, 0], [w, 0], [w, h], [0, h], [0, 0]]] });
+      return dieFrameFromOutline({
+        type: "Polygon",
+        coordinates: [
+          [
+            [0, 0],
+            [w, 0],
+            [w, h],
+            [0, h],
+            [0, 0],
+          ],
+        ],
+      });
     }
   } catch {
     // Not a rectangle: nothing can be said to be outside it.

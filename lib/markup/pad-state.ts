@@ -18,7 +18,10 @@ export function bondedPadIds(shapes: Iterable<AnyShape>): Set<string> {
 }
 
 /** The state of one pad as shown, given the ids of the pads that carry a bond. */
-export function shownPadState(pad: { readonly id: string; readonly properties: Pick<PadProperties, "state" | "stateByHand"> }, bonded: ReadonlySet<string>): PadState {
+export function shownPadState(
+  pad: { readonly id: string; readonly properties: Pick<PadProperties, "state" | "stateByHand"> },
+  bonded: ReadonlySet<string>,
+): PadState {
   if (isPadStateByHand(pad.properties)) return pad.properties.state;
   return bonded.has(pad.id) ? "bonded" : "unbonded";
 }

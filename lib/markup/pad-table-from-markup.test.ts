@@ -5,13 +5,37 @@ import type { AnyShape } from "./types";
 const T = "2026-03-02T10:00:00.000Z";
 const square = (cx: number, cy: number, half = 40) => ({
   type: "Polygon" as const,
-  coordinates: [[[cx - half, cy - half], [cx + half, cy - half], [cx + half, cy + half], [cx - half, cy + half], [cx - half, cy - half]] as [number, number][]],
+  coordinates: [
+    [
+      [cx - half, cy - half],
+      [cx + half, cy - half],
+      [cx + half, cy + half],
+      [cx - half, cy + half],
+      [cx - half, cy - half],
+    ] as [number, number][],
+  ],
 });
 const pad = (id: string, cx: number, cy: number, extra: Record<string, unknown> = {}): AnyShape =>
-  ({ id, kind: "pad", geometry: square(cx, cy), properties: { label: id.toUpperCase(), net: "", state: "bonded", ...extra }, version: 1, createdBy: null, updatedAt: T }) as AnyShape;
+  ({
+    id,
+    kind: "pad",
+    geometry: square(cx, cy),
+    properties: { label: id.toUpperCase(), net: "", state: "bonded", ...extra },
+    version: 1,
+    createdBy: null,
+    updatedAt: T,
+  }) as AnyShape;
 const outline = (id: string, w: number, h: number): AnyShape =>
   ({ id, kind: "die_outline", geometry: dieRectangle(w, h), properties: {}, version: 1, createdBy: null, updatedAt: T }) as AnyShape;
-const note: AnyShape = { id: "n", kind: "note", geometry: { type: "Point", coordinates: [5, 5] }, properties: { text: "x" }, version: 1, createdBy: null, updatedAt: T };
+const note: AnyShape = {
+  id: "n",
+  kind: "note",
+  geometry: { type: "Point", coordinates: [5, 5] },
+  properties: { text: "x" },
+  version: 1,
+  createdBy: null,
+  updatedAt: T,
+};
 
 // The invented demo die: 2400 µm × 1600 µm. Pads 80 µm square, 60 µm in from the edge.
 const DIE = { widthUm: 2400, heightUm: 1600 };
@@ -47,8 +71,16 @@ describe("padTableFromMarkup", () => {
 
   it("refuses a pad 1 that is not a pad, two outlines, and a die with neither outline nor size", () => {
     expect(padTableFromMarkup(shapes, DIE, { padOneId: "n" })).toMatchObject({ ok: false, reason: "bad_request" });
-    expect(padTableFromMarkup([...shapes, outline("o1", 10, 10), outline("o2", 10, 10)], DIE)).toMatchObject({ ok: false, reason: "conflict", message: /2 die outlines/ });
-    expect(padTableFromMarkup(shapes, { widthUm: null, heightUm: 1600 })).toMatchObject({ ok: false, reason: "conflict", message: /no outline and no recorded size/ });
+    expect(padTableFromMarkup([...shapes, outline("o1", 10, 10), outline("o2", 10, 10)], DIE)).toMatchObject({
+      ok: false,
+      reason: "conflict",
+      message: /2 die outlines/,
+    });
+    expect(padTableFromMarkup(shapes, { widthUm: null, heightUm: 1600 })).toMatchObject({
+      ok: false,
+      reason: "conflict",
+      message: /no outline and no recorded size/,
+    });
   });
 
   it("reports two pads marked as pad 1 as a conflict", () => {
@@ -58,7 +90,21 @@ describe("padTableFromMarkup", () => {
 
   it("shows each pad's state from its wire bonds unless set by hand; probed stays as chosen", () => {
     const bond = (id: string, padId: string): AnyShape =>
-      ({ id, kind: "wire_bond", geometry: { type: "LineString", coordinates: [[60, 1400], [-300, 1400]] }, properties: { diameterUm: 25, padId }, version: 1, createdBy: null, updatedAt: T }) as AnyShape;
+      ({
+        id,
+        kind: "wire_bond",
+        geometry: {
+          type: "LineString",
+          coordinates: [
+            [60, 1400],
+            [-300, 1400],
+          ],
+        },
+        properties: { diameterUm: 25, padId },
+        version: 1,
+        createdBy: null,
+        updatedAt: T,
+      }) as AnyShape;
     const mixed = [
       pad("w1", 60, 1400), // stored bonded, has a bond: bonded
       pad("s1", 1200, 60), // stored bonded, no bond: unbonded (the fault: it read bonded)
@@ -69,7 +115,12 @@ describe("padTableFromMarkup", () => {
     ];
     const r = padTableFromMarkup(mixed, DIE);
     if (!r.ok) throw new Error(r.message);
-    expect(r.table.rows.map((row) => [row.id, row.state])).toEqual([["w1", "bonded"], ["s1", "unbonded"], ["e1", "probed"], ["n1", "unbonded"]]);
+    expect(r.table.rows.map((row) => [row.id, row.state])).toEqual([
+      ["w1", "bonded"],
+      ["s1", "unbonded"],
+      ["e1", "probed"],
+      ["n1", "unbonded"],
+    ]);
   });
 
   it("keeps a pad outside the die out of the numbering unless it is asked for", () => {
@@ -77,7 +128,12 @@ describe("padTableFromMarkup", () => {
     const stray = pad("x1", -200, 1500);
     const r = padTableFromMarkup([...shapes, stray], DIE);
     if (!r.ok) throw new Error(r.message);
-    expect(r.table.rows.map((row) => [row.number, row.id])).toEqual([[1, "w1"], [2, "s1"], [3, "e1"], [4, "n1"]]);
+    expect(r.table.rows.map((row) => [row.number, row.id])).toEqual([
+      [1, "w1"],
+      [2, "s1"],
+      [3, "e1"],
+      [4, "n1"],
+    ]);
     expect(r.table.outsideDie).toEqual([{ id: "x1", label: "X1", xUm: -200, yUm: 1500 }]);
     const asked = padTableFromMarkup([...shapes, pad("x1", -200, 1500, { numberOutside: true })], DIE);
     expect(asked.ok && asked.table.rows.map((row) => row.id)).toEqual(["x1", "w1", "s1", "e1", "n1"]);

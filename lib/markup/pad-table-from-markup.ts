@@ -13,12 +13,27 @@ export type PadTableResult =
 
 /** The rectangle [0, 0]–[width, height] of a die whose size is known. */
 export function dieRectangle(widthUm: number, heightUm: number): PolygonGeometry {
-  return { type: "Polygon", coordinates: [[[0, 0], [widthUm, 0], [widthUm, heightUm], [0, heightUm], [0, 0]]] };
+  return {
+    type: "Polygon",
+    coordinates: [
+      [
+        [0, 0],
+        [widthUm, 0],
+        [widthUm, heightUm],
+        [0, heightUm],
+        [0, 0],
+      ],
+    ],
+  };
 }
 
 function toPadInput(shape: Shape<"pad">, bonded: ReadonlySet<string>): PadInput {
   const p = shape.properties;
-  return { id: shape.id, geometry: shape.geometry, properties: { label: p.label, net: p.net, state: shownPadState(shape, bonded), isPadOne: p.isPadOne, numberOutside: p.numberOutside } };
+  return {
+    id: shape.id,
+    geometry: shape.geometry,
+    properties: { label: p.label, net: p.net, state: shownPadState(shape, bonded), isPadOne: p.isPadOne, numberOutside: p.numberOutside },
+  };
 }
 
 /**

@@ -68,7 +68,6 @@ export type Shape<K extends MarkupKind = MarkupKind> = {
 
 export type AnyShape = { [K in MarkupKind]: Shape<K> }[MarkupKind];
 
-
 /** One saved estimate result: a flat record of small values (inputs, outputs, units). */
 export type SavedEstimate = Readonly<Record<string, number | string | boolean | null>>;
 /** Saved estimates a shape may carry in `properties.estimates`, keyed by the estimate's name. */

@@ -14,8 +14,7 @@ const top = [pad("n1", 2000, 1540), pad("n2", 1200, 1540, { state: "probed" }), 
 const allPads = [...top, ...right, ...left, ...bottom]; // deliberately out of order
 const ccwIds = ["w1", "w2", "w3", "w4", "s1", "s2", "s3", "e1", "e2", "e3", "n1", "n2", "n3"];
 
-const ids = (pads: readonly PadInput[], options = {}, outline = DIE_OUTLINE) =>
-  buildPadTable(pads, outline, options).rows.map((r) => r.id);
+const ids = (pads: readonly PadInput[], options = {}, outline = DIE_OUTLINE) => buildPadTable(pads, outline, options).rows.map((r) => r.id);
 
 describe("buildPadTable numbering", () => {
   it("numbers pads counter-clockwise from the topmost pad on the left edge", () => {
@@ -43,9 +42,7 @@ describe("buildPadTable numbering", () => {
     const table = buildPadTable([...corners, ...allPads], DIE_OUTLINE);
     const sideOf = (id: string) => table.rows.find((r) => r.id === id)?.side;
     expect([sideOf("ll"), sideOf("lr"), sideOf("ur"), sideOf("ul")]).toEqual(["S", "E", "N", "W"]);
-    expect(table.rows.map((r) => r.id)).toEqual([
-      "ul", "w1", "w2", "w3", "w4", "ll", "s1", "s2", "s3", "lr", "e1", "e2", "e3", "ur", "n1", "n2", "n3",
-    ]);
+    expect(table.rows.map((r) => r.id)).toEqual(["ul", "w1", "w2", "w3", "w4", "ll", "s1", "s2", "s3", "lr", "e1", "e2", "e3", "ur", "n1", "n2", "n3"]);
   });
 
   it("numbers a rotated die the same in the die outline's own axes", () => {
@@ -70,7 +67,10 @@ describe("buildPadTable numbering", () => {
 
   it("reads a slightly clockwise-turned die with its bottom edge still at the bottom", () => {
     const turn = (g: PadInput["geometry"]) => rotatePolygon(g, -20, [1200, 800], [0, 0]);
-    const table = buildPadTable(allPads.map((p) => ({ ...p, geometry: turn(p.geometry) })), turn(DIE_OUTLINE));
+    const table = buildPadTable(
+      allPads.map((p) => ({ ...p, geometry: turn(p.geometry) })),
+      turn(DIE_OUTLINE),
+    );
     expect(table.die.rotationDeg).toBeCloseTo(-20, 9);
     expect(table.rows.map((r) => r.id)).toEqual(ccwIds);
   });
@@ -102,7 +102,10 @@ describe("buildPadTable geometry", () => {
 
   it("keeps pitches geometric when pad 1 is in the middle of a side", () => {
     const fromW3 = buildPadTable(allPads, DIE_OUTLINE, { padOneId: "w3" }).rows;
-    expect(fromW3.map((r) => [r.id, r.pitchUm]).slice(-2)).toEqual([["w1", 400], ["w2", 400]]);
+    expect(fromW3.map((r) => [r.id, r.pitchUm]).slice(-2)).toEqual([
+      ["w1", 400],
+      ["w2", 400],
+    ]);
     expect(fromW3[1]).toMatchObject({ id: "w4", pitchUm: null });
   });
 
@@ -131,9 +134,30 @@ describe("buildPadTable input checks", () => {
   });
 
   it("rejects a die outline that is not a rectangle", () => {
-    const kite = { type: "Polygon" as const, coordinates: [[[0, 0], [10, 0], [12, 12], [0, 10], [0, 0]] as [number, number][]] };
+    const kite = {
+      type: "Polygon" as const,
+      coordinates: [
+        [
+          [0, 0],
+          [10, 0],
+          [12, 12],
+          [0, 10],
+          [0, 0],
+        ] as [number, number][],
+      ],
+    };
     expect(() => buildPadTable(allPads, kite)).toThrow(/right angles/);
-    const triangle = { type: "Polygon" as const, coordinates: [[[0, 0], [10, 0], [0, 10], [0, 0]] as [number, number][]] };
+    const triangle = {
+      type: "Polygon" as const,
+      coordinates: [
+        [
+          [0, 0],
+          [10, 0],
+          [0, 10],
+          [0, 0],
+        ] as [number, number][],
+      ],
+    };
     expect(() => buildPadTable(allPads, triangle)).toThrow(/rectangle/);
   });
 

@@ -106,29 +106,29 @@ export function buildPadTable(pads: readonly PadInput[], dieOutline: PolygonGeom
   const placed = pads.map((p) => place(p, frame));
   // A pad whose centre is off the die (a slip of the pointer, a pad of the package) would take
   // a place in the perimeter order and renumber the table: it is listed apart unless asked for.
-  const off = (p: Placed) => !p.pad.properties.numberOutside && (p.x < -EDGE_SLACK_UM || p.y < -EDGE_SLACK_UM || p.x > frame.widthUm + EDGE_SLACK_UM || p.y > frame.heightUm + EDGE_SLACK_UM);
+  const off = (p: Placed) =>
+    !p.pad.properties.numberOutside &&
+    (p.x < -EDGE_SLACK_UM || p.y < -EDGE_SLACK_UM || p.x > frame.widthUm + EDGE_SLACK_UM || p.y > frame.heightUm + EDGE_SLACK_UM);
   const ordered = placed.filter((p) => !off(p)).sort(byPerimeter);
   const outsideDie = placed.filter(off).map((p) => ({ id: p.pad.id, label: p.pad.properties.label, xUm: p.x, yUm: p.y }));
   const start = padOneIndex(ordered, options);
   const numbered = [...ordered.slice(start), ...ordered.slice(0, start)];
   const pitch = pitches(ordered);
-  const rows = numbered.map(
-    (p, i): PadRow => ({
-      number: i + 1,
-      id: p.pad.id,
-      label: p.pad.properties.label,
-      net: p.pad.properties.net,
-      state: p.pad.properties.state,
-      side: p.side,
-      xUm: p.x,
-      yUm: p.y,
-      xFromCentreUm: p.x - frame.widthUm / 2,
-      yFromCentreUm: p.y - frame.heightUm / 2,
-      widthUm: p.width,
-      heightUm: p.height,
-      pitchUm: pitch.get(p) ?? null,
-    }),
-  );
+  const rows = numbered.map((p, i): PadRow => ({
+    number: i + 1,
+    id: p.pad.id,
+    label: p.pad.properties.label,
+    net: p.pad.properties.net,
+    state: p.pad.properties.state,
+    side: p.side,
+    xUm: p.x,
+    yUm: p.y,
+    xFromCentreUm: p.x - frame.widthUm / 2,
+    yFromCentreUm: p.y - frame.heightUm / 2,
+    widthUm: p.width,
+    heightUm: p.height,
+    pitchUm: pitch.get(p) ?? null,
+  }));
   return {
     die: { widthUm: frame.widthUm, heightUm: frame.heightUm, rotationDeg: frame.rotationDeg },
     rows,

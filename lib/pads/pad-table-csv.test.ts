@@ -61,7 +61,10 @@ describe("padTableCsv against CSV injection (OWASP CSV Injection cheat sheet)", 
   it("prefixes formula-like labels and nets with a single quote; coordinates stay numbers", () => {
     const t = buildPadTable(formulaPads, DIE_OUTLINE);
     const records = parse(padTableCsv(t), { columns: true, record_delimiter: "\r\n" }) as Record<string, string>[];
-    expect(records.map((r) => [r.label, r.net])).toEqual([["'=CMD()", "'-5V"], ["'@VB2", "'+vcc"]]);
+    expect(records.map((r) => [r.label, r.net])).toEqual([
+      ["'=CMD()", "'-5V"],
+      ["'@VB2", "'+vcc"],
+    ]);
     for (const r of records) expect(Number.isFinite(Number(r.x_from_centre_um))).toBe(true);
     expect(records.some((r) => Number(r.x_from_centre_um) < 0)).toBe(true);
   });

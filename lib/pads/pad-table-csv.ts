@@ -22,7 +22,6 @@ const COLUMNS: readonly { header: string; value: (r: PadRow) => string | number 
   { header: "pitch_um", value: (r) => r.pitchUm },
 ];
 
-
 /**
  * The pad table as CSV (RFC 4180): a header row, one record per pad in pad-number order,
  * CRLF line ends, an empty pitch for the last pad on a side.

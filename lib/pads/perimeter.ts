@@ -9,13 +9,25 @@ export const SIDES_CCW: readonly PadSide[] = ["W", "S", "E", "N"];
 function sideSegment(side: PadSide, w: number, h: number): [Position, Position] {
   switch (side) {
     case "W":
-      return [[0, h], [0, 0]];
+      return [
+        [0, h],
+        [0, 0],
+      ];
     case "S":
-      return [[0, 0], [w, 0]];
+      return [
+        [0, 0],
+        [w, 0],
+      ];
     case "E":
-      return [[w, 0], [w, h]];
+      return [
+        [w, 0],
+        [w, h],
+      ];
     case "N":
-      return [[w, h], [0, h]];
+      return [
+        [w, h],
+        [0, h],
+      ];
   }
 }
 

@@ -4,7 +4,18 @@ import type { PadInput, PadState } from "./types";
 /** Axis-aligned rectangle polygon centred on (cx, cy), closed counter-clockwise. Test use only. */
 export function rect(cx: number, cy: number, w: number, h: number): PolygonGeometry {
   const [x0, x1, y0, y1] = [cx - w / 2, cx + w / 2, cy - h / 2, cy + h / 2];
-  return { type: "Polygon", coordinates: [[[x0, y0], [x1, y0], [x1, y1], [x0, y1], [x0, y0]]] };
+  return {
+    type: "Polygon",
+    coordinates: [
+      [
+        [x0, y0],
+        [x1, y0],
+        [x1, y1],
+        [x0, y1],
+        [x0, y0],
+      ],
+    ],
+  };
 }
 
 /** A pad of the invented demo die. Test use only. */

@@ -66,7 +66,9 @@ describe("commentHtml (CommonMark + GFM)", () => {
   });
 
   it("marks a mention by e-mail and leaves an @ that names nobody as text", () => {
-    expect(commentHtml("@viewer@fjordlight.test look", ["viewer@fjordlight.test"])).toBe('<p><strong class="mention">@viewer@fjordlight.test</strong> look</p>');
+    expect(commentHtml("@viewer@fjordlight.test look", ["viewer@fjordlight.test"])).toBe(
+      '<p><strong class="mention">@viewer@fjordlight.test</strong> look</p>',
+    );
     expect(commentHtml("mail me @nobody", ["Demo Analyst"])).toBe("<p>mail me @nobody</p>");
   });
 
@@ -92,11 +94,15 @@ describe("commentHtml (CommonMark + GFM)", () => {
   });
 
   it("does not mark mentions inside link text", () => {
-    expect(commentHtml("[@Demo Analyst](https://a.test/)", ["Demo Analyst"])).toBe('<p><a href="https://a.test/" rel="noopener noreferrer">@Demo Analyst</a></p>');
+    expect(commentHtml("[@Demo Analyst](https://a.test/)", ["Demo Analyst"])).toBe(
+      '<p><a href="https://a.test/" rel="noopener noreferrer">@Demo Analyst</a></p>',
+    );
   });
 
   it("renders task lists as disabled checkboxes", () => {
-    expect(commentHtml("- [x] probed")).toBe('<ul class="contains-task-list">\n<li class="task-list-item"><input type="checkbox" checked disabled> probed</li>\n</ul>');
+    expect(commentHtml("- [x] probed")).toBe(
+      '<ul class="contains-task-list">\n<li class="task-list-item"><input type="checkbox" checked disabled> probed</li>\n</ul>',
+    );
   });
 });
 

@@ -3,9 +3,15 @@ import { excerpt, inboxText } from "./inbox-text";
 
 describe("inbox text", () => {
   it("names who, what and which die, with the comment's words", () => {
-    expect(inboxText({ kind: "mention", author: "Demo Owner", dieName: "NV-2 die A", body: "please check\n\nthe  pad ring" })).toBe("Demo Owner mentioned you on NV-2 die A: please check the pad ring");
-    expect(inboxText({ kind: "review", action: "request_changes", author: "Demo Reviewer", dieName: "NV-2 die A", message: "" })).toBe("Demo Reviewer asked for changes on NV-2 die A");
-    expect(inboxText({ kind: "review", action: "submit", author: "Demo Analyst", dieName: "D", message: "ready" })).toBe("Demo Analyst submitted D for review: ready");
+    expect(inboxText({ kind: "mention", author: "Demo Owner", dieName: "NV-2 die A", body: "please check\n\nthe  pad ring" })).toBe(
+      "Demo Owner mentioned you on NV-2 die A: please check the pad ring",
+    );
+    expect(inboxText({ kind: "review", action: "request_changes", author: "Demo Reviewer", dieName: "NV-2 die A", message: "" })).toBe(
+      "Demo Reviewer asked for changes on NV-2 die A",
+    );
+    expect(inboxText({ kind: "review", action: "submit", author: "Demo Analyst", dieName: "D", message: "ready" })).toBe(
+      "Demo Analyst submitted D for review: ready",
+    );
   });
 
   it("cuts long text at a word near the limit, never inside a surrogate pair", () => {

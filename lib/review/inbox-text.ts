@@ -20,7 +20,9 @@ export type InboxEvent =
 /** The text shown for an event in the inbox. */
 export function inboxText(e: InboxEvent): string {
   if (e.kind !== "review") return `${e.author} ${e.kind === "mention" ? "mentioned you on" : "replied on"} ${e.dieName}: ${excerpt(e.body)}`;
-  const what = { submit: `submitted ${e.dieName} for review`, approve: `approved ${e.dieName}`, request_changes: `asked for changes on ${e.dieName}` }[e.action];
+  const what = { submit: `submitted ${e.dieName} for review`, approve: `approved ${e.dieName}`, request_changes: `asked for changes on ${e.dieName}` }[
+    e.action
+  ];
   const said = excerpt(e.message);
   return said ? `${e.author} ${what}: ${said}` : `${e.author} ${what}`;
 }

@@ -16,7 +16,10 @@ export function hashInvitationToken(token: string): string {
 export type InvitationState = "pending" | "accepted" | "declined" | "revoked" | "expired";
 
 /** Where an invitation stands at `now`. */
-export function invitationState(inv: { acceptedAt: Date | null; declinedAt?: Date | null; revokedAt: Date | null; expiresAt: Date }, now: Date): InvitationState {
+export function invitationState(
+  inv: { acceptedAt: Date | null; declinedAt?: Date | null; revokedAt: Date | null; expiresAt: Date },
+  now: Date,
+): InvitationState {
   if (inv.acceptedAt) return "accepted";
   if (inv.declinedAt) return "declined";
   if (inv.revokedAt) return "revoked";

@@ -34,7 +34,13 @@ export function commentMail(p: { kind: "comment" | "mention"; author: string; di
 }
 
 /** A die submitted for review, or a review decision, with the message and a link to the die. */
-export function reviewMail(p: { action: "submit" | "approve" | "request_changes"; actor: string; dieName: string; message: string; link: string }): MailContent {
+export function reviewMail(p: {
+  action: "submit" | "approve" | "request_changes";
+  actor: string;
+  dieName: string;
+  message: string;
+  link: string;
+}): MailContent {
   const what = { submit: "submitted for review", approve: "approved", request_changes: "sent back for changes" }[p.action];
   const heading = `${p.actor} ${p.action === "submit" ? "submitted" : p.action === "approve" ? "approved" : "requested changes on"} ${p.dieName}`;
   const message = p.message.trim() ? `\n\n${quote(p.message)}` : "";

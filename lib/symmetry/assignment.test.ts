@@ -4,7 +4,13 @@ import { symmetryReport } from "./report";
 import type { SymmetryShape } from "./types";
 
 /** Axis y = 0; mirror images are (x, −y), written by hand. */
-const AXIS: LineStringGeometry = { type: "LineString", coordinates: [[0, 0], [1, 0]] };
+const AXIS: LineStringGeometry = {
+  type: "LineString",
+  coordinates: [
+    [0, 0],
+    [1, 0],
+  ],
+};
 
 const pad = (id: string, x: number, y: number): SymmetryShape => ({ id, kind: "pad", geometry: { type: "Point", coordinates: [x, y] } });
 
@@ -19,7 +25,7 @@ function permutations(n: number): number[][] {
   const a = Array.from({ length: n }, (_, i) => i);
   const c = new Array<number>(n).fill(0);
   out.push([...a]);
-  for (let i = 0; i < n; ) {
+  for (let i = 0; i < n;) {
     if (c[i] < i) {
       const j = i % 2 === 0 ? 0 : c[i];
       [a[j], a[i]] = [a[i], a[j]];
@@ -46,9 +52,11 @@ function greedyTotal(left: [number, number][], right: [number, number][]): numbe
   let total = 0;
   while (usedL.size < left.length) {
     let best = { i: -1, j: -1, c: Infinity };
-    left.forEach((a, i) => right.forEach((b, j) => {
-      if (!usedL.has(i) && !usedR.has(j) && cost(a, b) < best.c) best = { i, j, c: cost(a, b) };
-    }));
+    left.forEach((a, i) =>
+      right.forEach((b, j) => {
+        if (!usedL.has(i) && !usedR.has(j) && cost(a, b) < best.c) best = { i, j, c: cost(a, b) };
+      }),
+    );
     usedL.add(best.i);
     usedR.add(best.j);
     total += best.c;
@@ -71,8 +79,14 @@ describe("optimal pairing", () => {
   it("beats greedy nearest-neighbour where greedy goes wrong", () => {
     // Mirror images of B1, B2 land at (1, 10) and (−2, 10): costs A1–B1 1, A1–B2 2, A2–B1 3, A2–B2 6.
     // Greedy takes A1–B1 first and is left with A2–B2: 1 + 6 = 7. Optimal is A1–B2 + A2–B1 = 5.
-    const left: [number, number][] = [[0, 10], [4, 10]];
-    const right: [number, number][] = [[1, -10], [-2, -10]];
+    const left: [number, number][] = [
+      [0, 10],
+      [4, 10],
+    ];
+    const right: [number, number][] = [
+      [1, -10],
+      [-2, -10],
+    ];
     const shapes = [pad("A1", 0, 10), pad("A2", 4, 10), pad("B1", 1, -10), pad("B2", -2, -10)];
     const report = symmetryReport(shapes, AXIS, { maxDistanceUm: 15 });
     expect(greedyTotal(left, right)).toBeCloseTo(7, 12);

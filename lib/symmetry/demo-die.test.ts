@@ -9,20 +9,40 @@ import type { SymmetryShape } from "./types";
  * rendered from) is mirror-symmetric about y = 800 µm except for its text marks. The expected
  * partner of each shape is found here by hand, (x, y) → (x, 1600 − y), not by the code under test.
  */
-const AXIS: LineStringGeometry = { type: "LineString", coordinates: [[0, 800], [2400, 800]] };
+const AXIS: LineStringGeometry = {
+  type: "LineString",
+  coordinates: [
+    [0, 800],
+    [2400, 800],
+  ],
+};
 
 function padShapes(): (SymmetryShape & { label: string; centre: Position })[] {
   return NV24R_LAYOUT.pads.map((p) => {
     const [x, y] = p.centreUm;
     const [w, h] = p.sizeUm;
-    const ring: Position[] = [[x - w / 2, y - h / 2], [x + w / 2, y - h / 2], [x + w / 2, y + h / 2], [x - w / 2, y + h / 2], [x - w / 2, y - h / 2]];
+    const ring: Position[] = [
+      [x - w / 2, y - h / 2],
+      [x + w / 2, y - h / 2],
+      [x + w / 2, y + h / 2],
+      [x - w / 2, y + h / 2],
+      [x - w / 2, y - h / 2],
+    ];
     return { id: p.label, kind: "pad", geometry: { type: "Polygon", coordinates: [ring] }, label: p.label, centre: p.centreUm };
   });
 }
 
 function otherShapes(): SymmetryShape[] {
-  const blocks = NV24R_LAYOUT.blocks.map((b): SymmetryShape => ({ id: b.name, kind: "block", geometry: { type: "Polygon", coordinates: [b.polygonUm.map((p) => [p[0], p[1]])] } }));
-  const line = (name: string, pts: readonly Position[]): SymmetryShape => ({ id: name, kind: "trace", geometry: { type: "LineString", coordinates: pts.map((p) => [p[0], p[1]]) } as Geometry });
+  const blocks = NV24R_LAYOUT.blocks.map((b): SymmetryShape => ({
+    id: b.name,
+    kind: "block",
+    geometry: { type: "Polygon", coordinates: [b.polygonUm.map((p) => [p[0], p[1]])] },
+  }));
+  const line = (name: string, pts: readonly Position[]): SymmetryShape => ({
+    id: name,
+    kind: "trace",
+    geometry: { type: "LineString", coordinates: pts.map((p) => [p[0], p[1]]) } as Geometry,
+  });
   return [...blocks, ...NV24R_LAYOUT.meanders.map((t) => line(t.name, t.pointsUm)), ...NV24R_LAYOUT.routes.map((t) => line(t.name, t.pointsUm))];
 }
 
@@ -41,7 +61,12 @@ describe("symmetry of the demo die's ground truth", () => {
     }
     // 22 pads: G2 and G5 sit on the axis and are their own mirror images; 10 pairs besides.
     expect(report.pairs).toHaveLength(12);
-    expect(report.pairs.filter((p) => p.selfPaired).map((p) => p.aId).sort()).toEqual(["G2", "G5"]);
+    expect(
+      report.pairs
+        .filter((p) => p.selfPaired)
+        .map((p) => p.aId)
+        .sort(),
+    ).toEqual(["G2", "G5"]);
   });
 
   it("pairs the blocks, peaking lines and routes at zero deviation too", () => {

@@ -5,9 +5,4 @@
 export { symmetryReport } from "./report";
 export { mirrorGeometry, axisLine } from "./reflect";
 export { axisDecimals, deviationHistogram } from "./histogram";
-export {
-  SymmetryInputError,
-  type SymmetryPair,
-  type SymmetryReport,
-  type SymmetryShape,
-} from "./types";
+export { SymmetryInputError, type SymmetryPair, type SymmetryReport, type SymmetryShape } from "./types";

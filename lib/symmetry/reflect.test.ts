@@ -35,7 +35,11 @@ describe("reflectPoint", () => {
 
   it("is its own inverse and fixes points on the axis", () => {
     const line = axisLine(axis([10, -3], [250, 77]));
-    for (const p of [[0, 0], [123.4, -56.7], [1e4, 3e3]] as Position[]) {
+    for (const p of [
+      [0, 0],
+      [123.4, -56.7],
+      [1e4, 3e3],
+    ] as Position[]) {
       const back = reflectPoint(reflectPoint(p, line), line);
       expect(back[0]).toBeCloseTo(p[0], 9);
       expect(back[1]).toBeCloseTo(p[1], 9);
@@ -53,7 +57,16 @@ describe("reflectPoint", () => {
 
   it("rejects a degenerate axis", () => {
     expect(() => axisLine(axis([1, 1], [1, 1]))).toThrow(SymmetryInputError);
-    expect(() => axisLine({ type: "LineString", coordinates: [[0, 0], [1, 0], [2, 0]] })).toThrow(SymmetryInputError);
+    expect(() =>
+      axisLine({
+        type: "LineString",
+        coordinates: [
+          [0, 0],
+          [1, 0],
+          [2, 0],
+        ],
+      }),
+    ).toThrow(SymmetryInputError);
     expect(() => axisLine(axis([0, Number.NaN], [1, 0]))).toThrow(SymmetryInputError);
   });
 });
@@ -61,16 +74,41 @@ describe("reflectPoint", () => {
 describe("mirrorGeometry", () => {
   it("mirrors each kind of geometry and keeps polygon winding", () => {
     const a = axis([0, 800], [2400, 800]);
-    const pad: PolygonGeometry = { type: "Polygon", coordinates: [[[100, 1500], [180, 1500], [180, 1580], [100, 1580], [100, 1500]]] };
+    const pad: PolygonGeometry = {
+      type: "Polygon",
+      coordinates: [
+        [
+          [100, 1500],
+          [180, 1500],
+          [180, 1580],
+          [100, 1580],
+          [100, 1500],
+        ],
+      ],
+    };
     const ghost = mirrorGeometry(pad, a) as PolygonGeometry;
     expect(signedArea(ghost.coordinates[0])).toBeCloseTo(signedArea(pad.coordinates[0]), 9);
     const ys = ghost.coordinates[0].map((p) => p[1]).sort((p, q) => p - q);
     expect(ys[0]).toBeCloseTo(20, 9);
     expect(ys.at(-1)).toBeCloseTo(100, 9);
     expect(mirrorGeometry({ type: "Point", coordinates: [5, 810] }, a)).toEqual({ type: "Point", coordinates: [5, 790] });
-    expect(mirrorGeometry({ type: "LineString", coordinates: [[0, 900], [10, 1000]] }, a)).toEqual({
+    expect(
+      mirrorGeometry(
+        {
+          type: "LineString",
+          coordinates: [
+            [0, 900],
+            [10, 1000],
+          ],
+        },
+        a,
+      ),
+    ).toEqual({
       type: "LineString",
-      coordinates: [[0, 700], [10, 600]],
+      coordinates: [
+        [0, 700],
+        [10, 600],
+      ],
     });
   });
 });

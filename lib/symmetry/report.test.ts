@@ -8,10 +8,27 @@ import { SymmetryInputError, type SymmetryShape } from "./types";
  * mirror-symmetric about the horizontal axis y = 800. Mirror images in these tests are built by
  * hand, (x, y) → (x, 1600 − y), not with the code under test.
  */
-const AXIS: LineStringGeometry = { type: "LineString", coordinates: [[0, 800], [2400, 800]] };
+const AXIS: LineStringGeometry = {
+  type: "LineString",
+  coordinates: [
+    [0, 800],
+    [2400, 800],
+  ],
+};
 
 function rect(x0: number, y0: number, x1: number, y1: number): PolygonGeometry {
-  return { type: "Polygon", coordinates: [[[x0, y0], [x1, y0], [x1, y1], [x0, y1], [x0, y0]]] };
+  return {
+    type: "Polygon",
+    coordinates: [
+      [
+        [x0, y0],
+        [x1, y0],
+        [x1, y1],
+        [x0, y1],
+        [x0, y0],
+      ],
+    ],
+  };
 }
 const flipY = (g: Geometry): Geometry => {
   const f = (p: Position): Position => [p[0], 1600 - p[1]];
@@ -32,11 +49,30 @@ function layout(): SymmetryShape[] {
   shapes.push({ id: "if-buffer", kind: "block", geometry: rect(1700, 650, 2100, 950) });
   shapes.push({ id: "mixer-p", kind: "block", geometry: rect(900, 830, 1500, 1200) });
   shapes.push({ id: "mixer-n", kind: "block", geometry: flipY(rect(900, 830, 1500, 1200)) });
-  const meander: LineStringGeometry = { type: "LineString", coordinates: [[950, 1250], [1000, 1250], [1000, 1300], [1050, 1300], [1050, 1250]] };
+  const meander: LineStringGeometry = {
+    type: "LineString",
+    coordinates: [
+      [950, 1250],
+      [1000, 1250],
+      [1000, 1300],
+      [1050, 1300],
+      [1050, 1250],
+    ],
+  };
   shapes.push({ id: "peaking-p", kind: "trace", geometry: meander });
   shapes.push({ id: "peaking-n", kind: "trace", geometry: flipY(meander) });
   shapes.push({ id: "note-1", kind: "note", geometry: { type: "Point", coordinates: [50, 1590] } });
-  shapes.push({ id: "ruler-1", kind: "ruler", geometry: { type: "LineString", coordinates: [[0, 0], [2400, 0]] } });
+  shapes.push({
+    id: "ruler-1",
+    kind: "ruler",
+    geometry: {
+      type: "LineString",
+      coordinates: [
+        [0, 0],
+        [2400, 0],
+      ],
+    },
+  });
   return shapes;
 }
 
@@ -71,7 +107,16 @@ describe("symmetryReport", () => {
 
   it("reports size differences of pads and lengths of traces", () => {
     let shapes = replace(layout(), "pad-bottom-0", flipY(rect(199, 1480, 281, 1560)));
-    const longer: LineStringGeometry = { type: "LineString", coordinates: [[950, 1250], [1000, 1250], [1000, 1300], [1050, 1300], [1050, 1245]] };
+    const longer: LineStringGeometry = {
+      type: "LineString",
+      coordinates: [
+        [950, 1250],
+        [1000, 1250],
+        [1000, 1300],
+        [1050, 1300],
+        [1050, 1245],
+      ],
+    };
     shapes = replace(shapes, "peaking-n", flipY(longer));
     const report = symmetryReport(shapes, AXIS, { toleranceUm: 1 });
     const pad = pairOf(report, "pad-bottom-0");
@@ -127,10 +172,32 @@ describe("symmetryReport", () => {
     const c = 0.5;
     const s = Math.sqrt(3) / 2;
     const m = (p: Position): Position => [c * p[0] + s * p[1], s * p[0] - c * p[1]];
-    const tri: PolygonGeometry = { type: "Polygon", coordinates: [[[0, 100], [40, 110], [10, 150], [0, 100]]] };
+    const tri: PolygonGeometry = {
+      type: "Polygon",
+      coordinates: [
+        [
+          [0, 100],
+          [40, 110],
+          [10, 150],
+          [0, 100],
+        ],
+      ],
+    };
     const image: PolygonGeometry = { type: "Polygon", coordinates: [tri.coordinates[0].map(m).reverse()] };
-    const axis: LineStringGeometry = { type: "LineString", coordinates: [[0, 0], [2 * Math.sqrt(3), 2]] };
-    const report = symmetryReport([{ id: "t", kind: "block", geometry: tri }, { id: "u", kind: "block", geometry: image }], axis);
+    const axis: LineStringGeometry = {
+      type: "LineString",
+      coordinates: [
+        [0, 0],
+        [2 * Math.sqrt(3), 2],
+      ],
+    };
+    const report = symmetryReport(
+      [
+        { id: "t", kind: "block", geometry: tri },
+        { id: "u", kind: "block", geometry: image },
+      ],
+      axis,
+    );
     expect(report.pairs).toHaveLength(1);
     expect(report.pairs[0].deviationUm).toBeLessThan(1e-9);
   });

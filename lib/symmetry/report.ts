@@ -47,7 +47,16 @@ function makePair(a: Prepared, b: Prepared, line: AxisLine, o: Required<Symmetry
   const deviationUm = Math.hypot(offset.x, offset.y);
   const size = sizeDifference(a, b, line);
   const sizeOk = Object.values(size).every((d: number) => Math.abs(d) <= o.sizeToleranceUm);
-  return { kind: a.kind, aId: a.id, bId: b.id, selfPaired: a === b, offsetUm: offset, deviationUm, sizeDifferenceUm: size, withinTolerance: deviationUm <= o.toleranceUm && sizeOk };
+  return {
+    kind: a.kind,
+    aId: a.id,
+    bId: b.id,
+    selfPaired: a === b,
+    offsetUm: offset,
+    deviationUm,
+    sizeDifferenceUm: size,
+    withinTolerance: deviationUm <= o.toleranceUm && sizeOk,
+  };
 }
 
 /** Pairs the shapes of one kind: left side (incl. on the axis) against right side. */

@@ -2,15 +2,7 @@ import { readFile } from "node:fs/promises";
 import path from "node:path";
 import sharp from "sharp";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import {
-  buildInfoJson,
-  expectedTilePaths,
-  levelTiles,
-  parseTileRequest,
-  resolveTilePath,
-  scaleFactors,
-  type PyramidDescription,
-} from "./iiif";
+import { buildInfoJson, expectedTilePaths, levelTiles, parseTileRequest, resolveTilePath, scaleFactors, type PyramidDescription } from "./iiif";
 import { buildPyramid } from "../../server/images/pyramid";
 import { listFiles, run, tempDir } from "../../tests/support/files";
 
@@ -33,7 +25,9 @@ afterAll(async () => {
 
 async function blankPng(width: number, height: number): Promise<string> {
   const file = path.join(work.dir, `in-${width}x${height}.png`);
-  await sharp({ create: { width, height, channels: 3, background: "#556677" } }).png().toFile(file);
+  await sharp({ create: { width, height, channels: 3, background: "#556677" } })
+    .png()
+    .toFile(file);
   return file;
 }
 
@@ -119,7 +113,29 @@ describe("parseTileRequest", () => {
   });
 
   it("rejects traversal, escapes and non-canonical forms", () => {
-    const regions = ["..", "../info.json", "%2e%2e", "..%2f..", "0,0,512,512/..", "-1,0,512,512", "0,0,0,512", "00,0,512,512", "0,0,512,512 ", " full", "FULL", "square", "pct:0,0,50,50", "0,0,512", "0,0,512,512,1", "1e3,0,1,1", "0x10,0,1,1", "0.5,0,1,1", "+1,0,1,1", "0,0,9999999999,1", ""];
+    const regions = [
+      "..",
+      "../info.json",
+      "%2e%2e",
+      "..%2f..",
+      "0,0,512,512/..",
+      "-1,0,512,512",
+      "0,0,0,512",
+      "00,0,512,512",
+      "0,0,512,512 ",
+      " full",
+      "FULL",
+      "square",
+      "pct:0,0,50,50",
+      "0,0,512",
+      "0,0,512,512,1",
+      "1e3,0,1,1",
+      "0x10,0,1,1",
+      "0.5,0,1,1",
+      "+1,0,1,1",
+      "0,0,9999999999,1",
+      "",
+    ];
     for (const r of regions) expect(parseTileRequest(r, "512,512"), r).toBeNull();
     const sizes = ["..", "512,", ",512", "!512,512", "^512,512", "^max", "pct:50", "0,512", "512,512/..", "512%2c512", "512 ,512", "MAX", ""];
     for (const s of sizes) expect(parseTileRequest("0,0,512,512", s), s).toBeNull();

@@ -91,12 +91,7 @@ export function levelTiles(width: number, height: number, tileSize: number, scal
 }
 
 /** The path of one tile below the pyramid folder: `{region}/{w},{h}/0/default.jpg`. */
-export function tilePath(
-  tile: Pick<Tile, "region" | "size">,
-  width: number,
-  height: number,
-  wholeImageRegion: WholeImageRegion = "full",
-): string {
+export function tilePath(tile: Pick<Tile, "region" | "size">, width: number, height: number, wholeImageRegion: WholeImageRegion = "full"): string {
   const { x, y, w, h } = tile.region;
   const whole = x === 0 && y === 0 && w === width && h === height;
   const region = whole && wholeImageRegion === "full" ? "full" : `${x},${y},${w},${h}`;
@@ -109,12 +104,7 @@ export function tilePath(
  * one file. `wholeImageRegion` picks the spelling of the single whole-image tile ("full" as
  * sharp writes it, "coordinates" as vips 8.14 does).
  */
-export function expectedTilePaths(
-  width: number,
-  height: number,
-  tileSize = DEFAULT_TILE_SIZE,
-  wholeImageRegion: WholeImageRegion = "full",
-): string[] {
+export function expectedTilePaths(width: number, height: number, tileSize = DEFAULT_TILE_SIZE, wholeImageRegion: WholeImageRegion = "full"): string[] {
   const paths = scaleFactors(width, height, tileSize).flatMap((s) =>
     levelTiles(width, height, tileSize, s).map((t) => tilePath(t, width, height, wholeImageRegion)),
   );

@@ -18,7 +18,11 @@ function startsWith(bytes: Uint8Array, expected: readonly number[], at = 0): boo
 }
 
 function ascii(bytes: Uint8Array, at: number, text: string): boolean {
-  return startsWith(bytes, Array.from(text, (c) => c.charCodeAt(0)), at);
+  return startsWith(
+    bytes,
+    Array.from(text, (c) => c.charCodeAt(0)),
+    at,
+  );
 }
 
 /**

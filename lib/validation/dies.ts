@@ -2,12 +2,7 @@ import { z } from "zod";
 import { line } from "./common";
 
 /** A die dimension: positive, finite, at most 100 mm (no die is larger than a reticle). */
-const dimension = z
-  .number("must be a number")
-  .finite("must be finite")
-  .positive("must be positive")
-  .max(100_000, "must be at most 100000 µm")
-  .nullable();
+const dimension = z.number("must be a number").finite("must be finite").positive("must be positive").max(100_000, "must be at most 100000 µm").nullable();
 
 export const dieInputSchema = z.strictObject({
   name: line(200).min(1, "a name is required"),

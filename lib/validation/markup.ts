@@ -27,8 +27,7 @@ const positions = (min: number, what: string) =>
     .min(min, `${what} needs at least ${min} positions`)
     .max(MAX_VERTICES, `must have at most ${MAX_VERTICES} vertices`);
 
-const pointSchema = (message: string) =>
-  z.strictObject({ type: z.literal("Point", { error: message }), coordinates: position });
+const pointSchema = (message: string) => z.strictObject({ type: z.literal("Point", { error: message }), coordinates: position });
 
 const lineStringSchema = (message: string) =>
   z
@@ -45,9 +44,15 @@ const polygonSchema = (message: string) =>
   z
     .strictObject({
       type: z.literal("Polygon", { error: message }),
-      coordinates: z.array(ringSchema, { error: "must be a list of rings" }).min(1, "a polygon needs an outer ring").max(MAX_RINGS + 1, `a polygon may have at most ${MAX_RINGS} holes`),
+      coordinates: z
+        .array(ringSchema, { error: "must be a list of rings" })
+        .min(1, "a polygon needs an outer ring")
+        .max(MAX_RINGS + 1, `a polygon may have at most ${MAX_RINGS} holes`),
     })
-    .refine((g) => g.coordinates.reduce((n, r) => n + r.length, 0) <= MAX_VERTICES, { message: `must have at most ${MAX_VERTICES} vertices`, path: ["coordinates"] })
+    .refine((g) => g.coordinates.reduce((n, r) => n + r.length, 0) <= MAX_VERTICES, {
+      message: `must have at most ${MAX_VERTICES} vertices`,
+      path: ["coordinates"],
+    })
     .transform((g) => ({ type: "Polygon" as const, coordinates: g.coordinates.map((r) => closeRing(r as Position[])) }));
 
 /** The geometry type each kind of markup has (as lib/markup/types.ts GeometryOf). */

@@ -15,10 +15,9 @@ const body = z
 const regionSchema = anyGeometrySchema.refine((g) => g.type === "Polygon", "must be a GeoJSON Polygon");
 
 /** A new thread: on a shape, or on a region, with its first comment. */
-export const newThreadSchema = z.union(
-  [z.strictObject({ shapeId: uuidSchema, body }), z.strictObject({ region: regionSchema, body })],
-  { error: "send { shapeId, body } or { region, body }" },
-);
+export const newThreadSchema = z.union([z.strictObject({ shapeId: uuidSchema, body }), z.strictObject({ region: regionSchema, body })], {
+  error: "send { shapeId, body } or { region, body }",
+});
 export type NewThreadInput = z.infer<typeof newThreadSchema>;
 
 export const commentSchema = z.strictObject({ body });
@@ -52,4 +51,3 @@ export type NotificationKind = (typeof NOTIFICATION_KINDS)[number];
 export const notificationPrefsSchema = z.strictObject(
   Object.fromEntries(NOTIFICATION_KINDS.map((k) => [k, z.boolean().optional()])) as Record<NotificationKind, z.ZodOptional<z.ZodBoolean>>,
 );
-

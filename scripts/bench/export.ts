@@ -12,7 +12,11 @@ const ROOT = path.resolve(import.meta.dirname, "../..");
 
 function renderOnce(input: string, widthPx: number, shapes: number) {
   const out = path.join(os.tmpdir(), "kerfline-bench", `export-${widthPx}.png`);
-  const r = spawnSync(process.execPath, ["--conditions=react-server", "--import", "tsx", path.join(ROOT, "scripts/bench/export-once.ts"), input, out, String(widthPx), String(shapes)], { cwd: ROOT, encoding: "utf8" });
+  const r = spawnSync(
+    process.execPath,
+    ["--conditions=react-server", "--import", "tsx", path.join(ROOT, "scripts/bench/export-once.ts"), input, out, String(widthPx), String(shapes)],
+    { cwd: ROOT, encoding: "utf8" },
+  );
   if (r.status !== 0) throw new Error(`export render failed: ${r.stderr}`);
   fs.rmSync(out, { force: true });
   return JSON.parse(r.stdout.trim().split("\n").pop()!) as { seconds: number; peakRssMb: number; width: number; height: number; bytes: number };
@@ -36,7 +40,9 @@ export async function benchExport(widths: readonly number[] = [8192, 16_384]) {
     const r = renderOnce(input, w, 5000);
     const plain = await plainResizeSeconds(input, w);
     const timeTarget = w === 8192 ? ` (target < 10 s) ${r.seconds < 10 ? "MET" : "NOT MET"}` : "";
-    console.log(`  ${r.width} × ${r.height} px: ${r.seconds.toFixed(2)} s${timeTarget}, peak RSS ${(r.peakRssMb / 1024).toFixed(2)} GB (target < 1.5 GB) ${r.peakRssMb < 1536 ? "MET" : "NOT MET"}, ${(r.bytes / 1e6).toFixed(1)} MB`);
+    console.log(
+      `  ${r.width} × ${r.height} px: ${r.seconds.toFixed(2)} s${timeTarget}, peak RSS ${(r.peakRssMb / 1024).toFixed(2)} GB (target < 1.5 GB) ${r.peakRssMb < 1536 ? "MET" : "NOT MET"}, ${(r.bytes / 1e6).toFixed(1)} MB`,
+    );
     console.log(`    reference, same run: plain sharp resize to PNG without markup ${plain.toFixed(2)} s (export / plain ${(r.seconds / plain).toFixed(2)})`);
   }
 }

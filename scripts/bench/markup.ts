@@ -14,8 +14,36 @@ function shapes(n: number) {
   for (let i = 0; i < n; i++) {
     const x = 60 + (i % 100) * 23;
     const y = 60 + Math.floor(i / 100) * 30;
-    if (i % 5 === 4) out.push({ kind: "trace", geometry: { type: "LineString", coordinates: [[x, y], [x + 15, y + 10], [x + 20, y]] }, properties: { widthUm: 2 } });
-    else out.push({ kind: "pad", geometry: { type: "Polygon", coordinates: [[[x, y], [x + 12, y], [x + 12, y + 12], [x, y + 12], [x, y]]] }, properties: { label: `B${i}`, net: "", state: "bonded" } });
+    if (i % 5 === 4)
+      out.push({
+        kind: "trace",
+        geometry: {
+          type: "LineString",
+          coordinates: [
+            [x, y],
+            [x + 15, y + 10],
+            [x + 20, y],
+          ],
+        },
+        properties: { widthUm: 2 },
+      });
+    else
+      out.push({
+        kind: "pad",
+        geometry: {
+          type: "Polygon",
+          coordinates: [
+            [
+              [x, y],
+              [x + 12, y],
+              [x + 12, y + 12],
+              [x, y + 12],
+              [x, y],
+            ],
+          ],
+        },
+        properties: { label: `B${i}`, net: "", state: "bonded" },
+      });
   }
   return out;
 }
@@ -32,10 +60,11 @@ async function scriptedPanZoom(page: Page): Promise<number[]> {
     requestAnimationFrame(tick);
   })()`);
   const keys = ["+", "ArrowRight", "ArrowRight", "ArrowDown", "+", "ArrowLeft", "ArrowUp", "-", "ArrowRight", "-", "ArrowDown", "ArrowLeft"];
-  for (let round = 0; round < 3; round++) for (const k of keys) {
-    await page.keyboard.press(k);
-    await page.waitForTimeout(120);
-  }
+  for (let round = 0; round < 3; round++)
+    for (const k of keys) {
+      await page.keyboard.press(k);
+      await page.waitForTimeout(120);
+    }
   return page.evaluate(`(() => { window.__stop = true; return window.__frames.slice(5); })()`) as Promise<number[]>;
 }
 
@@ -54,7 +83,10 @@ async function openDie(page: Page, url: string) {
 /** Prints frame-time ratio (target ≤ 1.5) and 5,000-shape load time (target < 300 ms). */
 export async function benchMarkup() {
   const server = await startServer();
-  const browser = await chromium.launch({ executablePath: "/usr/bin/chromium", args: ["--no-sandbox", "--disable-gpu", "--disable-background-networking", "--disable-component-update", "--disable-sync", "--no-first-run"] });
+  const browser = await chromium.launch({
+    executablePath: "/usr/bin/chromium",
+    args: ["--no-sandbox", "--disable-gpu", "--disable-background-networking", "--disable-component-update", "--disable-sync", "--no-first-run"],
+  });
   try {
     const { analyst } = await demoClients(server.url);
     const cases = await analyst.get<{ id: string; title: string }[]>("/api/cases");

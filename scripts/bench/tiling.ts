@@ -30,7 +30,10 @@ export async function benchImage(): Promise<string> {
 }
 
 function runOurs(input: string, out: string) {
-  const r = spawnSync(process.execPath, ["--conditions=react-server", "--import", "tsx", path.join(ROOT, "scripts/bench/tile-once.ts"), input, out], { cwd: ROOT, encoding: "utf8" });
+  const r = spawnSync(process.execPath, ["--conditions=react-server", "--import", "tsx", path.join(ROOT, "scripts/bench/tile-once.ts"), input, out], {
+    cwd: ROOT,
+    encoding: "utf8",
+  });
   if (r.status !== 0) throw new Error(r.stderr);
   return JSON.parse(r.stdout.trim().split("\n").pop()!) as { seconds: number; peakRssMb: number };
 }
@@ -40,7 +43,11 @@ function runVips(input: string, out: string) {
   const py = `import resource,subprocess,sys,time,json
 t=time.time(); subprocess.run(sys.argv[1:],check=True); s=time.time()-t
 print(json.dumps({"seconds":s,"peakRssMb":resource.getrusage(resource.RUSAGE_CHILDREN).ru_maxrss/1024}))`;
-  const out2 = execFileSync("python3", ["-c", py, "vips", "dzsave", input, out, "--layout", "iiif3", "--tile-size", "512", "--overlap", "0", "--suffix", ".jpg[Q=85]"], { encoding: "utf8" });
+  const out2 = execFileSync(
+    "python3",
+    ["-c", py, "vips", "dzsave", input, out, "--layout", "iiif3", "--tile-size", "512", "--overlap", "0", "--suffix", ".jpg[Q=85]"],
+    { encoding: "utf8" },
+  );
   return JSON.parse(out2.trim()) as { seconds: number; peakRssMb: number };
 }
 
@@ -66,7 +73,9 @@ export async function benchTiling(rounds = 3) {
   const peak = Math.max(...ours.map((o) => o.peakRssMb));
   console.log(`tiling 400 Mpx JPEG (20000×20000, 512-px tiles, Q85), ${rounds} alternating rounds:`);
   console.log(`  kerfline (sharp tile iiif3): median ${median(ours.map((o) => o.seconds)).toFixed(2)} s, peak RSS ${peak.toFixed(0)} MB`);
-  console.log(`  vips dzsave --layout iiif3:  median ${median(vips.map((o) => o.seconds)).toFixed(2)} s, peak RSS ${Math.max(...vips.map((o) => o.peakRssMb)).toFixed(0)} MB`);
+  console.log(
+    `  vips dzsave --layout iiif3:  median ${median(vips.map((o) => o.seconds)).toFixed(2)} s, peak RSS ${Math.max(...vips.map((o) => o.peakRssMb)).toFixed(0)} MB`,
+  );
   console.log(`  time ratio kerfline / vips (median of per-round ratios): ${ratio.toFixed(3)}  (target ≤ 1.10) ${ratio <= 1.1 ? "MET" : "NOT MET"}`);
   console.log(`  peak RSS ${(peak / 1024).toFixed(2)} GB  (target < 1.5 GB) ${peak < 1536 ? "MET" : "NOT MET"}`);
 }

@@ -37,7 +37,10 @@ export async function benchUpload(totalBytes = 2 * 1024 ** 3) {
     const status = await new Promise<number>((resolve, reject) => {
       const req = http.request(
         `${server.url}/api/dies/${d.body.id}/micrographs`,
-        { method: "POST", headers: { cookie, "content-type": `multipart/form-data; boundary=${boundary}`, "content-length": head.length + totalBytes + tail.length } },
+        {
+          method: "POST",
+          headers: { cookie, "content-type": `multipart/form-data; boundary=${boundary}`, "content-length": head.length + totalBytes + tail.length },
+        },
         (res) => {
           res.resume();
           res.on("end", () => resolve(res.statusCode ?? 0));
@@ -61,8 +64,12 @@ export async function benchUpload(totalBytes = 2 * 1024 ** 3) {
     clearInterval(sampler);
     const seconds = (performance.now() - t0) / 1000;
     const growth = peak - baseline;
-    console.log(`upload of ${(totalBytes / 1024 ** 3).toFixed(1)} GB to the running server (${seconds.toFixed(1)} s, ${(totalBytes / 1024 ** 2 / seconds).toFixed(0)} MB/s, answered ${status} — the body is not a whole JPEG, so it is refused after it is received):`);
-    console.log(`  server RSS baseline ${baseline.toFixed(0)} MB, peak ${peak.toFixed(0)} MB, growth ${growth.toFixed(0)} MB  (target < 200 MB) ${growth < 200 ? "MET" : "NOT MET"}`);
+    console.log(
+      `upload of ${(totalBytes / 1024 ** 3).toFixed(1)} GB to the running server (${seconds.toFixed(1)} s, ${(totalBytes / 1024 ** 2 / seconds).toFixed(0)} MB/s, answered ${status} — the body is not a whole JPEG, so it is refused after it is received):`,
+    );
+    console.log(
+      `  server RSS baseline ${baseline.toFixed(0)} MB, peak ${peak.toFixed(0)} MB, growth ${growth.toFixed(0)} MB  (target < 200 MB) ${growth < 200 ? "MET" : "NOT MET"}`,
+    );
   } finally {
     await server.stop();
   }

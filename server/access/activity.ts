@@ -20,7 +20,12 @@ const cursorOf = (item: { at: string; id: string }) => `${item.at}~${item.id}`;
  * The die's activity from the audit trail (markup, threads, comments, review), newest first,
  * `limit` at a time; `before` is the cursor of the last item of the previous page.
  */
-export async function listActivity(db: Db, actor: Actor, dieId: string, page: { before?: string; limit: number }): Promise<{ items: ActivityItem[]; nextBefore: string | null }> {
+export async function listActivity(
+  db: Db,
+  actor: Actor,
+  dieId: string,
+  page: { before?: string; limit: number },
+): Promise<{ items: ActivityItem[]; nextBefore: string | null }> {
   await loadDie(db, actor, dieId, "read");
   // Times compared at millisecond precision, the precision a cursor carries.
   const atMs = sql`date_trunc('milliseconds', ${auditEvents.at})`;

@@ -13,7 +13,6 @@ import type { AlignmentBody } from "@/lib/validation/alignment";
 import type { AlignmentDto } from "@/lib/dto/alignment";
 import type { Transform } from "@/lib/geometry/types";
 
-
 function toDto(r: MicrographRow): AlignmentDto {
   const residuals = r.residualsUm ?? [];
   return {
@@ -38,7 +37,8 @@ const plainTransform = (t: AlignmentResult["transform"]): Transform => [
 function givenTransform(t: Transform, body: AlignmentBody): AlignmentResult {
   const det = determinant(t);
   if (!t.flat().every(Number.isFinite) || det === 0) throw new AlignmentInputError("the transform must hold finite numbers and be invertible");
-  if ((det > 0) !== (body.mirrored ?? false)) throw new AlignmentInputError(handednessMessage(body.mirrored ?? false).replace("control points fit", "transform fits"));
+  if (det > 0 !== (body.mirrored ?? false))
+    throw new AlignmentInputError(handednessMessage(body.mirrored ?? false).replace("control points fit", "transform fits"));
   return alignmentResiduals(t, body.pairs);
 }
 
@@ -52,7 +52,10 @@ function solve(row: MicrographRow, body: AlignmentBody): AlignmentResult {
   } catch (e) {
     if (e instanceof AlignmentInputError) {
       const message = e.message.charAt(0).toUpperCase() + e.message.slice(1);
-      throw new BadRequestError(`Alignment refused: ${message}.`, e.pairIndices.map((i) => ({ path: `pairs.${i}`, message: e.message })));
+      throw new BadRequestError(
+        `Alignment refused: ${message}.`,
+        e.pairIndices.map((i) => ({ path: `pairs.${i}`, message: e.message })),
+      );
     }
     throw e;
   }
@@ -91,8 +94,23 @@ export async function saveAlignment(db: Db, actor: Actor, id: string, body: Alig
       })
       .where(eq(micrographs.id, id))
       .returning();
-    const pick = (m: MicrographRow) => ({ transform: m.transform, controlPoints: m.controlPoints, alignmentModel: m.alignmentModel, mirrored: m.mirrored, residualsUm: m.residualsUm, alignmentRmsUm: m.alignmentRmsUm });
-    await recordAudit(tx, actor, { teamId: die.teamId, action: "micrograph.aligned", entityType: "micrograph", entityId: id, dieId: row.dieId, before: pick(row), after: pick(after) });
+    const pick = (m: MicrographRow) => ({
+      transform: m.transform,
+      controlPoints: m.controlPoints,
+      alignmentModel: m.alignmentModel,
+      mirrored: m.mirrored,
+      residualsUm: m.residualsUm,
+      alignmentRmsUm: m.alignmentRmsUm,
+    });
+    await recordAudit(tx, actor, {
+      teamId: die.teamId,
+      action: "micrograph.aligned",
+      entityType: "micrograph",
+      entityId: id,
+      dieId: row.dieId,
+      before: pick(row),
+      after: pick(after),
+    });
     return { ...toDto(after), transform: plainTransform(r.transform), residualsUm: r.residualsUm, rmsUm: r.rmsUm, worstIndex: r.worstIndex };
   });
 }
@@ -113,7 +131,8 @@ export async function loadRefinePair(db: Db, actor: Actor, id: string, againstId
     const aligned = siblings.filter((m) => m.id !== id && m.transform);
     against = aligned.find((m) => m.isReference) ?? aligned[0];
   }
-  if (!against || against.id === id || !against.transform) throw new BadRequestError("Refinement needs another micrograph of this die that is already aligned.");
+  if (!against || against.id === id || !against.transform)
+    throw new BadRequestError("Refinement needs another micrograph of this die that is already aligned.");
   for (const m of [row, against]) {
     if (m.status !== "ready" && !m.previewWidth) throw new BadRequestError(`“${m.label}” is still being tiled; refine once its preview is ready.`);
   }

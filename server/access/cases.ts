@@ -50,11 +50,7 @@ export async function loadCase(db: Db, actor: Actor, caseId: string, action: Par
 /** One case as the caller may see it. */
 export async function getCase(db: Db, actor: Actor, caseId: string): Promise<CaseDto> {
   const { row, role } = await loadCase(db, actor, caseId, "read");
-  const [extra] = await db
-    .select({ teamName: teams.name, dieCount })
-    .from(cases)
-    .innerJoin(teams, eq(teams.id, cases.teamId))
-    .where(eq(cases.id, caseId));
+  const [extra] = await db.select({ teamName: teams.name, dieCount }).from(cases).innerJoin(teams, eq(teams.id, cases.teamId)).where(eq(cases.id, caseId));
   return toDto(row, extra.teamName, extra.dieCount, role);
 }
 
@@ -67,7 +63,10 @@ export async function createCase(
 ): Promise<CaseDto> {
   return db.transaction(async (tx) => {
     const role = await authorize(tx, actor, teamId, "edit", "That team");
-    const [row] = await tx.insert(cases).values({ ...input, teamId, createdBy: actor.userId }).returning();
+    const [row] = await tx
+      .insert(cases)
+      .values({ ...input, teamId, createdBy: actor.userId })
+      .returning();
     await recordAudit(tx, actor, { teamId, action: "case.created", entityType: "case", entityId: row.id, after: row });
     const [team] = await tx.select({ name: teams.name }).from(teams).where(eq(teams.id, teamId));
     return toDto(row, team.name, 0, role);

@@ -25,7 +25,17 @@ async function participants(db: Db, threadId: string, createdBy: string | null):
 export async function notifyComment(
   db: Db,
   actor: Actor,
-  p: { thread: ThreadRow; teamId: string; dieName: string; body: string; origin: string; commentId: string; people: TeamPerson[]; mentioned: string[]; threadMembers: Set<string> },
+  p: {
+    thread: ThreadRow;
+    teamId: string;
+    dieName: string;
+    body: string;
+    origin: string;
+    commentId: string;
+    people: TeamPerson[];
+    mentioned: string[];
+    threadMembers: Set<string>;
+  },
 ) {
   const author = p.people.find((m) => m.userId === actor.userId)?.name ?? "Someone";
   const link = threadLink(p.origin, p.thread.dieId, p.thread.id);
@@ -57,13 +67,24 @@ export async function notifyComment(
  * Writes a comment with its mentions (members of the die's team only), its audit event and
  * its notification mails, all in the caller's transaction.
  */
-export async function insertComment(db: Db, actor: Actor, p: { thread: ThreadRow; teamId: string; dieName: string; body: string; origin: string }): Promise<string> {
+export async function insertComment(
+  db: Db,
+  actor: Actor,
+  p: { thread: ThreadRow; teamId: string; dieName: string; body: string; origin: string },
+): Promise<string> {
   const threadMembers = await participants(db, p.thread.id, p.thread.createdBy);
   const [c] = await db.insert(comments).values({ threadId: p.thread.id, authorId: actor.userId, body: p.body }).returning();
   const people = await teamPeople(db, p.teamId);
   const mentioned = resolveMentions(p.body, people);
   if (mentioned.length) await db.insert(commentMentions).values(mentioned.map((userId) => ({ commentId: c.id, userId })));
-  await recordAudit(db, actor, { teamId: p.teamId, action: "comment.created", entityType: "comment", entityId: c.id, dieId: p.thread.dieId, after: { ...c, mentions: mentioned } });
+  await recordAudit(db, actor, {
+    teamId: p.teamId,
+    action: "comment.created",
+    entityType: "comment",
+    entityId: c.id,
+    dieId: p.thread.dieId,
+    after: { ...c, mentions: mentioned },
+  });
   await notifyComment(db, actor, { ...p, commentId: c.id, people, mentioned, threadMembers });
   return c.id;
 }

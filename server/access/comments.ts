@@ -38,9 +38,27 @@ export async function editComment(db: Db, actor: Actor, commentId: string, body:
     const mentioned = resolveMentions(body, people);
     await tx.delete(commentMentions).where(eq(commentMentions.commentId, commentId));
     if (mentioned.length) await tx.insert(commentMentions).values(mentioned.map((userId) => ({ commentId, userId })));
-    await recordAudit(tx, actor, { teamId: thread.die.teamId, action: "comment.edited", entityType: "comment", entityId: commentId, dieId: thread.row.dieId, before: c, after });
+    await recordAudit(tx, actor, {
+      teamId: thread.die.teamId,
+      action: "comment.edited",
+      entityType: "comment",
+      entityId: commentId,
+      dieId: thread.row.dieId,
+      before: c,
+      after,
+    });
     // Dedupe keys are per comment and person, so only newly mentioned people get a mail.
-    await notifyComment(tx, actor, { thread: thread.row, teamId: thread.die.teamId, dieName: thread.die.row.name, body, origin, commentId, people, mentioned, threadMembers: new Set() });
+    await notifyComment(tx, actor, {
+      thread: thread.row,
+      teamId: thread.die.teamId,
+      dieName: thread.die.row.name,
+      body,
+      origin,
+      commentId,
+      people,
+      mentioned,
+      threadMembers: new Set(),
+    });
     return c.threadId;
   });
   return getThread(db, actor, threadId);
@@ -51,7 +69,13 @@ export async function deleteComment(db: Db, actor: Actor, commentId: string): Pr
   await db.transaction(async (tx) => {
     const { c, thread } = await loadOwnComment(tx, actor, commentId);
     await tx.delete(comments).where(eq(comments.id, commentId));
-    await recordAudit(tx, actor, { teamId: thread.die.teamId, action: "comment.deleted", entityType: "comment", entityId: commentId, dieId: thread.row.dieId, before: c });
+    await recordAudit(tx, actor, {
+      teamId: thread.die.teamId,
+      action: "comment.deleted",
+      entityType: "comment",
+      entityId: commentId,
+      dieId: thread.row.dieId,
+      before: c,
+    });
   });
 }
-

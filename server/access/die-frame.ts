@@ -10,7 +10,6 @@ import { translateGeometry } from "@/lib/geometry/transform-geometry";
 import type { Geometry, PolygonGeometry, Position } from "@/lib/geometry/types";
 import type { Transform } from "@/lib/geometry/types";
 
-
 /**
  * Puts the die frame's origin at `origin` (a point in the current frame): every shape, thread
  * anchor, micrograph transform and control point moves by −origin, so nothing moves against
@@ -22,18 +21,31 @@ async function moveFrameOrigin(tx: Db, actor: Actor, dieId: string, origin: Posi
   for (const r of rows) {
     await tx
       .update(markup)
-      .set({ geometry: translateGeometry(r.geometry as Geometry, -dx, -dy), version: sql`${markup.version} + 1`, updatedAt: new Date(), updatedBy: actor.userId })
+      .set({
+        geometry: translateGeometry(r.geometry as Geometry, -dx, -dy),
+        version: sql`${markup.version} + 1`,
+        updatedAt: new Date(),
+        updatedBy: actor.userId,
+      })
       .where(eq(markup.id, r.id));
   }
   for (const t of await tx.select().from(threads).where(eq(threads.dieId, dieId))) {
-    await tx.update(threads).set({ anchor: translateGeometry(t.anchor as Geometry, -dx, -dy) }).where(eq(threads.id, t.id));
+    await tx
+      .update(threads)
+      .set({ anchor: translateGeometry(t.anchor as Geometry, -dx, -dy) })
+      .where(eq(threads.id, t.id));
   }
   for (const m of await tx.select().from(micrographs).where(eq(micrographs.dieId, dieId))) {
     const t = m.transform as Transform | null;
     await tx
       .update(micrographs)
       .set({
-        transform: t ? [[t[0][0], t[0][1], t[0][2] - dx], [t[1][0], t[1][1], t[1][2] - dy]] : null,
+        transform: t
+          ? [
+              [t[0][0], t[0][1], t[0][2] - dx],
+              [t[1][0], t[1][1], t[1][2] - dy],
+            ]
+          : null,
         controlPoints: m.controlPoints?.map((p) => ({ imagePx: p.imagePx, dieUm: [p.dieUm[0] - dx, p.dieUm[1] - dy] as [number, number] })) ?? null,
       })
       .where(eq(micrographs.id, m.id));
@@ -100,7 +112,10 @@ export async function restoreDieFrame(db: Db, actor: Actor, dieId: string, input
   }
   return db.transaction(async (tx) => {
     const { row: die, teamId } = await loadDie(tx, actor, dieId, "edit");
-    const gone = await tx.delete(markup).where(and(eq(markup.dieId, dieId), eq(markup.kind, "die_outline"))).returning();
+    const gone = await tx
+      .delete(markup)
+      .where(and(eq(markup.dieId, dieId), eq(markup.kind, "die_outline")))
+      .returning();
     for (const row of gone) await recordAudit(tx, actor, { teamId, action: "markup.deleted", entityType: "markup", entityId: row.id, dieId, before: row });
     await moveFrameOrigin(tx, actor, dieId, input.originUm);
     const moved = (await tx.select({ id: markup.id }).from(markup).where(eq(markup.dieId, dieId))).length;
@@ -109,7 +124,16 @@ export async function restoreDieFrame(db: Db, actor: Actor, dieId: string, input
       const now = new Date();
       const [row] = await tx
         .insert(markup)
-        .values({ dieId, kind: "die_outline", geometry: input.outline, properties: {}, createdBy: actor.userId, updatedBy: actor.userId, createdAt: now, updatedAt: now })
+        .values({
+          dieId,
+          kind: "die_outline",
+          geometry: input.outline,
+          properties: {},
+          createdBy: actor.userId,
+          updatedBy: actor.userId,
+          createdAt: now,
+          updatedAt: now,
+        })
         .returning();
       await recordAudit(tx, actor, { teamId, action: "markup.created", entityType: "markup", entityId: row.id, dieId, after: row });
       // The earlier outline sets the earlier size (and, were it not at the origin, the origin).

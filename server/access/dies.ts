@@ -95,7 +95,11 @@ export async function createDie(
 export async function updateDie(db: Db, actor: Actor, dieId: string, patch: DiePatch): Promise<DieDto> {
   await db.transaction(async (tx) => {
     const { row, teamId } = await loadDie(tx, actor, dieId, "edit");
-    const [after] = await tx.update(dies).set({ ...patch, updatedAt: new Date() }).where(eq(dies.id, dieId)).returning();
+    const [after] = await tx
+      .update(dies)
+      .set({ ...patch, updatedAt: new Date() })
+      .where(eq(dies.id, dieId))
+      .returning();
     await recordAudit(tx, actor, { teamId, action: "die.updated", entityType: "die", entityId: dieId, dieId, before: row, after });
   });
   return getDie(db, actor, dieId);

@@ -13,7 +13,16 @@ import { withShownPadStates } from "@/lib/markup/pad-state";
 
 /** Everything an export of one die needs, read after the caller was authorized. */
 export type DieSources = {
-  die: { id: string; name: string; widthUm: number | null; heightUm: number | null; reviewStatus: string; notes: string; analystName: string | null; extentUm: ExtentUm | null };
+  die: {
+    id: string;
+    name: string;
+    widthUm: number | null;
+    heightUm: number | null;
+    reviewStatus: string;
+    notes: string;
+    analystName: string | null;
+    extentUm: ExtentUm | null;
+  };
   caseRow: { title: string; partMarking: string; package: string; sampleId: string };
   shapes: AnyShape[];
 };
@@ -28,10 +37,30 @@ export async function loadDieSources(db: Db, dieId: string): Promise<DieSources 
     .where(eq(dies.id, dieId));
   if (!found) return null;
   const rows = await db.select().from(markup).where(eq(markup.dieId, dieId)).orderBy(asc(markup.seq));
-  const shapes = rows.map((r) => ({ id: r.id, kind: r.kind, geometry: r.geometry, properties: r.properties, version: r.version, createdBy: r.createdBy, updatedAt: r.updatedAt.toISOString() }) as AnyShape);
+  const shapes = rows.map(
+    (r) =>
+      ({
+        id: r.id,
+        kind: r.kind,
+        geometry: r.geometry,
+        properties: r.properties,
+        version: r.version,
+        createdBy: r.createdBy,
+        updatedAt: r.updatedAt.toISOString(),
+      }) as AnyShape,
+  );
   const d = found.die;
   return {
-    die: { id: d.id, name: d.name, widthUm: d.widthUm, heightUm: d.heightUm, reviewStatus: d.reviewStatus, notes: d.notes, analystName: found.analystName, extentUm: markupExtent(shapes) },
+    die: {
+      id: d.id,
+      name: d.name,
+      widthUm: d.widthUm,
+      heightUm: d.heightUm,
+      reviewStatus: d.reviewStatus,
+      notes: d.notes,
+      analystName: found.analystName,
+      extentUm: markupExtent(shapes),
+    },
     caseRow: { title: found.c.title, partMarking: found.c.partMarking, package: found.c.package, sampleId: found.c.sampleId },
     shapes,
   };
@@ -41,7 +70,12 @@ export async function loadDieSources(db: Db, dieId: string): Promise<DieSources 
 function markupExtent(shapes: readonly AnyShape[]): ExtentUm | null {
   if (shapes.length === 0) return null;
   const boxes = shapes.map((s) => boundingBox(s.geometry));
-  return { minX: Math.min(...boxes.map((b) => b.minX)), minY: Math.min(...boxes.map((b) => b.minY)), maxX: Math.max(...boxes.map((b) => b.maxX)), maxY: Math.max(...boxes.map((b) => b.maxY)) };
+  return {
+    minX: Math.min(...boxes.map((b) => b.minX)),
+    minY: Math.min(...boxes.map((b) => b.minY)),
+    maxX: Math.max(...boxes.map((b) => b.maxX)),
+    maxY: Math.max(...boxes.map((b) => b.maxY)),
+  };
 }
 
 /** The extent of a die's markup, read on its own (for checks that need nothing else). */
@@ -52,7 +86,10 @@ export async function loadMarkupExtent(db: Db, dieId: string): Promise<ExtentUm 
 
 /** A micrograph of the die (or null when it is not one of the die's). */
 export async function loadDieMicrograph(db: Db, dieId: string, micrographId: string): Promise<MicrographRow | null> {
-  const [row] = await db.select().from(micrographs).where(and(eq(micrographs.id, micrographId), eq(micrographs.dieId, dieId)));
+  const [row] = await db
+    .select()
+    .from(micrographs)
+    .where(and(eq(micrographs.id, micrographId), eq(micrographs.dieId, dieId)));
   return row ?? null;
 }
 
@@ -65,7 +102,11 @@ function anchorPoint(anchor: unknown): Position | null {
 
 /** The die's review threads as numbered markers, oldest first. */
 export async function loadThreadMarks(db: Db, dieId: string): Promise<ThreadMark[]> {
-  const rows = await db.select({ anchor: threads.anchor, status: threads.status }).from(threads).where(eq(threads.dieId, dieId)).orderBy(asc(threads.createdAt));
+  const rows = await db
+    .select({ anchor: threads.anchor, status: threads.status })
+    .from(threads)
+    .where(eq(threads.dieId, dieId))
+    .orderBy(asc(threads.createdAt));
   return rows.flatMap((r, i) => {
     const at = anchorPoint(r.anchor);
     return at ? [{ at, open: r.status === "open", number: i + 1 }] : [];

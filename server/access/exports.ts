@@ -12,7 +12,6 @@ import type { ExportDto, ExportResult } from "@/lib/dto/exports";
 
 type ExportRow = typeof exportsTable.$inferSelect;
 
-
 /** The stored params: the request as accepted, and the result once rendered. */
 export type ExportParams = { request: ExportRequest; result?: ExportResult; warnings?: string[] };
 
@@ -43,7 +42,11 @@ function toDto(row: ExportRow, createdByName: string | null): ExportDto {
  * Checks a request can be rendered before a job is queued (so bad ones answer 400 at once),
  * and returns what it resolved: the micrograph, its place in the die frame and the plan.
  */
-export function checkRenderable(m: MicrographRow | null, die: { widthUm: number | null; heightUm: number | null; extentUm: ExtentUm | null }, req: ExportRequest): { m: MicrographRow; image: SourceImage; plan: RenderPlan } {
+export function checkRenderable(
+  m: MicrographRow | null,
+  die: { widthUm: number | null; heightUm: number | null; extentUm: ExtentUm | null },
+  req: ExportRequest,
+): { m: MicrographRow; image: SourceImage; plan: RenderPlan } {
   if (!m) throw new NotFoundError("That micrograph");
   if (m.status === "failed" || !m.format) throw new ConflictError("That micrograph failed to process; upload it again before exporting.");
   const image = sourceImageOf(m);
@@ -59,7 +62,10 @@ export type ExportQuota = { perUser: number; perDie: number };
 const PENDING = ["queued", "running"] as const;
 
 async function pendingCount(db: Db, where: ReturnType<typeof eq>): Promise<number> {
-  const [{ n }] = await db.select({ n: sql<number>`count(*)::int` }).from(exportsTable).where(and(where, inArray(exportsTable.status, [...PENDING])));
+  const [{ n }] = await db
+    .select({ n: sql<number>`count(*)::int` })
+    .from(exportsTable)
+    .where(and(where, inArray(exportsTable.status, [...PENDING])));
   return n;
 }
 
@@ -92,7 +98,10 @@ export async function createExport(db: Db, actor: Actor, dieId: string, req: Exp
     const extentUm = await loadMarkupExtent(tx, dieId);
     const warnings = [...checkRenderable(await loadDieMicrograph(tx, dieId, req.micrographId), { ...die, extentUm }, req).plan.warnings];
     const params: ExportParams = { request: req, warnings };
-    const [row] = await tx.insert(exportsTable).values({ dieId, micrographId: req.micrographId, kind: "annotated_png", params, createdBy: actor.userId }).returning();
+    const [row] = await tx
+      .insert(exportsTable)
+      .values({ dieId, micrographId: req.micrographId, kind: "annotated_png", params, createdBy: actor.userId })
+      .returning();
     await tx.insert(jobs).values({ kind: "export", subjectId: row.id });
     const [me] = await tx.select({ name: users.name }).from(users).where(eq(users.id, actor.userId));
     return toDto(row, me?.name ?? null);
@@ -101,7 +110,11 @@ export async function createExport(db: Db, actor: Actor, dieId: string, req: Exp
 
 /** Loads an export and checks the caller may see its die (404 outside the team). */
 export async function loadExport(db: Db, actor: Actor, id: string) {
-  const [found] = await db.select({ row: exportsTable, name: users.name }).from(exportsTable).leftJoin(users, eq(users.id, exportsTable.createdBy)).where(eq(exportsTable.id, id));
+  const [found] = await db
+    .select({ row: exportsTable, name: users.name })
+    .from(exportsTable)
+    .leftJoin(users, eq(users.id, exportsTable.createdBy))
+    .where(eq(exportsTable.id, id));
   const { row } = await loadDieOf(db, actor, found?.row, "export", "That export");
   return { row, dto: toDto(row, found?.name ?? null) };
 }
@@ -129,7 +142,16 @@ export async function expireExports(db: Db, olderThan: Date): Promise<{ id: stri
       .delete(exportsTable)
       .where(and(inArray(exportsTable.status, ["done", "failed"]), lt(exportsTable.finishedAt, olderThan)))
       .returning({ id: exportsTable.id, dieId: exportsTable.dieId });
-    if (gone.length > 0) await tx.delete(jobs).where(and(eq(jobs.kind, "export"), inArray(jobs.subjectId, gone.map((g) => g.id))));
+    if (gone.length > 0)
+      await tx.delete(jobs).where(
+        and(
+          eq(jobs.kind, "export"),
+          inArray(
+            jobs.subjectId,
+            gone.map((g) => g.id),
+          ),
+        ),
+      );
     return gone;
   });
 }

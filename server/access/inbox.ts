@@ -5,7 +5,6 @@ import type { Actor, Db } from "./context";
 import { NotFoundError } from "@/lib/errors";
 import type { InboxItemDto, InboxKind } from "@/lib/dto/inbox";
 
-
 export type NewInboxItem = { userId: string; teamId: string; kind: InboxKind; dieId: string; threadId?: string; text: string; dedupeKey: string };
 
 /** How many items the inbox lists (newest first). */
@@ -48,7 +47,10 @@ export async function listInbox(db: Db, actor: Actor): Promise<{ items: InboxIte
 
 /** How many of the caller's items are unread (for the top bar). */
 export async function unreadInboxCount(db: Db, actor: Actor): Promise<number> {
-  const [row] = await db.select({ n: sql<number>`count(*)::int` }).from(inboxItems).where(and(mine(actor), isNull(inboxItems.readAt)));
+  const [row] = await db
+    .select({ n: sql<number>`count(*)::int` })
+    .from(inboxItems)
+    .where(and(mine(actor), isNull(inboxItems.readAt)));
   return row.n;
 }
 

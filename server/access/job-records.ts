@@ -43,6 +43,10 @@ export async function exportForJob(db: Db, exportId: string): Promise<ExportRow 
 }
 
 /** Moves an export's state (running with progress, done with its file, failed with a reason). */
-export async function setExportState(db: Db, exportId: string, changes: Partial<Pick<ExportRow, "status" | "progress" | "error" | "fileName" | "bytes" | "params" | "finishedAt">>): Promise<void> {
+export async function setExportState(
+  db: Db,
+  exportId: string,
+  changes: Partial<Pick<ExportRow, "status" | "progress" | "error" | "fileName" | "bytes" | "params" | "finishedAt">>,
+): Promise<void> {
   await db.update(exportsTable).set(changes).where(eq(exportsTable.id, exportId));
 }

@@ -110,7 +110,10 @@ async function checkPadReferences(db: Db, dieId: string, shapes: readonly { kind
   const ids = [...wanted.keys()].filter((id) => !known.has(id));
   for (let i = 0; i < ids.length; i += INSERT_CHUNK) {
     const chunk = ids.slice(i, i + INSERT_CHUNK);
-    const rows = await db.select({ id: markup.id }).from(markup).where(and(inArray(markup.id, chunk), eq(markup.dieId, dieId), eq(markup.kind, "pad")));
+    const rows = await db
+      .select({ id: markup.id })
+      .from(markup)
+      .where(and(inArray(markup.id, chunk), eq(markup.dieId, dieId), eq(markup.kind, "pad")));
     for (const row of rows) known.add(row.id);
   }
   const missing = ids.find((id) => !known.has(id));
@@ -129,12 +132,20 @@ export async function createMarkup(db: Db, actor: Actor, dieId: string, shapes: 
   try {
     return await db.transaction(async (tx) => {
       const { row: die, teamId } = await loadDie(tx, actor, dieId, "edit");
-      const outside = checkInsideDie(shapes.map((s) => s.geometry), dieBounds(die), batch);
+      const outside = checkInsideDie(
+        shapes.map((s) => s.geometry),
+        dieBounds(die),
+        batch,
+      );
       if (outside) throw refuse(outside);
       await checkPadReferences(tx, dieId, shapes, batch);
       const chosen = shapes.flatMap((s) => (s.id ? [s.id.toLowerCase()] : []));
       for (let i = 0; i < chosen.length; i += INSERT_CHUNK) {
-        const [taken] = await tx.select({ id: markup.id }).from(markup).where(inArray(markup.id, chosen.slice(i, i + INSERT_CHUNK))).limit(1);
+        const [taken] = await tx
+          .select({ id: markup.id })
+          .from(markup)
+          .where(inArray(markup.id, chosen.slice(i, i + INSERT_CHUNK)))
+          .limit(1);
         if (taken) throw new ConflictError(takenMessage(taken.id));
       }
       const now = new Date();
@@ -157,7 +168,15 @@ export async function createMarkup(db: Db, actor: Actor, dieId: string, shapes: 
       const outline = rows.find((r) => r.kind === "die_outline");
       if (outline && (await reframeToOutline(tx, actor, teamId, dieId, outline.geometry as PolygonGeometry))) {
         // The frame moved: answer with the shapes as they now are.
-        const now2 = await tx.select().from(markup).where(inArray(markup.id, rows.map((r) => r.id)));
+        const now2 = await tx
+          .select()
+          .from(markup)
+          .where(
+            inArray(
+              markup.id,
+              rows.map((r) => r.id),
+            ),
+          );
         const byId = new Map(now2.map((r) => [r.id, r]));
         return rows.map((r) => toShape(byId.get(r.id) ?? r));
       }
@@ -173,7 +192,9 @@ export async function createMarkup(db: Db, actor: Actor, dieId: string, shapes: 
 async function conflict(db: Db, id: string, action: string): Promise<never> {
   const [current] = await db.select().from(markup).where(eq(markup.id, id));
   if (!current) throw new NotFoundError("That shape");
-  throw new ConflictError(`Someone else changed this shape first (it is now at version ${current.version}); your ${action} was not saved.`, { current: toShape(current) });
+  throw new ConflictError(`Someone else changed this shape first (it is now at version ${current.version}); your ${action} was not saved.`, {
+    current: toShape(current),
+  });
 }
 
 /**

@@ -18,10 +18,20 @@ export async function setReference(db: Db, actor: Actor, id: string): Promise<Mi
     const { row, die } = await loadMicrograph(tx, actor, id, "edit");
     if (!row.transform) throw new BadRequestError("Align this micrograph to the die frame before making it the reference.");
     if (row.isReference) return;
-    const old = (await tx.select({ id: micrographs.id, isReference: micrographs.isReference }).from(micrographs).where(eq(micrographs.dieId, row.dieId))).find((m) => m.isReference);
+    const old = (await tx.select({ id: micrographs.id, isReference: micrographs.isReference }).from(micrographs).where(eq(micrographs.dieId, row.dieId))).find(
+      (m) => m.isReference,
+    );
     await tx.update(micrographs).set({ isReference: false }).where(eq(micrographs.dieId, row.dieId));
     await tx.update(micrographs).set({ isReference: true, updatedAt: new Date() }).where(eq(micrographs.id, id));
-    await recordAudit(tx, actor, { teamId: die.teamId, action: "micrograph.reference_changed", entityType: "die", entityId: row.dieId, dieId: row.dieId, before: { referenceId: old?.id ?? null }, after: { referenceId: id } });
+    await recordAudit(tx, actor, {
+      teamId: die.teamId,
+      action: "micrograph.reference_changed",
+      entityType: "die",
+      entityId: row.dieId,
+      dieId: row.dieId,
+      before: { referenceId: old?.id ?? null },
+      after: { referenceId: id },
+    });
   });
   return (await loadMicrograph(db, actor, id, "read")).dto;
 }
@@ -41,7 +51,15 @@ export async function reorderMicrographs(db: Db, actor: Actor, dieId: string, id
     }
     for (const [position, id] of ids.entries()) await tx.update(micrographs).set({ position }).where(eq(micrographs.id, id));
     const before = [...rows].sort((a, b) => a.position - b.position).map((r) => r.id);
-    await recordAudit(tx, actor, { teamId, action: "micrograph.reordered", entityType: "die", entityId: dieId, dieId, before: { order: before }, after: { order: ids } });
+    await recordAudit(tx, actor, {
+      teamId,
+      action: "micrograph.reordered",
+      entityType: "die",
+      entityId: dieId,
+      dieId,
+      before: { order: before },
+      after: { order: ids },
+    });
   });
   return listMicrographs(db, actor, dieId);
 }

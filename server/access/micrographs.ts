@@ -12,7 +12,6 @@ import type { TeamAction, TeamRole } from "@/lib/auth/permissions";
 import type { MicrographDto } from "@/lib/dto/micrographs";
 import type { Transform } from "@/lib/geometry/types";
 
-
 function toDto(r: MicrographRow, role: TeamRole): MicrographDto {
   return {
     id: r.id,
@@ -86,7 +85,10 @@ export type NewMicrograph = {
  */
 export async function insertMicrograph(db: Db, actor: Actor, dieId: string, m: NewMicrograph): Promise<MicrographRow> {
   const { teamId } = await loadDie(db, actor, dieId, "edit");
-  const [{ n }] = await db.select({ n: sql<number>`count(*)::int` }).from(micrographs).where(eq(micrographs.dieId, dieId));
+  const [{ n }] = await db
+    .select({ n: sql<number>`count(*)::int` })
+    .from(micrographs)
+    .where(eq(micrographs.dieId, dieId));
   const isReference = n === 0;
   const transform = isReference && m.scaleUmPerPx ? (frameFromScale(m.scaleUmPerPx, m.height) as Transform) : null;
   const [row] = await db
@@ -122,7 +124,15 @@ export async function updateMicrograph(db: Db, actor: Actor, id: string, patch: 
       if (row.isReference && row.height) changes.transform = frameFromScale(scale, row.height) as Transform;
     }
     const [after] = await tx.update(micrographs).set(changes).where(eq(micrographs.id, id)).returning();
-    await recordAudit(tx, actor, { teamId: die.teamId, action: "micrograph.updated", entityType: "micrograph", entityId: id, dieId: row.dieId, before: row, after });
+    await recordAudit(tx, actor, {
+      teamId: die.teamId,
+      action: "micrograph.updated",
+      entityType: "micrograph",
+      entityId: id,
+      dieId: row.dieId,
+      before: row,
+      after,
+    });
   });
   return getMicrograph(db, actor, id);
 }
@@ -153,8 +163,20 @@ export async function retryTiling(db: Db, actor: Actor, id: string): Promise<Mic
     if (row.status !== "failed") throw new ConflictError(`Only a failed micrograph can be tiled again; this one is ${row.status}.`);
     await tx.delete(jobs).where(and(eq(jobs.subjectId, id), eq(jobs.kind, "tile")));
     await tx.insert(jobs).values({ kind: "tile", subjectId: id });
-    const [after] = await tx.update(micrographs).set({ status: "queued", progress: 0, error: null, updatedAt: new Date() }).where(eq(micrographs.id, id)).returning();
-    await recordAudit(tx, actor, { teamId: die.teamId, action: "micrograph.retried", entityType: "micrograph", entityId: id, dieId: row.dieId, before: row, after });
+    const [after] = await tx
+      .update(micrographs)
+      .set({ status: "queued", progress: 0, error: null, updatedAt: new Date() })
+      .where(eq(micrographs.id, id))
+      .returning();
+    await recordAudit(tx, actor, {
+      teamId: die.teamId,
+      action: "micrograph.retried",
+      entityType: "micrograph",
+      entityId: id,
+      dieId: row.dieId,
+      before: row,
+      after,
+    });
   });
   return getMicrograph(db, actor, id);
 }

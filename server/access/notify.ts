@@ -23,7 +23,16 @@ export async function wantingMail(db: Db, candidates: readonly TeamPerson[], kin
   const off = await db
     .select({ userId: notificationPrefs.userId })
     .from(notificationPrefs)
-    .where(and(inArray(notificationPrefs.userId, candidates.map((c) => c.userId)), eq(notificationPrefs.kind, kind), eq(notificationPrefs.enabled, false)));
+    .where(
+      and(
+        inArray(
+          notificationPrefs.userId,
+          candidates.map((c) => c.userId),
+        ),
+        eq(notificationPrefs.kind, kind),
+        eq(notificationPrefs.enabled, false),
+      ),
+    );
   const muted = new Set(off.map((o) => o.userId));
   return candidates.filter((c) => !muted.has(c.userId));
 }

@@ -45,7 +45,10 @@ export async function claimDueMail(db: Db, now: Date, leaseMs: number, limit = 1
 
 /** Marks a message sent. */
 export async function markMailSent(db: Db, id: string): Promise<void> {
-  await db.update(outbox).set({ status: "sent", sentAt: new Date(), lastError: null, attempts: sql`${outbox.attempts} + 1` }).where(eq(outbox.id, id));
+  await db
+    .update(outbox)
+    .set({ status: "sent", sentAt: new Date(), lastError: null, attempts: sql`${outbox.attempts} + 1` })
+    .where(eq(outbox.id, id));
 }
 
 /** Records a failed attempt: retried later with back-off, failed for good after MAX_SEND_ATTEMPTS. */
@@ -54,6 +57,11 @@ export async function markMailFailed(db: Db, row: OutboxRow, error: string, base
   const last = attempts >= MAX_SEND_ATTEMPTS;
   await db
     .update(outbox)
-    .set({ attempts, lastError: error.slice(0, 500), status: last ? "failed" : "pending", nextAttemptAt: new Date(Date.now() + retryDelayMs(attempts, baseDelayMs)) })
+    .set({
+      attempts,
+      lastError: error.slice(0, 500),
+      status: last ? "failed" : "pending",
+      nextAttemptAt: new Date(Date.now() + retryDelayMs(attempts, baseDelayMs)),
+    })
     .where(eq(outbox.id, row.id));
 }

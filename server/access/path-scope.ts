@@ -17,10 +17,30 @@ const viaDie = (db: Db) => db.select({ teamId: cases.teamId }).from(dies).innerJ
 
 // Most specific first: a path names its own item last (/teams/{teamId}/members/{userId} is the team's).
 const LOOKUPS: [param: string, lookup: Lookup][] = [
-  ["commentId", { what: "That comment", team: async (db, id) => (await viaDie(db).innerJoin(threads, eq(threads.dieId, dies.id)).innerJoin(comments, eq(comments.threadId, threads.id)).where(eq(comments.id, id)))[0]?.teamId }],
-  ["threadId", { what: "That thread", team: async (db, id) => (await viaDie(db).innerJoin(threads, eq(threads.dieId, dies.id)).where(eq(threads.id, id)))[0]?.teamId }],
-  ["markupId", { what: "That shape", team: async (db, id) => (await viaDie(db).innerJoin(markup, eq(markup.dieId, dies.id)).where(eq(markup.id, id)))[0]?.teamId }],
-  ["micrographId", { what: "That micrograph", team: async (db, id) => (await viaDie(db).innerJoin(micrographs, eq(micrographs.dieId, dies.id)).where(eq(micrographs.id, id)))[0]?.teamId }],
+  [
+    "commentId",
+    {
+      what: "That comment",
+      team: async (db, id) =>
+        (await viaDie(db).innerJoin(threads, eq(threads.dieId, dies.id)).innerJoin(comments, eq(comments.threadId, threads.id)).where(eq(comments.id, id)))[0]
+          ?.teamId,
+    },
+  ],
+  [
+    "threadId",
+    { what: "That thread", team: async (db, id) => (await viaDie(db).innerJoin(threads, eq(threads.dieId, dies.id)).where(eq(threads.id, id)))[0]?.teamId },
+  ],
+  [
+    "markupId",
+    { what: "That shape", team: async (db, id) => (await viaDie(db).innerJoin(markup, eq(markup.dieId, dies.id)).where(eq(markup.id, id)))[0]?.teamId },
+  ],
+  [
+    "micrographId",
+    {
+      what: "That micrograph",
+      team: async (db, id) => (await viaDie(db).innerJoin(micrographs, eq(micrographs.dieId, dies.id)).where(eq(micrographs.id, id)))[0]?.teamId,
+    },
+  ],
   ["dieId", { what: "That die", team: async (db, id) => (await viaDie(db).where(eq(dies.id, id)))[0]?.teamId }],
   ["caseId", { what: "That case", team: async (db, id) => (await db.select({ teamId: cases.teamId }).from(cases).where(eq(cases.id, id)))[0]?.teamId }],
   ["teamId", { what: "That team", team: async (_db, id) => id }],

@@ -33,11 +33,34 @@ function shapeName(shapes: readonly AnyShape[], id: string | null): string {
 async function reviewParts(db: Db, dieId: string, shapes: readonly AnyShape[]): Promise<Pick<ReportData, "reviewHistory" | "threads">> {
   const events = await db.select().from(reviewEvents).where(eq(reviewEvents.dieId, dieId)).orderBy(asc(reviewEvents.at));
   const ts = await db.select().from(threads).where(eq(threads.dieId, dieId)).orderBy(asc(threads.createdAt));
-  const cs = ts.length ? await db.select().from(comments).where(inArray(comments.threadId, ts.map((t) => t.id))).orderBy(asc(comments.createdAt)) : [];
-  const names = await namesOf(db, [...events.map((e) => e.actorId), ...ts.map((t) => t.createdBy), ...ts.map((t) => t.resolvedBy), ...cs.map((c) => c.authorId)]);
+  const cs = ts.length
+    ? await db
+        .select()
+        .from(comments)
+        .where(
+          inArray(
+            comments.threadId,
+            ts.map((t) => t.id),
+          ),
+        )
+        .orderBy(asc(comments.createdAt))
+    : [];
+  const names = await namesOf(db, [
+    ...events.map((e) => e.actorId),
+    ...ts.map((t) => t.createdBy),
+    ...ts.map((t) => t.resolvedBy),
+    ...cs.map((c) => c.authorId),
+  ]);
   const who = (id: string | null) => names.get(id ?? "") ?? "—";
   return {
-    reviewHistory: events.map((e) => ({ at: day(e.at), who: who(e.actorId), action: e.action.replace(/_/g, " "), from: e.fromStatus.replace(/_/g, " "), to: e.toStatus.replace(/_/g, " "), message: e.message })),
+    reviewHistory: events.map((e) => ({
+      at: day(e.at),
+      who: who(e.actorId),
+      action: e.action.replace(/_/g, " "),
+      from: e.fromStatus.replace(/_/g, " "),
+      to: e.toStatus.replace(/_/g, " "),
+      message: e.message,
+    })),
     threads: ts.map((t, i) => ({
       number: i + 1,
       status: t.status,
@@ -45,7 +68,9 @@ async function reviewParts(db: Db, dieId: string, shapes: readonly AnyShape[]): 
       createdAt: day(t.createdAt),
       on: shapeName(shapes, t.shapeId),
       resolved: t.status === "resolved" ? `resolved by ${who(t.resolvedBy)}${t.resolvedAt ? ` on ${day(t.resolvedAt)}` : ""}` : null,
-      messages: cs.filter((c) => c.threadId === t.id).map((c) => ({ author: who(c.authorId), at: day(c.createdAt), body: c.body, edited: c.editedAt !== null })),
+      messages: cs
+        .filter((c) => c.threadId === t.id)
+        .map((c) => ({ author: who(c.authorId), at: day(c.createdAt), body: c.body, edited: c.editedAt !== null })),
     })),
   };
 }
@@ -71,7 +96,9 @@ function estimatesOf(shapes: readonly AnyShape[]): ReportData["estimates"] {
       source: String(e.source ?? "—"),
       savedAt: typeof e.savedAt === "string" ? e.savedAt.slice(0, 16).replace("T", " ") : "—",
       warnings: typeof e.warnings === "string" ? e.warnings : "",
-      values: Object.entries(e).filter(([k]) => !RECORD_META.has(k)).map(([k, v]) => [estimateFieldName(k), estimateValue(v)] as const),
+      values: Object.entries(e)
+        .filter(([k]) => !RECORD_META.has(k))
+        .map(([k, v]) => [estimateFieldName(k), estimateValue(v)] as const),
     })),
   );
 }
@@ -95,10 +122,19 @@ export async function loadReport(db: Db, actor: Actor, dieId: string, renderOver
     generatedAt: day(new Date()),
     generatedBy: me,
     caseInfo: src.caseRow,
-    die: { name: src.die.name, widthUm: src.die.widthUm, heightUm: src.die.heightUm, analyst: src.die.analystName ?? "—", reviewStatus: src.die.reviewStatus.replace(/_/g, " "), notes: src.die.notes },
+    die: {
+      name: src.die.name,
+      widthUm: src.die.widthUm,
+      heightUm: src.die.heightUm,
+      analyst: src.die.analystName ?? "—",
+      reviewStatus: src.die.reviewStatus.replace(/_/g, " "),
+      notes: src.die.notes,
+    },
     overview: await renderOverview(src, ms, me),
     padTable: pads.ok ? pads.table : { unavailable: pads.message },
-    blocks: src.shapes.flatMap((s) => (s.kind === "block" ? [{ name: s.properties.name, function: s.properties.function, areaUm2: polygonArea(s.geometry) }] : [])),
+    blocks: src.shapes.flatMap((s) =>
+      s.kind === "block" ? [{ name: s.properties.name, function: s.properties.function, areaUm2: polygonArea(s.geometry) }] : [],
+    ),
     measurements: lines.map((s) => ({
       kind: KIND_STYLE[s.kind].label,
       label: shapeLabel(s),

@@ -23,7 +23,16 @@ export async function listReviewEvents(db: Db, actor: Actor, dieId: string): Pro
     .leftJoin(users, eq(users.id, reviewEvents.actorId))
     .where(eq(reviewEvents.dieId, dieId))
     .orderBy(desc(reviewEvents.at), desc(reviewEvents.id));
-  return rows.map(({ e, actorName }) => ({ id: e.id, action: e.action, fromStatus: e.fromStatus, toStatus: e.toStatus, message: e.message, actorId: e.actorId, actorName, at: e.at.toISOString() }));
+  return rows.map(({ e, actorName }) => ({
+    id: e.id,
+    action: e.action,
+    fromStatus: e.fromStatus,
+    toStatus: e.toStatus,
+    message: e.message,
+    actorId: e.actorId,
+    actorName,
+    at: e.at.toISOString(),
+  }));
 }
 
 /**
@@ -37,7 +46,9 @@ export async function reviewDie(db: Db, actor: Actor, dieId: string, input: { ac
     const { row, teamId, role } = await loadDie(tx, actor, dieId, "read");
     const right = rightFor(input.action);
     if (!can(role, right)) {
-      throw new ForbiddenError(right === "edit" ? `A ${role} cannot submit a die for review in this team.` : `A ${role} cannot approve dies or request changes in this team.`);
+      throw new ForbiddenError(
+        right === "edit" ? `A ${role} cannot submit a die for review in this team.` : `A ${role} cannot approve dies or request changes in this team.`,
+      );
     }
     if (right === "decide" && row.analystId === actor.userId) {
       throw new ForbiddenError("You are this die's analyst, so someone else must approve it or request changes.");
@@ -50,9 +61,29 @@ export async function reviewDie(db: Db, actor: Actor, dieId: string, input: { ac
       .where(and(eq(dies.id, dieId), eq(dies.reviewStatus, row.reviewStatus)))
       .returning();
     if (!after) throw new ConflictError("Someone else changed this die's review status first; reload to see it.");
-    const [ev] = await tx.insert(reviewEvents).values({ dieId, actorId: actor.userId, action: input.action, fromStatus: row.reviewStatus, toStatus: to, message: input.message }).returning();
-    await recordAudit(tx, actor, { teamId, action: `review.${input.action}`, entityType: "die", entityId: dieId, dieId, before: { reviewStatus: row.reviewStatus }, after: { reviewStatus: to, message: input.message } });
-    await notifyReview(tx, actor, { teamId, dieId, dieName: row.name, analystId: row.analystId, action: input.action, message: input.message, eventId: ev.id, origin });
+    const [ev] = await tx
+      .insert(reviewEvents)
+      .values({ dieId, actorId: actor.userId, action: input.action, fromStatus: row.reviewStatus, toStatus: to, message: input.message })
+      .returning();
+    await recordAudit(tx, actor, {
+      teamId,
+      action: `review.${input.action}`,
+      entityType: "die",
+      entityId: dieId,
+      dieId,
+      before: { reviewStatus: row.reviewStatus },
+      after: { reviewStatus: to, message: input.message },
+    });
+    await notifyReview(tx, actor, {
+      teamId,
+      dieId,
+      dieName: row.name,
+      analystId: row.analystId,
+      action: input.action,
+      message: input.message,
+      eventId: ev.id,
+      origin,
+    });
   });
   return (await loadDie(db, actor, dieId, "read")).dto;
 }
@@ -72,7 +103,10 @@ async function notifyReview(
   const content = reviewMail({ action: p.action, actor: me, dieName: p.dieName, message: p.message, link: `${p.origin}/dies/${p.dieId}` });
   // The inbox gets every item whatever the mail settings: those choose mail only.
   const text = inboxText({ kind: "review", action: p.action, author: me, dieName: p.dieName, message: p.message });
-  await addInboxItems(db, recipients.map((m) => ({ userId: m.userId, teamId: p.teamId, kind, dieId: p.dieId, text, dedupeKey: `${kind}:${p.eventId}:${m.userId}` })));
+  await addInboxItems(
+    db,
+    recipients.map((m) => ({ userId: m.userId, teamId: p.teamId, kind, dieId: p.dieId, text, dedupeKey: `${kind}:${p.eventId}:${m.userId}` })),
+  );
   for (const m of await wantingMail(db, recipients, kind)) {
     await enqueueMail(db, { teamId: p.teamId, kind, to: m.email, content, dedupeKey: `${kind}:${p.eventId}:${m.userId}` });
   }

@@ -49,7 +49,10 @@ async function ownerCount(db: Db, teamId: string): Promise<number> {
 }
 
 async function loadMembership(db: Db, teamId: string, userId: string) {
-  const [row] = await db.select().from(memberships).where(and(eq(memberships.teamId, teamId), eq(memberships.userId, userId)));
+  const [row] = await db
+    .select()
+    .from(memberships)
+    .where(and(eq(memberships.teamId, teamId), eq(memberships.userId, userId)));
   if (!row) throw new NotFoundError("That member");
   return row;
 }

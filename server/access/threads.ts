@@ -13,7 +13,6 @@ import type { TeamAction } from "@/lib/auth/permissions";
 import type { NewThreadInput } from "@/lib/validation/review";
 import type { CommentDto, ThreadDto } from "@/lib/dto/threads";
 
-
 /** Loads a thread and checks the caller may do `action` on its die (404 outside the team). */
 export async function loadThread(db: Db, actor: Actor, threadId: string, action: TeamAction) {
   const [row] = await db.select().from(threads).where(eq(threads.id, threadId));
@@ -61,8 +60,13 @@ async function threadDtos(db: Db, rows: ThreadRow[]): Promise<ThreadDto[]> {
   const shapeIds = rows.flatMap((r) => (r.shapeId ? [r.shapeId] : []));
   const alive = new Set(shapeIds.length ? (await db.select({ id: markup.id }).from(markup).where(inArray(markup.id, shapeIds))).map((s) => s.id) : []);
   const userIds = [...new Set(rows.flatMap((r) => [r.resolvedBy, r.createdBy].filter((x): x is string => !!x)))];
-  const names = new Map(userIds.length ? (await db.select({ id: users.id, name: users.name }).from(users).where(inArray(users.id, userIds))).map((u) => [u.id, u.name]) : []);
-  const byThread = await commentsOf(db, rows.map((r) => r.id));
+  const names = new Map(
+    userIds.length ? (await db.select({ id: users.id, name: users.name }).from(users).where(inArray(users.id, userIds))).map((u) => [u.id, u.name]) : [],
+  );
+  const byThread = await commentsOf(
+    db,
+    rows.map((r) => r.id),
+  );
   return rows.map((r) => {
     const anchor = r.anchor as Geometry;
     const [x, y] = geometryCentre(anchor);
@@ -90,16 +94,29 @@ export async function getThread(db: Db, actor: Actor, threadId: string): Promise
   return (await threadDtos(db, [row]))[0];
 }
 
-async function anchorFor(db: Db, dieId: string, input: NewThreadInput, bounds: ReturnType<typeof dieBounds>): Promise<{ shapeId: string | null; anchor: Geometry }> {
+async function anchorFor(
+  db: Db,
+  dieId: string,
+  input: NewThreadInput,
+  bounds: ReturnType<typeof dieBounds>,
+): Promise<{ shapeId: string | null; anchor: Geometry }> {
   if ("shapeId" in input) {
-    const [shape] = await db.select().from(markup).where(and(eq(markup.id, input.shapeId.toLowerCase()), eq(markup.dieId, dieId)));
-    if (!shape) throw new BadRequestError("Invalid body: shapeId: no shape with that id on this die.", [{ path: "shapeId", message: "no shape with that id on this die" }]);
+    const [shape] = await db
+      .select()
+      .from(markup)
+      .where(and(eq(markup.id, input.shapeId.toLowerCase()), eq(markup.dieId, dieId)));
+    if (!shape)
+      throw new BadRequestError("Invalid body: shapeId: no shape with that id on this die.", [
+        { path: "shapeId", message: "no shape with that id on this die" },
+      ]);
     return { shapeId: shape.id, anchor: shape.geometry };
   }
   const outside = firstPositionOutside(input.region, bounds);
   if (outside) {
     const path = ["region", ...outside].join(".");
-    throw new BadRequestError(`Invalid body: ${path}: lies outside the die and its margin (${describeBounds(bounds)})`, [{ path, message: "lies outside the die" }]);
+    throw new BadRequestError(`Invalid body: ${path}: lies outside the die and its margin (${describeBounds(bounds)})`, [
+      { path, message: "lies outside the die" },
+    ]);
   }
   return { shapeId: null, anchor: input.region };
 }
@@ -128,7 +145,15 @@ export async function setThreadStatus(db: Db, actor: Actor, threadId: string, st
       .set({ status, resolvedBy: resolved ? actor.userId : null, resolvedAt: resolved ? new Date() : null, updatedAt: new Date() })
       .where(eq(threads.id, threadId))
       .returning();
-    await recordAudit(tx, actor, { teamId: die.teamId, action: resolved ? "thread.resolved" : "thread.reopened", entityType: "thread", entityId: threadId, dieId: row.dieId, before: row, after });
+    await recordAudit(tx, actor, {
+      teamId: die.teamId,
+      action: resolved ? "thread.resolved" : "thread.reopened",
+      entityType: "thread",
+      entityId: threadId,
+      dieId: row.dieId,
+      before: row,
+      after,
+    });
   });
   return getThread(db, actor, threadId);
 }

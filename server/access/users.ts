@@ -20,7 +20,10 @@ export async function userDisplayName(db: Db, userId: string): Promise<string | 
 
 /** Looks a user up by e-mail, case-insensitively. */
 export async function findUserByEmail(db: Db, email: string) {
-  const [row] = await db.select().from(users).where(sql`lower(${users.email}) = ${email.trim().toLowerCase()}`);
+  const [row] = await db
+    .select()
+    .from(users)
+    .where(sql`lower(${users.email}) = ${email.trim().toLowerCase()}`);
   return row ?? null;
 }
 
@@ -45,10 +48,22 @@ async function admitAttempt(db: Db, key: string, address: string, now: Date): Pr
       .where(and(eq(signInAttempts.email, key), eq(signInAttempts.succeeded, true), gt(signInAttempts.at, new Date(now.getTime() - KNOWN_ADDRESS_MS))));
     const knownList = known.map((k) => k.address);
     const at = { at: signInAttempts.at };
-    const pair = await tx.select(at).from(signInAttempts).where(and(eq(signInAttempts.email, key), eq(signInAttempts.address, address), failed)).orderBy(signInAttempts.at);
+    const pair = await tx
+      .select(at)
+      .from(signInAttempts)
+      .where(and(eq(signInAttempts.email, key), eq(signInAttempts.address, address), failed))
+      .orderBy(signInAttempts.at);
     const unknownOnly = knownList.length ? notInArray(signInAttempts.address, knownList) : undefined;
-    const accountUnknown = await tx.select(at).from(signInAttempts).where(and(eq(signInAttempts.email, key), unknownOnly, failed)).orderBy(signInAttempts.at);
-    const fromAddress = await tx.select(at).from(signInAttempts).where(and(eq(signInAttempts.address, address), failed)).orderBy(signInAttempts.at);
+    const accountUnknown = await tx
+      .select(at)
+      .from(signInAttempts)
+      .where(and(eq(signInAttempts.email, key), unknownOnly, failed))
+      .orderBy(signInAttempts.at);
+    const fromAddress = await tx
+      .select(at)
+      .from(signInAttempts)
+      .where(and(eq(signInAttempts.address, address), failed))
+      .orderBy(signInAttempts.at);
     const gate = signInGate(
       { pair: times(pair), accountUnknown: times(accountUnknown), address: times(fromAddress), knownAddress: knownList.includes(address) },
       now.getTime(),
@@ -87,7 +102,8 @@ export async function authenticate(db: Db, email: string, password: string, addr
 export async function changePassword(db: Db, actor: Actor, input: { currentPassword: string; newPassword: string }): Promise<void> {
   const [user] = await db.select().from(users).where(eq(users.id, actor.userId));
   if (!user?.passwordHash) throw new NotFoundError("Your account");
-  if (!(await checkPassword(input.currentPassword, user.passwordHash))) throw new BadRequestError("Invalid body: currentPassword does not match your password; nothing was changed.");
+  if (!(await checkPassword(input.currentPassword, user.passwordHash)))
+    throw new BadRequestError("Invalid body: currentPassword does not match your password; nothing was changed.");
   if (input.currentPassword === input.newPassword) throw new BadRequestError("Invalid body: newPassword must differ from the current one.");
   const passwordHash = await hashPassword(input.newPassword);
   await db.transaction(async (tx) => {
@@ -101,4 +117,3 @@ function dummyHash(): Promise<string> {
   dummy ??= hashPassword(`unknown-account-${Math.random()}`);
   return dummy;
 }
-

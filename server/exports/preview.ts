@@ -37,5 +37,13 @@ export async function previewExport(db: Db, actor: Actor, dieId: string, req: Ex
     title: titleBlockFor(src, m, full.umPerPx, me ?? "unknown"),
   });
   const { width, height } = await sharp(png).metadata();
-  return { width: full.width, height: full.height, umPerPx: full.umPerPx, warnings: [...full.warnings], png: png.toString("base64"), previewWidth: width ?? plan.width, previewHeight: height ?? plan.height };
+  return {
+    width: full.width,
+    height: full.height,
+    umPerPx: full.umPerPx,
+    warnings: [...full.warnings],
+    png: png.toString("base64"),
+    previewWidth: width ?? plan.width,
+    previewHeight: height ?? plan.height,
+  };
 }

@@ -10,7 +10,9 @@ export type RenderFiles = { original(m: MicrographRow): string | null; copy(m: M
 /** Size of the downscaled copy, or null while it does not exist (tiling not done yet). */
 export async function copySize(file: string | null): Promise<{ width: number; height: number } | null> {
   if (!file) return null;
-  const meta = await sharp(file).metadata().catch(() => null);
+  const meta = await sharp(file)
+    .metadata()
+    .catch(() => null);
   return meta?.width && meta.height ? { width: meta.width, height: meta.height } : null;
 }
 

@@ -24,7 +24,18 @@ export function overviewRenderer(files: RenderFiles): OverviewRenderer {
     const copyFile = files.copy(m);
     const { plan, fromCopy } = previewPlan(image, await copySize(copyFile), planned.plan, OVERVIEW_WIDTH_PX);
     const title = titleBlockFor(src, m, plan.umPerPx, author);
-    const { png, info } = await renderAnnotatedPngBuffer({ original: fromCopy ? copyFile : files.original(m), pixelCap: files.pixelCap, plan, shapes: withShownPadStates(src.shapes), threads: [], labels: true, title });
-    return { png, caption: `${m.label} (${ILLUMINATION_LABELS[m.illumination]}), whole die at ${planned.plan.umPerPx.toPrecision(3)} µm/px; scale bar ${info.scaleBar.label}.${planned.plan.warnings.length ? ` ${planned.plan.warnings.join(" ")}` : ""}` };
+    const { png, info } = await renderAnnotatedPngBuffer({
+      original: fromCopy ? copyFile : files.original(m),
+      pixelCap: files.pixelCap,
+      plan,
+      shapes: withShownPadStates(src.shapes),
+      threads: [],
+      labels: true,
+      title,
+    });
+    return {
+      png,
+      caption: `${m.label} (${ILLUMINATION_LABELS[m.illumination]}), whole die at ${planned.plan.umPerPx.toPrecision(3)} µm/px; scale bar ${info.scaleBar.label}.${planned.plan.warnings.length ? ` ${planned.plan.warnings.join(" ")}` : ""}`,
+    };
   };
 }

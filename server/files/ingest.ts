@@ -38,7 +38,11 @@ export async function ingestMicrograph(
     const truncated = await truncationReason(file.tempPath, file.format);
     if (truncated) throw new AppError(422, truncated);
     const probe = await probeImage(file.tempPath, env().KERFLINE_MAX_PIXELS);
-    const scale = c.scaleUmPerPx ?? (c.cameraPixelPitchUm && c.objectiveMag ? scaleFromCapture({ cameraPixelPitchUm: c.cameraPixelPitchUm, objectiveMag: c.objectiveMag, adapterMag: c.adapterMag }) : null);
+    const scale =
+      c.scaleUmPerPx ??
+      (c.cameraPixelPitchUm && c.objectiveMag
+        ? scaleFromCapture({ cameraPixelPitchUm: c.cameraPixelPitchUm, objectiveMag: c.objectiveMag, adapterMag: c.adapterMag })
+        : null);
     const paths = micrographPaths(dieId, id, probe.format);
     finalPath = paths.original!;
     await fs.mkdir(paths.originalsDir, { recursive: true });

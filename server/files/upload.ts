@@ -18,7 +18,10 @@ const UNSUPPORTED = "Only JPEG, PNG, TIFF (including BigTIFF) and WebP micrograp
 /** A client file name for display: its last path part, without control characters. */
 function displayName(raw: string): string {
   const base = raw.split(/[\\/]/).pop() ?? "";
-  return base.replace(/[\u0000-\u001f\u007f]/g, "").trim().slice(0, 200);
+  return base
+    .replace(/[\u0000-\u001f\u007f]/g, "")
+    .trim()
+    .slice(0, 200);
 }
 
 /**

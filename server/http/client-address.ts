@@ -9,7 +9,12 @@ import "server-only";
  */
 export function clientAddress(headers: Headers): string {
   const forwarded = headers.get("x-forwarded-for") ?? "";
-  const last = forwarded.split(",").map((s) => s.trim()).filter(Boolean).pop() ?? "";
+  const last =
+    forwarded
+      .split(",")
+      .map((s) => s.trim())
+      .filter(Boolean)
+      .pop() ?? "";
   // Addresses are short; anything longer is not one and is cut so it cannot bloat the table.
   return (last || "unknown").slice(0, 64).toLowerCase();
 }

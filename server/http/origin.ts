@@ -33,10 +33,10 @@ function addressedOrigin(req: Request): string {
 
 /** Same-origin check for requests that change something (see lib/http/same-origin.ts). */
 export function sameOriginVerdict(req: Request): OriginVerdict {
-  return checkSameOrigin(
-    { method: req.method, origin: req.headers.get("origin"), secFetchSite: req.headers.get("sec-fetch-site") },
-    [publicOrigin(req), addressedOrigin(req)],
-  );
+  return checkSameOrigin({ method: req.method, origin: req.headers.get("origin"), secFetchSite: req.headers.get("sec-fetch-site") }, [
+    publicOrigin(req),
+    addressedOrigin(req),
+  ]);
 }
 
 /** Says once at start where links will point, so a wrong setting is seen before mail goes out. */

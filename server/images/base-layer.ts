@@ -53,7 +53,10 @@ export function blank(W: number, H: number): Sharp {
 
 /** The source window as 8-bit sRGB without alpha, whatever the micrograph's format. */
 function sourceWindow(original: string, pixelCap: number, w: { left: number; top: number; width: number; height: number }): Sharp {
-  return sharpInput(original, pixelCap).extract({ left: w.left, top: w.top, width: w.width, height: w.height }).flatten({ background: BACKGROUND }).toColourspace("srgb");
+  return sharpInput(original, pixelCap)
+    .extract({ left: w.left, top: w.top, width: w.width, height: w.height })
+    .flatten({ background: BACKGROUND })
+    .toColourspace("srgb");
 }
 
 /** The export's image area as a random-access raster of plan.width × plan.height, 3 bands. */
@@ -75,7 +78,12 @@ export async function baseLayer(original: string | null, pixelCap: number, plan:
   const resized = await materialise(img, scratch, "window");
   // sharp crops and pads before its affine step, so the turned image is written out before placing it.
   const turned = await materialise(
-    resized.affine([...s.matrix] as [number, number, number, number], { odx: s.odx, ody: s.ody, background: BACKGROUND, interpolator: sharp.interpolators.bicubic }),
+    resized.affine([...s.matrix] as [number, number, number, number], {
+      odx: s.odx,
+      ody: s.ody,
+      background: BACKGROUND,
+      interpolator: sharp.interpolators.bicubic,
+    }),
     scratch,
     "turned",
   );

@@ -75,7 +75,9 @@ describe("pixel cap", () => {
 
   it("honours a lower cap passed by the caller", async () => {
     const file = path.join(work.dir, "medium.png");
-    await sharp({ create: { width: 1200, height: 1000, channels: 3, background: "#000" } }).png().toFile(file);
+    await sharp({ create: { width: 1200, height: 1000, channels: 3, background: "#000" } })
+      .png()
+      .toFile(file);
     expect((await rejection(probeImage(file, 1_000_000))).reason).toBe("too_many_pixels");
     await expect(probeImage(file, 1_200_000)).resolves.toEqual({ format: "png", width: 1200, height: 1000 });
   });
@@ -86,7 +88,9 @@ describe("accepted inputs", () => {
     // Independent reference: Debian's vips CLI writes the BigTIFF (tiffsave option bigtiff).
     const png = path.join(work.dir, "for-bigtiff.png");
     const tif = path.join(work.dir, "big.tif");
-    await sharp({ create: { width: 640, height: 480, channels: 3, background: "#406080" } }).png().toFile(png);
+    await sharp({ create: { width: 640, height: 480, channels: 3, background: "#406080" } })
+      .png()
+      .toFile(png);
     await run("vips", ["copy", png, `${tif}[bigtiff,tile]`]);
     await expect(probeImage(tif)).resolves.toEqual({ format: "bigtiff", width: 640, height: 480 });
   });

@@ -92,7 +92,9 @@ describe("preview and thumbnail", () => {
 
   it("never enlarges a small image", async () => {
     const small = path.join(work.dir, "small.png");
-    await sharp({ create: { width: 300, height: 100, channels: 3, background: "#123" } }).png().toFile(small);
+    await sharp({ create: { width: 300, height: 100, channels: 3, background: "#123" } })
+      .png()
+      .toFile(small);
     expect(await buildPreview(small, path.join(work.dir, "small-preview.jpg"))).toEqual({ width: 300, height: 100 });
   });
 });

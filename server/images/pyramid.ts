@@ -69,8 +69,7 @@ async function verifyLayout(folder: string, d: PyramidDescription): Promise<void
     tiles?: { scaleFactors?: number[] }[];
   };
   const written = info.tiles?.[0]?.scaleFactors ?? [];
-  const same =
-    info.width === d.width && info.height === d.height && written.join(",") === d.scaleFactors.join(",");
+  const same = info.width === d.width && info.height === d.height && written.join(",") === d.scaleFactors.join(",");
   const coarsest = d.scaleFactors[d.scaleFactors.length - 1];
   const whole = tilePath(
     { region: { x: 0, y: 0, w: d.width, h: d.height }, size: { w: Math.ceil(d.width / coarsest), h: Math.ceil(d.height / coarsest) } },
@@ -107,11 +106,7 @@ async function swapIntoPlace(built: string, target: string): Promise<void> {
  * complete; on failure nothing is left behind. Refuses unsupported, over-large and damaged
  * inputs with an ImageRejectedError.
  */
-export async function buildPyramid(
-  inputPath: string,
-  outDir: string,
-  options: BuildPyramidOptions = {},
-): Promise<PyramidDescription> {
+export async function buildPyramid(inputPath: string, outDir: string, options: BuildPyramidOptions = {}): Promise<PyramidDescription> {
   const { tileSize = DEFAULT_TILE_SIZE, quality = 85, pixelCap = DEFAULT_PIXEL_CAP, pollMs = 300 } = options;
   const report = options.onProgress ?? (() => {});
   const { width, height } = await probeImage(inputPath, pixelCap);
@@ -151,12 +146,7 @@ export async function readPyramidDescription(dir: string): Promise<PyramidDescri
 }
 
 /** A JPEG no larger than `longSide` on its longer side, written atomically; returns its size. */
-async function buildDownscaled(
-  inputPath: string,
-  outFile: string,
-  longSide: number,
-  pixelCap: number,
-): Promise<{ width: number; height: number }> {
+async function buildDownscaled(inputPath: string, outFile: string, longSide: number, pixelCap: number): Promise<{ width: number; height: number }> {
   await probeImage(inputPath, pixelCap);
   await mkdir(path.dirname(outFile), { recursive: true });
   // Keeps the ".jpg" ending on the temporary name: sharp picks the output format from it.

@@ -33,26 +33,59 @@ beforeAll(async () => {
       raw[i + 1] = Math.round((y / SRC_H) * 120);
       raw[i + 2] = 60;
     }
-  writeFileSync(source, await sharp(raw, { raw: { width: SRC_W, height: SRC_H, channels: 3 } }).png().toBuffer());
+  writeFileSync(
+    source,
+    await sharp(raw, { raw: { width: SRC_W, height: SRC_H, channels: 3 } })
+      .png()
+      .toBuffer(),
+  );
 });
 
 const pad: AnyShape = {
   id: "11111111-1111-4111-8111-111111111111",
   kind: "pad",
-  geometry: { type: "Polygon", coordinates: [[[800, 400], [1000, 400], [1000, 600], [800, 600], [800, 400]]] },
+  geometry: {
+    type: "Polygon",
+    coordinates: [
+      [
+        [800, 400],
+        [1000, 400],
+        [1000, 600],
+        [800, 600],
+        [800, 400],
+      ],
+    ],
+  },
   properties: { label: "", net: "", state: "unbonded" },
   version: 1,
   createdBy: null,
   updatedAt: "2025-01-01T00:00:00.000Z",
 };
-const title = { caseTitle: "Case", dieName: "die", micrograph: "bright field", illumination: "Bright field", umPerPx: 1, date: "2025-01-02", author: "Ada", reviewStatus: "draft" };
+const title = {
+  caseTitle: "Case",
+  dieName: "die",
+  micrograph: "bright field",
+  illumination: "Bright field",
+  umPerPx: 1,
+  date: "2025-01-02",
+  author: "Ada",
+  reviewStatus: "draft",
+};
 
 function plan(req: Parameters<typeof planRender>[2]): RenderPlan {
   const r = planRender({ width: SRC_W, height: SRC_H, transform }, die, req);
   if (!r.ok) throw new Error(r.message);
   return r.plan;
 }
-const input = (p: RenderPlan, shapes: AnyShape[] = [], caseTitle = "Case"): RenderInput => ({ original: source, pixelCap: 1e9, plan: p, shapes, threads: [], labels: false, title: { ...title, caseTitle, umPerPx: p.umPerPx } });
+const input = (p: RenderPlan, shapes: AnyShape[] = [], caseTitle = "Case"): RenderInput => ({
+  original: source,
+  pixelCap: 1e9,
+  plan: p,
+  shapes,
+  threads: [],
+  labels: false,
+  title: { ...title, caseTitle, umPerPx: p.umPerPx },
+});
 
 async function rawOf(png: Buffer) {
   const { data, info } = await sharp(png).removeAlpha().raw().toBuffer({ resolveWithObject: true });
@@ -87,7 +120,7 @@ describe("renderAnnotatedPng", () => {
     const y = info.scaleBar.y + 1;
     const white = Array.from({ length: info.width }, (_, x) => x).filter((x) => img.at(x, y).every((v) => v > 250));
     const [value, unit] = info.scaleBar.label.split(" ");
-    const um = Number(value) * ({ nm: 1e-3, "µm": 1, mm: 1000 } as Record<string, number>)[unit];
+    const um = Number(value) * ({ nm: 1e-3, µm: 1, mm: 1000 } as Record<string, number>)[unit];
     expect(Math.abs(white.length - um / p.umPerPx)).toBeLessThanOrEqual(1);
     expect(info.scaleBar.label).toMatch(/^(1|2|5)0* (µm|mm)$/);
   });
@@ -146,7 +179,12 @@ describe("renderAnnotatedPng of a rotated micrograph", () => {
         raw[i + 1] = white ? 255 : Math.round((y / SRC_H) * 120);
         raw[i + 2] = white ? 255 : 60;
       }
-    writeFileSync(marked, await sharp(raw, { raw: { width: SRC_W, height: SRC_H, channels: 3 } }).png().toBuffer());
+    writeFileSync(
+      marked,
+      await sharp(raw, { raw: { width: SRC_W, height: SRC_H, channels: 3 } })
+        .png()
+        .toBuffer(),
+    );
   });
 
   function rotatedPlan(req: Parameters<typeof planRender>[2]): RenderPlan {
@@ -222,7 +260,10 @@ describe("renderAnnotatedPngFile over several bands", () => {
     // 1200 px wide at 2 µm/px: 900 image rows + footer, two bands of 512 rows.
     const p = plan({ region: DIE_RECT, umPerPx: 2 });
     const labelled = { ...pad, properties: { ...pad.properties, label: "VDD" } } as AnyShape;
-    const threads = [{ at: [1200, 900] as const, open: true, number: 1 }, { at: [1210, 505] as const, open: false, number: 2 }];
+    const threads = [
+      { at: [1200, 900] as const, open: true, number: 1 },
+      { at: [1210, 505] as const, open: false, number: 2 },
+    ];
     const full = { ...input(p, [labelled]), threads, labels: true };
     const out = path.join(dir, "banded.png");
     const info = await renderAnnotatedPngFile(full, out);
@@ -245,8 +286,15 @@ describe("renderAnnotatedPngFile over several bands", () => {
 
   // The legend's order is MARKUP_KINDS (lib/markup/types.ts), whatever order the shapes come in.
   it("lists each kind present once in the legend, in MARKUP_KINDS order", async () => {
-    const shape = (kind: AnyShape["kind"], geometry: AnyShape["geometry"]) => ({ ...pad, id: crypto.randomUUID(), kind, geometry, properties: {} }) as unknown as AnyShape;
-    const line = { type: "LineString", coordinates: [[100, 100], [300, 100]] } as AnyShape["geometry"];
+    const shape = (kind: AnyShape["kind"], geometry: AnyShape["geometry"]) =>
+      ({ ...pad, id: crypto.randomUUID(), kind, geometry, properties: {} }) as unknown as AnyShape;
+    const line = {
+      type: "LineString",
+      coordinates: [
+        [100, 100],
+        [300, 100],
+      ],
+    } as AnyShape["geometry"];
     const shapes = [shape("note", { type: "Point", coordinates: [50, 50] } as AnyShape["geometry"]), shape("ruler", line), pad, shape("trace", line), pad];
     const { info } = await renderAnnotatedPngBuffer(input(plan({ widthPx: 300 }), shapes));
     expect(info.kinds).toEqual(MARKUP_KINDS.filter((k) => ["note", "ruler", "pad", "trace"].includes(k)));
@@ -259,7 +307,9 @@ describe("renderAnnotatedPngFile over several bands", () => {
     mkdirSync(sub);
     await renderAnnotatedPngFile({ ...input(plan({ umPerPx: 2 })), threads: [] }, path.join(sub, "ok.png"));
     expect(readdirSync(sub)).toEqual(["ok.png"]);
-    await expect(renderAnnotatedPngFile({ ...input(plan({ umPerPx: 2 })), original: path.join(dir, "missing.png") }, path.join(sub, "bad.png"))).rejects.toThrow();
+    await expect(
+      renderAnnotatedPngFile({ ...input(plan({ umPerPx: 2 })), original: path.join(dir, "missing.png") }, path.join(sub, "bad.png")),
+    ).rejects.toThrow();
     expect(readdirSync(sub)).toEqual(["ok.png"]);
   });
 });

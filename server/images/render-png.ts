@@ -31,7 +31,13 @@ export type RenderInput = {
   readonly onProgress?: (fraction: number) => void;
 };
 
-export type RenderInfo = { readonly width: number; readonly height: number; readonly imageHeight: number; readonly scaleBar: PlacedScaleBar; readonly kinds: readonly MarkupKind[] };
+export type RenderInfo = {
+  readonly width: number;
+  readonly height: number;
+  readonly imageHeight: number;
+  readonly scaleBar: PlacedScaleBar;
+  readonly kinds: readonly MarkupKind[];
+};
 
 /** The kinds present among the shapes, in MARKUP_KINDS order (the palette's), for the legend. */
 function kindsShown(shapes: readonly AnyShape[]): MarkupKind[] {
@@ -70,7 +76,13 @@ function footerTiles(svg: string, width: number, top: number, height: number): O
   const tiles: OverlayTile[] = [];
   for (let y = top; y < top + height; y = (Math.floor(y / BAND_ROWS) + 1) * BAND_ROWS) {
     const h = Math.min((Math.floor(y / BAND_ROWS) + 1) * BAND_ROWS, top + height) - y;
-    tiles.push({ svg: `<svg xmlns="http://www.w3.org/2000/svg" width="${width}" height="${h}" font-family="${EXPORT_FONT_FAMILY}"><g transform="translate(0 ${-y})">${svg}</g></svg>`, left: 0, top: y, width, height: h });
+    tiles.push({
+      svg: `<svg xmlns="http://www.w3.org/2000/svg" width="${width}" height="${h}" font-family="${EXPORT_FONT_FAMILY}"><g transform="translate(0 ${-y})">${svg}</g></svg>`,
+      left: 0,
+      top: y,
+      width,
+      height: h,
+    });
   }
   return tiles;
 }
@@ -112,7 +124,8 @@ async function annotated(input: RenderInput, scratch: Scratch): Promise<{ pipeli
     ...footerTiles(footer.svg, W, H, footer.height),
   ];
   const bands: Band[] = [];
-  for (let top = 0; top < total; top += rows) bands.push({ top, height: Math.min(rows, total - top), tiles: tiles.filter((t) => t.top >= top && t.top < top + rows) });
+  for (let top = 0; top < total; top += rows)
+    bands.push({ top, height: Math.min(rows, total - top), tiles: tiles.filter((t) => t.top >= top && t.top < top + rows) });
   if (bands.length === 1) {
     const only = await drawBand(base, bands[0], W, H);
     input.onProgress?.(0.8);
@@ -129,7 +142,12 @@ async function annotated(input: RenderInput, scratch: Scratch): Promise<{ pipeli
     return file;
   });
   // Stacked one per row; every cell is as tall as the tallest band, so the short last one is cropped back.
-  const stacked = sharp(files, { join: { across: 1, valign: "top" }, limitInputPixels: false, sequentialRead: true }).extract({ left: 0, top: 0, width: W, height: total });
+  const stacked = sharp(files, { join: { across: 1, valign: "top" }, limitInputPixels: false, sequentialRead: true }).extract({
+    left: 0,
+    top: 0,
+    width: W,
+    height: total,
+  });
   return { pipeline: stacked, info };
 }
 

@@ -71,7 +71,13 @@ async function runExport(db: Database, exportId: string): Promise<void> {
   );
   await written;
   const { lengthUm, label, px, x, y } = info.scaleBar;
-  const result: ExportResult = { width: info.width, height: info.height, umPerPx: plan.umPerPx, warnings: [...plan.warnings], scaleBar: { lengthUm, label, px, x, y } };
+  const result: ExportResult = {
+    width: info.width,
+    height: info.height,
+    umPerPx: plan.umPerPx,
+    warnings: [...plan.warnings],
+    scaleBar: { lengthUm, label, px, x, y },
+  };
   await setExportState(db, exportId, {
     status: "done",
     progress: 100,

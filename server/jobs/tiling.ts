@@ -14,7 +14,9 @@ import { startWorkers, type JobHandler } from "./worker";
 async function removeLeftovers(tilesDir: string, micrographId: string): Promise<void> {
   const names = await fs.readdir(tilesDir).catch(() => [] as string[]);
   await Promise.all(
-    names.filter((n) => n.startsWith(`${micrographId}-`) && n.includes("-partial-")).map((n) => fs.rm(path.join(tilesDir, n), { recursive: true, force: true })),
+    names
+      .filter((n) => n.startsWith(`${micrographId}-`) && n.includes("-partial-"))
+      .map((n) => fs.rm(path.join(tilesDir, n), { recursive: true, force: true })),
   );
 }
 

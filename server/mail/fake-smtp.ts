@@ -67,7 +67,10 @@ export function startFakeSmtp(dir: string, port: number): Promise<{ port: number
       const chunks: Buffer[] = [];
       stream.on("data", (c: Buffer) => chunks.push(c));
       stream.on("end", () => {
-        store(dir, Buffer.concat(chunks)).then(() => callback(), (e: Error) => callback(e));
+        store(dir, Buffer.concat(chunks)).then(
+          () => callback(),
+          (e: Error) => callback(e),
+        );
       });
     },
   });

@@ -17,7 +17,6 @@ export function mailboxFor(teamIds: readonly string[]): MailboxEntry[] {
   return listStoredMail(mailDir()).filter((m) => m.teamId !== null && mine.has(m.teamId));
 }
 
-
 /** One stored message, parsed again from its .eml file. */
 export async function readStoredMail(entry: MailboxEntry): Promise<StoredMessage> {
   const raw = fs.readFileSync(path.join(mailDir(), path.basename(entry.file)));

@@ -34,7 +34,9 @@ async function sendDueMail(db: Database): Promise<number> {
   const due = await claimDueMail(db, new Date(), LEASE_MS, BATCH);
   for (const row of due) {
     try {
-      await (await transport()).sendMail({
+      await (
+        await transport()
+      ).sendMail({
         from: FROM,
         to: row.toEmail,
         subject: row.subject,

@@ -14,7 +14,11 @@ async function as(browser: Browser, who: "owner" | "analyst" | "reviewer" | "vie
 async function api<T>(page: Page, method: string, path: string, body?: unknown): Promise<{ status: number; body: T }> {
   return page.evaluate(
     async ({ method, path, body }) => {
-      const res = await fetch(path, { method, headers: body === undefined ? {} : { "content-type": "application/json" }, body: body === undefined ? undefined : JSON.stringify(body) });
+      const res = await fetch(path, {
+        method,
+        headers: body === undefined ? {} : { "content-type": "application/json" },
+        body: body === undefined ? undefined : JSON.stringify(body),
+      });
       const text = await res.text();
       return { status: res.status, body: text ? JSON.parse(text) : null };
     },
@@ -34,7 +38,18 @@ test.describe.serial("inbox, invitations and account", () => {
     await reviewer.getByRole("link", { name: "NV-24R die A" }).click();
     await expect(reviewer).toHaveURL(/\/dies\/[0-9a-f-]{36}$/);
     const dieId = new URL(reviewer.url()).pathname.split("/").pop()!;
-    const region = { type: "Polygon", coordinates: [[[400, 400], [600, 400], [600, 600], [400, 600], [400, 400]]] };
+    const region = {
+      type: "Polygon",
+      coordinates: [
+        [
+          [400, 400],
+          [600, 400],
+          [600, 600],
+          [400, 600],
+          [400, 400],
+        ],
+      ],
+    };
     // A question of this run's own, so a repeated run finds exactly one inbox item for it.
     const asked = `is the guard ring here closed on the left side (${Date.now().toString(36)})?`;
     const thread = await api<{ id: string }>(reviewer, "POST", `/api/dies/${dieId}/threads`, { region, body: `@Demo Analyst ${asked}` });
@@ -104,7 +119,11 @@ test.describe.serial("inbox, invitations and account", () => {
     const teamId = await demoTeamId(owner);
     expect((await api(owner, "POST", `/api/teams/${teamId}/invitations`, { email: "outsider@elsewhere.test", role: "reviewer" })).status).toBe(201);
     // The newest invitation mail to the outsider, from the local mailbox.
-    const messages = owner.getByRole("list", { name: "Messages" }).getByRole("button").filter({ hasText: /Invitation to join/ }).filter({ hasText: "outsider@elsewhere.test" });
+    const messages = owner
+      .getByRole("list", { name: "Messages" })
+      .getByRole("button")
+      .filter({ hasText: /Invitation to join/ })
+      .filter({ hasText: "outsider@elsewhere.test" });
     await expect(async () => {
       await owner.goto("/mailbox");
       await expect(messages).toHaveCount(3, { timeout: 1000 });

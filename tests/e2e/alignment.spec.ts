@@ -10,7 +10,13 @@ import { applyAffine } from "../../lib/geometry/affine";
 // (lib/demo-die/placement.ts with the seed's settings): where each pad really is on each image.
 function placementOf(look: "bright_field" | "dark_field"): Placement {
   const o = demoMicrographOptions(look);
-  return placeDie(NV24R_LAYOUT, { pxPerUm: pxPerUmForWidth(NV24R_LAYOUT, o.widthPx!, 300), marginUm: 300, rotateDeg: o.rotateDeg, scale: o.scale, shiftPx: o.shiftPx });
+  return placeDie(NV24R_LAYOUT, {
+    pxPerUm: pxPerUmForWidth(NV24R_LAYOUT, o.widthPx!, 300),
+    marginUm: 300,
+    rotateDeg: o.rotateDeg,
+    scale: o.scale,
+    shiftPx: o.shiftPx,
+  });
 }
 const bright = placementOf("bright_field");
 const dark = placementOf("dark_field");
@@ -26,7 +32,10 @@ async function fitScreen(viewer: Locator, p: Placement, die: readonly [number, n
 
 /** RGB of one CSS px of a full-page screenshot (device scale 1). */
 async function pixels(page: Page) {
-  const { data, info } = await sharp(await page.screenshot()).removeAlpha().raw().toBuffer({ resolveWithObject: true });
+  const { data, info } = await sharp(await page.screenshot())
+    .removeAlpha()
+    .raw()
+    .toBuffer({ resolveWithObject: true });
   return (x: number, y: number) => {
     const i = (Math.round(y) * info.width + Math.round(x)) * 3;
     return [data[i], data[i + 1], data[i + 2]];
@@ -119,7 +128,12 @@ test.describe.serial("aligning and comparing the demo micrographs", () => {
     expect(Math.abs(found.bx - found.dx), JSON.stringify(found)).toBeLessThan(2);
     expect(Math.abs(found.by - found.dy), JSON.stringify(found)).toBeLessThan(2);
     // At 50 % every pixel over the pad is the mean of the two (within blending rounding).
-    for (const [dx, dy] of [[0, 0], [-4, 0], [4, 0], [0, 4]]) {
+    for (const [dx, dy] of [
+      [0, 0],
+      [-4, 0],
+      [4, 0],
+      [0, 4],
+    ]) {
       const x = xPad.x + dx;
       const y = xPad.y + dy;
       blended(x, y).forEach((v, c) => expect(Math.abs(v - (darkOnly(x, y)[c] + brightOnly(x, y)[c]) / 2)).toBeLessThan(12));
@@ -147,7 +161,10 @@ test.describe.serial("aligning and comparing the demo micrographs", () => {
     await page.getByRole("link", { name: "NV-24R receiver teardown" }).click();
     await page.getByRole("link", { name: "NV-24R die A" }).click();
     await page.getByRole("tab", { name: "Die & micrographs" }).click();
-    await page.getByRole("list", { name: "Micrographs" }).getByRole("button", { name: /bright field/ }).click();
+    await page
+      .getByRole("list", { name: "Micrographs" })
+      .getByRole("button", { name: /bright field/ })
+      .click();
     const viewer = page.getByRole("application", { name: "Micrograph viewer" });
     await expect(page.getByTestId("markup-overlay")).toBeVisible();
     await page.getByRole("button", { name: "Fit die" }).click();
@@ -169,11 +186,17 @@ test.describe.serial("aligning and comparing the demo micrographs", () => {
     });
     const drawn = shapes.filter((s) => s.kind === "pad").pop()! as { id?: string; geometry: { coordinates: number[][][] } };
     const ring = drawn.geometry.coordinates[0];
-    const centre = [(Math.min(...ring.map((p) => p[0])) + Math.max(...ring.map((p) => p[0]))) / 2, (Math.min(...ring.map((p) => p[1])) + Math.max(...ring.map((p) => p[1]))) / 2] as const;
+    const centre = [
+      (Math.min(...ring.map((p) => p[0])) + Math.max(...ring.map((p) => p[0]))) / 2,
+      (Math.min(...ring.map((p) => p[1])) + Math.max(...ring.map((p) => p[1]))) / 2,
+    ] as const;
 
     // Switch to the dark field: the same die-frame pad is drawn through its (aligned) transform
     // and must land on the dark-field image's own VB2 pad (ground truth), within the alignment's error.
-    await page.getByRole("list", { name: "Micrographs" }).getByRole("button", { name: /dark field/ }).click();
+    await page
+      .getByRole("list", { name: "Micrographs" })
+      .getByRole("button", { name: /dark field/ })
+      .click();
     await waitForStillView(page);
     await page.getByRole("button", { name: "Fit die" }).click();
     await waitForStillView(page);

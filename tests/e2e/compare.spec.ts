@@ -13,7 +13,13 @@ import { applyAffine, composeAffine, invertAffine } from "../../lib/geometry/aff
 // (lib/demo-die/placement.ts with the seed's settings): where each pad really is on each image.
 function placementOf(look: "bright_field" | "dark_field"): Placement {
   const o = demoMicrographOptions(look);
-  return placeDie(NV24R_LAYOUT, { pxPerUm: pxPerUmForWidth(NV24R_LAYOUT, o.widthPx!, 300), marginUm: 300, rotateDeg: o.rotateDeg, scale: o.scale, shiftPx: o.shiftPx });
+  return placeDie(NV24R_LAYOUT, {
+    pxPerUm: pxPerUmForWidth(NV24R_LAYOUT, o.widthPx!, 300),
+    marginUm: 300,
+    rotateDeg: o.rotateDeg,
+    scale: o.scale,
+    shiftPx: o.shiftPx,
+  });
 }
 const dark = placementOf("dark_field");
 
@@ -135,7 +141,15 @@ test.describe.serial("comparing the demo micrographs", () => {
       const get = await pixels(page, `test-results/compare-turned-reference-${step}.png`);
       const m = await dieToScreen(page, "compare-top");
       const o = (await page.getByTestId("compare-top").getByTestId("markup-overlay").boundingBox())!;
-      const screenToImage = invertAffine(composeAffine([[m[0][0], m[0][1], m[0][2] + o.x], [m[1][0], m[1][1], m[1][2] + o.y]], bright.imageToDie));
+      const screenToImage = invertAffine(
+        composeAffine(
+          [
+            [m[0][0], m[0][1], m[0][2] + o.x],
+            [m[1][0], m[1][1], m[1][2] + o.y],
+          ],
+          bright.imageToDie,
+        ),
+      );
       // Every sampled screen px inside the image must show what the rendering has there. Only
       // spots where every truth px within ±4 screen px is the same colour count (edges blur), and the
       // viewer's own controls are left out: toolbar (left), scale bar and readout (bottom
@@ -195,7 +209,12 @@ test.describe.serial("comparing the demo micrographs", () => {
     const rows = page.getByRole("table", { name: "Control-point pairs" }).locator("tbody tr");
     await expect(rows).toHaveCount(8); // the control points stored by the first test
     await waitForStillView(page);
-    for (const [side, dx] of [["align-left", 0], ["align-right", 0], ["align-left", 40], ["align-right", 40]] as const) {
+    for (const [side, dx] of [
+      ["align-left", 0],
+      ["align-right", 0],
+      ["align-left", 40],
+      ["align-right", 40],
+    ] as const) {
       const box = (await page.getByTestId(side).boundingBox())!;
       await page.mouse.click(box.x + box.width / 2 + dx, box.y + box.height / 2);
     }

@@ -18,7 +18,13 @@ test("a thread link renders without hydration errors and the first click back to
   await expect(page.getByTestId("markup-overlay")).toBeVisible();
   const dieId = page.url().split("/").pop()!;
   const threadId = await page.evaluate(async (dieId) => {
-    const ring = [[100, 100], [300, 100], [300, 300], [100, 300], [100, 100]];
+    const ring = [
+      [100, 100],
+      [300, 100],
+      [300, 300],
+      [100, 300],
+      [100, 100],
+    ];
     const res = await fetch(`/api/dies/${dieId}/threads`, {
       method: "POST",
       headers: { "content-type": "application/json" },

@@ -50,7 +50,12 @@ test.describe.serial("hand-over exports", () => {
 
     const [pdf] = await Promise.all([page.waitForEvent("download"), page.getByRole("link", { name: "Die report (PDF)" }).click()]);
     // ISO 32000-1 §7.5.2: the file header.
-    expect(fs.readFileSync(await pdf.path()).subarray(0, 5).toString("latin1")).toBe("%PDF-");
+    expect(
+      fs
+        .readFileSync(await pdf.path())
+        .subarray(0, 5)
+        .toString("latin1"),
+    ).toBe("%PDF-");
     expect(pdf.suggestedFilename()).toMatch(/report-\d{4}-\d{2}-\d{2}\.pdf$/);
   });
 

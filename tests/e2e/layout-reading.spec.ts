@@ -17,7 +17,17 @@ async function createBond(page: Page, label: string): Promise<string> {
   return page.evaluate(async (label) => {
     const dieId = location.pathname.split("/").pop();
     // 600 × 800 µm run inside the die: 1000 µm long (3-4-5 triangle).
-    const body = { kind: "wire_bond", geometry: { type: "LineString", coordinates: [[1000, 300], [1600, 1100]] }, properties: { label, diameterUm: 25 } };
+    const body = {
+      kind: "wire_bond",
+      geometry: {
+        type: "LineString",
+        coordinates: [
+          [1000, 300],
+          [1600, 1100],
+        ],
+      },
+      properties: { label, diameterUm: 25 },
+    };
     const res = await fetch(`/api/dies/${dieId}/markup`, { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify(body) });
     if (res.status !== 201) throw new Error(`POST markup answered ${res.status}`);
     return ((await res.json()) as { id: string }).id;
@@ -88,13 +98,44 @@ test("the analyst reads the symmetry report of a die with an axis and one pad mo
     };
     const me = (await (await fetch("/api/me")).json()) as { teams: { id: string; name: string }[] };
     const team = me.teams.find((t) => t.name === "Fjordlight Failure Lab")!;
-    const c = await post(`/api/teams/${team.id}/cases`, { title: `Symmetry check ${Date.now().toString(36)}`, partMarking: "NV-24R", package: "QFN-24", sampleId: "S-7", notes: "" });
+    const c = await post(`/api/teams/${team.id}/cases`, {
+      title: `Symmetry check ${Date.now().toString(36)}`,
+      partMarking: "NV-24R",
+      package: "QFN-24",
+      sampleId: "S-7",
+      notes: "",
+    });
     const d = await post(`/api/cases/${c.id}/dies`, { name: "NV-24R die S", widthUm: 2400, heightUm: 1600, notes: "" });
-    const pad = (label: string, cx: number, cy: number) => ({ kind: "pad", geometry: { type: "Polygon", coordinates: [[[cx - 40, cy - 40], [cx + 40, cy - 40], [cx + 40, cy + 40], [cx - 40, cy + 40], [cx - 40, cy - 40]]] }, properties: { label, state: "bonded" } });
+    const pad = (label: string, cx: number, cy: number) => ({
+      kind: "pad",
+      geometry: {
+        type: "Polygon",
+        coordinates: [
+          [
+            [cx - 40, cy - 40],
+            [cx + 40, cy - 40],
+            [cx + 40, cy + 40],
+            [cx - 40, cy + 40],
+            [cx - 40, cy - 40],
+          ],
+        ],
+      },
+      properties: { label, state: "bonded" },
+    });
     // VB1 at (650, 1530) and its mirror VB1S at (650, 70) across y = 800, but VB1S drawn 4 µm to the right;
     // VCC1/VEE1 mirrored exactly (positions from the demo layout).
     await post(`/api/dies/${d.id}/markup`, [
-      { kind: "symmetry_axis", geometry: { type: "LineString", coordinates: [[0, 800], [2400, 800]] }, properties: { name: "Differential axis" } },
+      {
+        kind: "symmetry_axis",
+        geometry: {
+          type: "LineString",
+          coordinates: [
+            [0, 800],
+            [2400, 800],
+          ],
+        },
+        properties: { name: "Differential axis" },
+      },
       pad("VCC1", 350, 1530),
       pad("VEE1", 350, 70),
       pad("VB1", 650, 1530),
@@ -110,7 +151,9 @@ test("the analyst reads the symmetry report of a die with an axis and one pad mo
   const report = page.getByRole("region", { name: "Symmetry report" });
   await page.getByLabel("Tolerance (µm)").fill("1");
   // By hand: two pairs, VB1–VB1S 4 µm apart (in x), VCC1–VEE1 exact; G2 on the axis; NC1 has no partner.
-  await expect(report.getByTestId("symmetry-summary")).toHaveText("2 pairs, 1 within tolerance · largest offset 4.00 µm · mean 2.00 µm · 1 on the axis · 1 without a partner");
+  await expect(report.getByTestId("symmetry-summary")).toHaveText(
+    "2 pairs, 1 within tolerance · largest offset 4.00 µm · mean 2.00 µm · 1 on the axis · 1 without a partner",
+  );
   await expect(report.getByTestId("symmetry-on-axis")).toContainText("G2");
   // The histogram's axis ends read as different numbers (0.0 … 4.0 µm here).
   await expect(report.getByRole("img", { name: /Histogram of 2 pair deviations from 0\.0 to 4\.0 µm/ })).toBeVisible();

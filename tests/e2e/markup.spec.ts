@@ -29,10 +29,16 @@ async function fitScreen(page: Page, [x, y]: readonly [number, number]) {
   return { x: box.x + (box.width - placement.widthPx * s) / 2 + ix * s, y: box.y + (box.height - placement.heightPx * s) / 2 + iy * s, box };
 }
 
-const markup = (page: Page) => page.evaluate(async () => {
-  const id = location.pathname.split("/").pop();
-  return (await (await fetch(`/api/dies/${id}/markup`)).json()) as { id: string; kind: string; properties: Record<string, unknown>; geometry: { coordinates: unknown } }[];
-});
+const markup = (page: Page) =>
+  page.evaluate(async () => {
+    const id = location.pathname.split("/").pop();
+    return (await (await fetch(`/api/dies/${id}/markup`)).json()) as {
+      id: string;
+      kind: string;
+      properties: Record<string, unknown>;
+      geometry: { coordinates: unknown };
+    }[];
+  });
 
 // Shapes this suite creates on the shared demo die; removed at the end so later suites see the die as seeded.
 let dieUrl = "";
@@ -85,7 +91,12 @@ test.describe.serial("markup on the demo die", () => {
 
     // A block around the LNA region: four corners and Enter.
     await tools.getByRole("button", { name: /^Block/ }).click();
-    for (const p of [[200, 500], [700, 500], [700, 1100], [200, 1100]] as const) {
+    for (const p of [
+      [200, 500],
+      [700, 500],
+      [700, 1100],
+      [200, 1100],
+    ] as const) {
       const s = await fitScreen(page, p);
       await page.mouse.click(s.x, s.y);
     }
@@ -177,7 +188,10 @@ test.describe.serial("markup on the demo die", () => {
     await page.keyboard.press("Escape");
 
     // A pad placed left of the die (x = −150 µm) is flagged and kept out of the numbering.
-    const padCount = async () => (await page.evaluate(async () => (await (await fetch(`/api/dies/${location.pathname.split("/").pop()}/pads`)).json()) as { rows: { id: string }[] })).rows.map((r) => r.id);
+    const padCount = async () =>
+      (
+        await page.evaluate(async () => (await (await fetch(`/api/dies/${location.pathname.split("/").pop()}/pads`)).json()) as { rows: { id: string }[] })
+      ).rows.map((r) => r.id);
     const numbered = await padCount();
     await page.keyboard.press("p");
     const off = await fitScreen(page, [-150, 800]);
@@ -237,7 +251,10 @@ test.describe.serial("markup on the demo die", () => {
     await openDie(page, "analyst");
     const centre = padByLabel(NV24R_LAYOUT, "VB3").centreUm;
     const at = async () => {
-      const m = JSON.parse((await page.getByTestId("markup-overlay").getAttribute("data-die-to-screen"))!) as [[number, number, number], [number, number, number]];
+      const m = JSON.parse((await page.getByTestId("markup-overlay").getAttribute("data-die-to-screen"))!) as [
+        [number, number, number],
+        [number, number, number],
+      ];
       const [x, y] = applyAffine(m, centre[0], centre[1]);
       const o = (await page.getByTestId("markup-overlay").boundingBox())!;
       return { x: o.x + x, y: o.y + y };
@@ -251,7 +268,10 @@ test.describe.serial("markup on the demo die", () => {
     const viewer = page.getByRole("application", { name: "Micrograph viewer" });
     const cx = fit.box.x + fit.box.width / 2;
     const cy = fit.box.y + fit.box.height / 2;
-    for (const [steps, total] of [[5, 5], [1, 6]] as const) {
+    for (const [steps, total] of [
+      [5, 5],
+      [1, 6],
+    ] as const) {
       await viewer.focus();
       for (let i = 0; i < steps; i++) await page.keyboard.press("+");
       await waitForStillView(page);
@@ -272,7 +292,8 @@ test.describe.serial("markup on the demo die", () => {
     await expect(tools.getByRole("button", { name: /^Pad/ })).toHaveCount(0);
     await expect(tools.getByRole("button", { name: /^Undo/ })).toHaveCount(0);
     const legend = page.getByRole("region", { name: "Layers and legend" });
-    for (const kind of ["Pad", "Wire bond", "Block", "Ruler"]) await expect(legend.getByRole("listitem").filter({ hasText: kind }).first()).toContainText(/[1-9]/);
+    for (const kind of ["Pad", "Wire bond", "Block", "Ruler"])
+      await expect(legend.getByRole("listitem").filter({ hasText: kind }).first()).toContainText(/[1-9]/);
     await page.getByRole("tab", { name: "Markup" }).click();
     await expect(page.getByRole("region", { name: "Markup table" }).getByRole("textbox")).toHaveCount(0);
     await expect(page.getByRole("region", { name: "Markup table" }).getByText("VCC")).toBeVisible();

@@ -18,13 +18,42 @@ async function openDemoDie(page: Page) {
 }
 
 type Shape = { kind: string; geometry: unknown; properties: Record<string, unknown> };
-const square = (cx: number, cy: number, w: number, h: number) => ({ type: "Polygon", coordinates: [[[cx - w / 2, cy - h / 2], [cx + w / 2, cy - h / 2], [cx + w / 2, cy + h / 2], [cx - w / 2, cy + h / 2], [cx - w / 2, cy - h / 2]]] });
+const square = (cx: number, cy: number, w: number, h: number) => ({
+  type: "Polygon",
+  coordinates: [
+    [
+      [cx - w / 2, cy - h / 2],
+      [cx + w / 2, cy - h / 2],
+      [cx + w / 2, cy + h / 2],
+      [cx - w / 2, cy + h / 2],
+      [cx - w / 2, cy - h / 2],
+    ],
+  ],
+});
 /** The demo die's pads and bonds as markup, a ruler and a long note (from the invented layout). */
 const demoShapes = (): Shape[] => [
-  ...NV24R_LAYOUT.pads.map((p) => ({ kind: "pad", geometry: square(p.centreUm[0], p.centreUm[1], p.sizeUm[0], p.sizeUm[1]), properties: { label: p.label, net: p.net, state: p.state } })),
+  ...NV24R_LAYOUT.pads.map((p) => ({
+    kind: "pad",
+    geometry: square(p.centreUm[0], p.centreUm[1], p.sizeUm[0], p.sizeUm[1]),
+    properties: { label: p.label, net: p.net, state: p.state },
+  })),
   ...NV24R_LAYOUT.wireBonds.map((w) => ({ kind: "wire_bond", geometry: { type: "LineString", coordinates: [w.fromUm, w.toUm] }, properties: { label: "" } })),
-  { kind: "ruler", geometry: { type: "LineString", coordinates: [[350, 1530], [2000, 1530]] }, properties: { label: "VCC1 to VCC2" } },
-  { kind: "note", geometry: { type: "Point", coordinates: [1200, 1150] }, properties: { text: "Mixer core: the two halves look identical under bright field; compare the dark-field frame before calling the layout symmetric." } },
+  {
+    kind: "ruler",
+    geometry: {
+      type: "LineString",
+      coordinates: [
+        [350, 1530],
+        [2000, 1530],
+      ],
+    },
+    properties: { label: "VCC1 to VCC2" },
+  },
+  {
+    kind: "note",
+    geometry: { type: "Point", coordinates: [1200, 1150] },
+    properties: { text: "Mixer core: the two halves look identical under bright field; compare the dark-field frame before calling the layout symmetric." },
+  },
 ];
 
 /** Adds shapes to the die the page shows; returns their ids (for removing them afterwards). */
@@ -65,12 +94,33 @@ test("a link to a thread opens it without a hydration error", async ({ page }) =
   await signInAs(page, "analyst");
   // A die of its own, so the shared demo die keeps its threads as seeded.
   const { dieId, threadId } = await page.evaluate(async () => {
-    const post = async (path: string, body: unknown) => (await (await fetch(path, { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify(body) })).json()) as { id: string };
+    const post = async (path: string, body: unknown) =>
+      (await (await fetch(path, { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify(body) })).json()) as { id: string };
     const me = (await (await fetch("/api/me")).json()) as { teams: { id: string; name: string }[] };
     const team = me.teams.find((t) => t.name === "Fjordlight Failure Lab")!;
-    const c = await post(`/api/teams/${team.id}/cases`, { title: `Deep link ${Date.now().toString(36)}`, partMarking: "NV-24R", package: "QFN-24", sampleId: "S-9", notes: "" });
+    const c = await post(`/api/teams/${team.id}/cases`, {
+      title: `Deep link ${Date.now().toString(36)}`,
+      partMarking: "NV-24R",
+      package: "QFN-24",
+      sampleId: "S-9",
+      notes: "",
+    });
     const d = await post(`/api/cases/${c.id}/dies`, { name: "NV-24R die L", widthUm: 2400, heightUm: 1600, notes: "" });
-    const t = await post(`/api/dies/${d.id}/threads`, { region: { type: "Polygon", coordinates: [[[900, 700], [1000, 700], [1000, 800], [900, 800], [900, 700]]] }, body: "Deep-link check: is the mixer core symmetric?" });
+    const t = await post(`/api/dies/${d.id}/threads`, {
+      region: {
+        type: "Polygon",
+        coordinates: [
+          [
+            [900, 700],
+            [1000, 700],
+            [1000, 800],
+            [900, 800],
+            [900, 700],
+          ],
+        ],
+      },
+      body: "Deep-link check: is the mixer core symmetric?",
+    });
     return { dieId: d.id, threadId: t.id };
   });
   const errors = collectErrors(page);
@@ -142,7 +192,9 @@ test("the keyboard help sheet is wide enough to read", async ({ page }) => {
   await expect(sheet).toBeVisible();
   expect((await sheet.boundingBox())!.width).toBeGreaterThanOrEqual(700);
   // Every description sits on a line of at least 25 em beside its keys.
-  const narrowest = await sheet.locator("dd").evaluateAll((els) => Math.min(...els.map((e) => e.getBoundingClientRect().width / parseFloat(getComputedStyle(e).fontSize))));
+  const narrowest = await sheet
+    .locator("dd")
+    .evaluateAll((els) => Math.min(...els.map((e) => e.getBoundingClientRect().width / parseFloat(getComputedStyle(e).fontSize))));
   expect(narrowest).toBeGreaterThanOrEqual(25);
   await shot(page, "help-sheet");
 });
@@ -156,7 +208,10 @@ test("a half-drawn block and an uncommitted inspector edit make a reload ask fir
   await waitForStillView(page);
   expect(await wouldAsk(page)).toBe(false);
   const box = (await page.getByRole("application", { name: "Micrograph viewer" }).boundingBox())!;
-  await page.getByRole("toolbar", { name: "Markup tools" }).getByRole("button", { name: /^Block/ }).click();
+  await page
+    .getByRole("toolbar", { name: "Markup tools" })
+    .getByRole("button", { name: /^Block/ })
+    .click();
   await page.mouse.click(box.x + box.width * 0.4, box.y + box.height * 0.4);
   await page.mouse.click(box.x + box.width * 0.5, box.y + box.height * 0.4);
   expect(await wouldAsk(page)).toBe(true);
@@ -181,7 +236,11 @@ test("the upload dialog gives examples as hints, and a new case opens at once", 
   await page.getByRole("tab", { name: "Die & micrographs" }).click();
   await page.getByRole("button", { name: "Upload micrograph" }).click();
   const dialog = page.getByRole("dialog", { name: "Upload a micrograph" });
-  for (const [field, hint] of [["Objective magnification", "e.g. 20"], ["Numerical aperture", "e.g. 0.45"], ["Camera pixel pitch (µm)", "e.g. 3.45"]] as const) {
+  for (const [field, hint] of [
+    ["Objective magnification", "e.g. 20"],
+    ["Numerical aperture", "e.g. 0.45"],
+    ["Camera pixel pitch (µm)", "e.g. 3.45"],
+  ] as const) {
     const input = dialog.getByLabel(field);
     await expect(input).toHaveValue("");
     expect(await input.getAttribute("placeholder")).toBeNull();
@@ -232,10 +291,18 @@ test("a whole-die export takes in the bond wires with a margin; the PNG and the 
   const done = await page.evaluate(async (id) => {
     const micrographs = (await (await fetch(`/api/dies/${id}/micrographs`)).json()) as { id: string; isReference: boolean }[];
     const ref = micrographs.find((m) => m.isReference)!;
-    const post = await fetch(`/api/dies/${id}/exports`, { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify({ micrographId: ref.id, widthPx: 1600, labels: true, threads: true }) });
+    const post = await fetch(`/api/dies/${id}/exports`, {
+      method: "POST",
+      headers: { "content-type": "application/json" },
+      body: JSON.stringify({ micrographId: ref.id, widthPx: 1600, labels: true, threads: true }),
+    });
     const created = (await post.json()) as { id: string };
     for (let i = 0; i < 120; i++) {
-      const s = (await (await fetch(`/api/exports/${created.id}`)).json()) as { status: string; fileUrl: string | null; result: { umPerPx: number; width: number; height: number } | null };
+      const s = (await (await fetch(`/api/exports/${created.id}`)).json()) as {
+        status: string;
+        fileUrl: string | null;
+        result: { umPerPx: number; width: number; height: number } | null;
+      };
       if (s.status === "done" || s.status === "failed") return s;
       await new Promise((r) => setTimeout(r, 500));
     }

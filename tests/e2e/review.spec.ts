@@ -36,7 +36,9 @@ async function fitScreen(page: Page, [x, y]: readonly [number, number]) {
 async function readMail(owner: Page, subject: RegExp, to: string): Promise<string> {
   await expect(async () => {
     await owner.goto("/mailbox");
-    await expect(owner.getByRole("list", { name: "Messages" }).getByRole("button").filter({ hasText: subject }).filter({ hasText: to }).first()).toBeVisible({ timeout: 1000 });
+    await expect(owner.getByRole("list", { name: "Messages" }).getByRole("button").filter({ hasText: subject }).filter({ hasText: to }).first()).toBeVisible({
+      timeout: 1000,
+    });
   }).toPass({ timeout: 30_000 });
   await owner.getByRole("list", { name: "Messages" }).getByRole("button").filter({ hasText: subject }).filter({ hasText: to }).first().click();
   const message = owner.getByRole("region", { name: "Message" });
@@ -54,8 +56,24 @@ test.describe.serial("review of the demo die", () => {
     const [cx, cy] = PAD.centreUm;
     const [w, h] = PAD.sizeUm;
     const made = await analyst.evaluate(
-      async ({ dieId, ring }) => (await fetch(`/api/dies/${dieId}/markup`, { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify({ kind: "pad", geometry: { type: "Polygon", coordinates: [ring] }, properties: { label: "VB3" } }) })).status,
-      { dieId, ring: [[cx - w / 2, cy - h / 2], [cx + w / 2, cy - h / 2], [cx + w / 2, cy + h / 2], [cx - w / 2, cy + h / 2], [cx - w / 2, cy - h / 2]] },
+      async ({ dieId, ring }) =>
+        (
+          await fetch(`/api/dies/${dieId}/markup`, {
+            method: "POST",
+            headers: { "content-type": "application/json" },
+            body: JSON.stringify({ kind: "pad", geometry: { type: "Polygon", coordinates: [ring] }, properties: { label: "VB3" } }),
+          })
+        ).status,
+      {
+        dieId,
+        ring: [
+          [cx - w / 2, cy - h / 2],
+          [cx + w / 2, cy - h / 2],
+          [cx + w / 2, cy + h / 2],
+          [cx - w / 2, cy + h / 2],
+          [cx - w / 2, cy - h / 2],
+        ],
+      },
     );
     expect(made).toBe(201);
 

@@ -97,7 +97,15 @@ describe("invitations to existing users", () => {
     expect((await teamsOf(outsider)).some((t) => t.id === teamId)).toBe(false);
     const mine = await outsider.get<Mine>("/api/me/invitations");
     expect(mine.status).toBe(200);
-    expect(mine.body.items).toEqual([expect.objectContaining({ id, teamId, teamName: "Fjordlight Failure Lab", role: "reviewer", invitedBy: expect.objectContaining({ name: expect.any(String) }) })]);
+    expect(mine.body.items).toEqual([
+      expect.objectContaining({
+        id,
+        teamId,
+        teamName: "Fjordlight Failure Lab",
+        role: "reviewer",
+        invitedBy: expect.objectContaining({ name: expect.any(String) }),
+      }),
+    ]);
     // Nobody else can see or answer it (the analyst signs in afresh: an earlier test signed them out).
     const analyst = await signedIn(DEMO_EMAILS.analyst);
     expect((await analyst.get<Mine>("/api/me/invitations")).body.items.some((i) => i.id === id)).toBe(false);

@@ -9,7 +9,19 @@ import { padPairs, uploadDemoMicrograph, type UploadedDemo } from "../support/de
 // The demo die rendered twice (the seed's bright-field and dark-field settings at 3000 px
 // wide): the renderer's placement is the ground truth (lib/demo-die/placement.ts), so control
 // points are the layout's pad centres where the renderer drew them, paired with their die µm.
-type Refined = { transform: number[][]; rmsBeforeUm: number; rmsAfterUm: number; peak: number; minMatchStrength: number; improved: boolean | null; strongEnough: boolean; proposed: boolean; reason: string; againstId: string; error?: string };
+type Refined = {
+  transform: number[][];
+  rmsBeforeUm: number;
+  rmsAfterUm: number;
+  peak: number;
+  minMatchStrength: number;
+  improved: boolean | null;
+  strongEnough: boolean;
+  proposed: boolean;
+  reason: string;
+  againstId: string;
+  error?: string;
+};
 type Alignment = { transform: number[][]; residualsUm: number[]; rmsUm: number; pairs?: unknown[]; model?: string | null; mirrored?: boolean };
 let world: Awaited<ReturnType<typeof demoWorld>>;
 let dieId: string;
@@ -24,7 +36,8 @@ beforeAll(async () => {
   dark = await uploadDemoMicrograph(world.clients.analyst, dieId, "dark_field");
 }, 120_000);
 
-const put = (who: keyof typeof world.clients, id: string, body: unknown) => world.clients[who].request<Alignment & { error?: string }>("PUT", `/api/micrographs/${id}/alignment`, body);
+const put = (who: keyof typeof world.clients, id: string, body: unknown) =>
+  world.clients[who].request<Alignment & { error?: string }>("PUT", `/api/micrographs/${id}/alignment`, body);
 const stored = async () => (await world.clients.viewer.get<Alignment>(`/api/micrographs/${dark.id}/alignment`)).body;
 
 describe("aligning the demo dark-field micrograph", () => {
@@ -48,21 +61,33 @@ describe("aligning the demo dark-field micrograph", () => {
       expect(Math.hypot(u - dieUm[0], v - dieUm[1])).toBeLessThan(2);
     }
     const got = await stored();
-    expect(got).toMatchObject({ model: "similarity", mirrored: false, transform: res.body.transform, residualsUm: res.body.residualsUm, rmsUm: res.body.rmsUm });
+    expect(got).toMatchObject({
+      model: "similarity",
+      mirrored: false,
+      transform: res.body.transform,
+      residualsUm: res.body.residualsUm,
+      rmsUm: res.body.rmsUm,
+    });
     expect(got.pairs).toEqual(pairs);
     const dto = (await world.clients.viewer.get<{ transform: number[][] }>(`/api/micrographs/${dark.id}`)).body;
     expect(dto.transform).toEqual(res.body.transform);
   });
 
   it("fits an affine model to all pads within 1 µm RMS", async () => {
-    const res = await world.clients.analyst.request<Alignment>("POST", `/api/micrographs/${dark.id}/alignment/preview`, { model: "affine", pairs: padPairs(dark.render) });
+    const res = await world.clients.analyst.request<Alignment>("POST", `/api/micrographs/${dark.id}/alignment/preview`, {
+      model: "affine",
+      pairs: padPairs(dark.render),
+    });
     expect(res.status).toBe(200);
     expect(res.body.rmsUm).toBeLessThan(1);
   });
 
   it("answers a dry run without storing anything", async () => {
     const before = await stored();
-    const res = await world.clients.analyst.request<Alignment>("POST", `/api/micrographs/${dark.id}/alignment/preview`, { model: "similarity", pairs: padPairs(dark.render, ["G1", "G4", "VB1"]) });
+    const res = await world.clients.analyst.request<Alignment>("POST", `/api/micrographs/${dark.id}/alignment/preview`, {
+      model: "similarity",
+      pairs: padPairs(dark.render, ["G1", "G4", "VB1"]),
+    });
     expect(res.status).toBe(200);
     expect(res.body.residualsUm).toHaveLength(3);
     expect(await stored()).toEqual(before);
@@ -71,12 +96,15 @@ describe("aligning the demo dark-field micrograph", () => {
   it("refines a rough transform's translation by phase correlation", async () => {
     const truth = dark.render.imageToDie;
     // A rough alignment 12 µm right and 9 µm down of the truth.
-    const rough = [[truth[0][0], truth[0][1], truth[0][2] + 12], [truth[1][0], truth[1][1], truth[1][2] - 9]];
-    const res = await world.clients.analyst.request<Refined>(
-      "POST",
-      `/api/micrographs/${dark.id}/alignment/refine`,
-      { transform: rough, pairs: padPairs(dark.render), againstId: bright.id },
-    );
+    const rough = [
+      [truth[0][0], truth[0][1], truth[0][2] + 12],
+      [truth[1][0], truth[1][1], truth[1][2] - 9],
+    ];
+    const res = await world.clients.analyst.request<Refined>("POST", `/api/micrographs/${dark.id}/alignment/refine`, {
+      transform: rough,
+      pairs: padPairs(dark.render),
+      againstId: bright.id,
+    });
     expect(res.status, res.body.error).toBe(200);
     expect(res.body.rmsBeforeUm).toBeCloseTo(15, 6); // √(12² + 9²), by hand
     expect(res.body.rmsAfterUm).toBeLessThan(2);
@@ -102,9 +130,16 @@ describe("a refinement that does not improve the fit", () => {
     // correlation moves the transform back to the true picture, so on these points it is
     // worse by √(8² + 6²) = 10 µm (by hand): no improvement of the fit.
     const pairs = padPairs(dark.render).map((p) => ({ ...p, dieUm: [p.dieUm[0] + 8, p.dieUm[1] - 6] }));
-    const rough = [[truth[0][0], truth[0][1], truth[0][2] + 8], [truth[1][0], truth[1][1], truth[1][2] - 6]];
+    const rough = [
+      [truth[0][0], truth[0][1], truth[0][2] + 8],
+      [truth[1][0], truth[1][1], truth[1][2] - 6],
+    ];
     const before = await stored();
-    const res = await world.clients.analyst.request<Refined>("POST", `/api/micrographs/${dark.id}/alignment/refine`, { transform: rough, pairs, againstId: bright.id });
+    const res = await world.clients.analyst.request<Refined>("POST", `/api/micrographs/${dark.id}/alignment/refine`, {
+      transform: rough,
+      pairs,
+      againstId: bright.id,
+    });
     expect(res.status, res.body.error).toBe(200);
     expect(res.body.rmsBeforeUm).toBeLessThan(1e-6);
     expect(res.body.rmsAfterUm).toBeGreaterThan(8);
@@ -119,7 +154,9 @@ describe("who may align", () => {
     const body = { model: "similarity", pairs: padPairs(dark.render, FOUR) };
     for (const who of EVERYONE) {
       expect((await put(who, dark.id, body)).status, who).toBe(expectedStatus(who, "edit", 200));
-      expect((await world.clients[who].request("POST", `/api/micrographs/${dark.id}/alignment/preview`, body)).status, who).toBe(expectedStatus(who, "edit", 200));
+      expect((await world.clients[who].request("POST", `/api/micrographs/${dark.id}/alignment/preview`, body)).status, who).toBe(
+        expectedStatus(who, "edit", 200),
+      );
       expect((await world.clients[who].request("POST", `/api/micrographs/${dark.id}/alignment/refine`, {})).status, who).toBe(expectedStatus(who, "edit", 200));
       expect((await world.clients[who].get(`/api/micrographs/${dark.id}/alignment`)).status, who).toBe(expectedStatus(who, "read", 200));
     }
@@ -133,13 +170,37 @@ describe("bad alignment input", () => {
     { name: "one pair for a similarity", body: () => ({ model: "similarity", pairs: good().slice(0, 1) }), message: /at least 2 control points/ },
     { name: "two pairs for an affine", body: () => ({ model: "affine", pairs: good().slice(0, 2) }), message: /at least 3 control points/ },
     { name: "no pairs", body: () => ({ model: "similarity", pairs: [] }), message: /at least 2/ },
-    { name: "a null (NaN in JSON) coordinate", body: () => ({ model: "similarity", pairs: [...good(), { imagePx: [null, 5], dieUm: [1, 1] }] }), message: /pairs/ },
+    {
+      name: "a null (NaN in JSON) coordinate",
+      body: () => ({ model: "similarity", pairs: [...good(), { imagePx: [null, 5], dieUm: [1, 1] }] }),
+      message: /pairs/,
+    },
     { name: "a string coordinate", body: () => ({ model: "similarity", pairs: [...good(), { imagePx: ["NaN", 5], dieUm: [1, 1] }] }), message: /numbers/ },
-    { name: "duplicate image points", body: () => ({ model: "similarity", pairs: [...good(), { imagePx: good()[0].imagePx, dieUm: [5, 5] }] }), message: /1 and 5 are at the same image position/ },
-    { name: "duplicate die points", body: () => ({ model: "affine", pairs: [...good(), { imagePx: [100, 100], dieUm: good()[1].dieUm }] }), message: /same die position/ },
-    { name: "a point right of the image", body: () => ({ model: "similarity", pairs: [...good(), { imagePx: [dark.width + 10, 50], dieUm: [5, 5] }] }), message: /control point 5 .* outside the micrograph/i },
-    { name: "a point above the image", body: () => ({ model: "similarity", pairs: [{ imagePx: [10, -3], dieUm: [5, 5] }, ...good()] }), message: /control point 1 .* outside/i },
-    { name: "collinear points for an affine", body: () => ({ model: "affine", pairs: padPairs(dark.render, ["G1", "RFIN_P", "G2", "G3"]) }), message: /lie on one line/ },
+    {
+      name: "duplicate image points",
+      body: () => ({ model: "similarity", pairs: [...good(), { imagePx: good()[0].imagePx, dieUm: [5, 5] }] }),
+      message: /1 and 5 are at the same image position/,
+    },
+    {
+      name: "duplicate die points",
+      body: () => ({ model: "affine", pairs: [...good(), { imagePx: [100, 100], dieUm: good()[1].dieUm }] }),
+      message: /same die position/,
+    },
+    {
+      name: "a point right of the image",
+      body: () => ({ model: "similarity", pairs: [...good(), { imagePx: [dark.width + 10, 50], dieUm: [5, 5] }] }),
+      message: /control point 5 .* outside the micrograph/i,
+    },
+    {
+      name: "a point above the image",
+      body: () => ({ model: "similarity", pairs: [{ imagePx: [10, -3], dieUm: [5, 5] }, ...good()] }),
+      message: /control point 1 .* outside/i,
+    },
+    {
+      name: "collinear points for an affine",
+      body: () => ({ model: "affine", pairs: padPairs(dark.render, ["G1", "RFIN_P", "G2", "G3"]) }),
+      message: /lie on one line/,
+    },
     { name: "a reflection when not mirrored", body: () => ({ model: "similarity", pairs: mirroredPairs() }), message: /fit a mirrored photo/ },
     { name: "an affine reflection when not mirrored", body: () => ({ model: "affine", pairs: mirroredPairs() }), message: /fit a mirrored photo/ },
     { name: "an ordinary photo marked mirrored", body: () => ({ model: "similarity", mirrored: true, pairs: good() }), message: /not mirrored/ },
@@ -151,7 +212,11 @@ describe("bad alignment input", () => {
     it(`answers 400 for ${c.name} and changes nothing`, async () => {
       const before = await stored();
       for (const path of ["alignment", "alignment/preview"]) {
-        const res = await world.clients.analyst.request<{ error: string }>(path === "alignment" ? "PUT" : "POST", `/api/micrographs/${dark.id}/${path}`, c.body());
+        const res = await world.clients.analyst.request<{ error: string }>(
+          path === "alignment" ? "PUT" : "POST",
+          `/api/micrographs/${dark.id}/${path}`,
+          c.body(),
+        );
         expect(res.status, path).toBe(400);
         expect(res.body.error).toMatch(c.message);
       }
@@ -160,13 +225,21 @@ describe("bad alignment input", () => {
   }
 
   it("answers 400 for a body that is not JSON, such as a bare NaN", async () => {
-    const res = await world.clients.analyst.request<{ error: string }>("PUT", `/api/micrographs/${dark.id}/alignment`, '{"model":"similarity","pairs":[{"imagePx":[NaN,1],"dieUm":[1,1]}]}');
+    const res = await world.clients.analyst.request<{ error: string }>(
+      "PUT",
+      `/api/micrographs/${dark.id}/alignment`,
+      '{"model":"similarity","pairs":[{"imagePx":[NaN,1],"dieUm":[1,1]}]}',
+    );
     expect(res.status).toBe(400);
     expect(res.body.error).toMatch(/not valid JSON/);
   });
 
   it("accepts a mirrored photo when told it is mirrored", async () => {
-    const res = await world.clients.analyst.request<Alignment>("POST", `/api/micrographs/${dark.id}/alignment/preview`, { model: "similarity", mirrored: true, pairs: mirroredPairs() });
+    const res = await world.clients.analyst.request<Alignment>("POST", `/api/micrographs/${dark.id}/alignment/preview`, {
+      model: "similarity",
+      mirrored: true,
+      pairs: mirroredPairs(),
+    });
     expect(res.status).toBe(200);
     expect(determinant(res.body.transform as [[number, number, number], [number, number, number]])).toBeGreaterThan(0);
   });
@@ -175,7 +248,12 @@ describe("bad alignment input", () => {
 describe("exporting the aligned dark field", () => {
   type ExportDto = { id: string; status: string; error: string | null; result: { width: number; height: number } | null };
   async function exported(micrographId: string): Promise<{ data: Buffer; width: number; height: number }> {
-    const post = await world.clients.analyst.request<ExportDto>("POST", `/api/dies/${dieId}/exports`, { micrographId, widthPx: 700, kinds: [], region: { x: 0, y: 0, width: NV24R_LAYOUT.dieSizeUm[0], height: NV24R_LAYOUT.dieSizeUm[1] } });
+    const post = await world.clients.analyst.request<ExportDto>("POST", `/api/dies/${dieId}/exports`, {
+      micrographId,
+      widthPx: 700,
+      kinds: [],
+      region: { x: 0, y: 0, width: NV24R_LAYOUT.dieSizeUm[0], height: NV24R_LAYOUT.dieSizeUm[1] },
+    });
     expect(post.status).toBe(202);
     const deadline = Date.now() + 60_000;
     let dto = post.body;
@@ -188,7 +266,11 @@ describe("exporting the aligned dark field", () => {
     const png = Buffer.from(await (await fetch(`${inject("baseUrl")}/api/exports/${post.body.id}/file`, { headers: { cookie } })).arrayBuffer());
     // The image area only (the footer below it differs between the two).
     const imageRows = Math.round((700 * NV24R_LAYOUT.dieSizeUm[1]) / NV24R_LAYOUT.dieSizeUm[0]);
-    const { data, info } = await sharp(png).extract({ left: 0, top: 0, width: dto.result!.width, height: imageRows }).greyscale().raw().toBuffer({ resolveWithObject: true });
+    const { data, info } = await sharp(png)
+      .extract({ left: 0, top: 0, width: dto.result!.width, height: imageRows })
+      .greyscale()
+      .raw()
+      .toBuffer({ resolveWithObject: true });
     return { data, width: info.width, height: info.height };
   }
 
@@ -205,12 +287,22 @@ describe("exporting the aligned dark field", () => {
 
   /** Pearson correlation of two edge maps with `b` shifted by (dx, dy), over their common interior. */
   function correlation(a: Float64Array, b: Float64Array, w: number, h: number, dx: number, dy: number): number {
-    let sa = 0, sb = 0, saa = 0, sbb = 0, sab = 0, n = 0;
+    let sa = 0,
+      sb = 0,
+      saa = 0,
+      sbb = 0,
+      sab = 0,
+      n = 0;
     for (let y = 8; y < h - 8; y++)
       for (let x = 8; x < w - 8; x++) {
         const p = a[y * w + x];
         const q = b[(y + dy) * w + x + dx];
-        sa += p; sb += q; saa += p * p; sbb += q * q; sab += p * q; n++;
+        sa += p;
+        sb += q;
+        saa += p * p;
+        sbb += q * q;
+        sab += p * q;
+        n++;
       }
     return (sab - (sa * sb) / n) / Math.sqrt((saa - (sa * sa) / n) * (sbb - (sb * sb) / n));
   }

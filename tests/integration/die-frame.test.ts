@@ -8,16 +8,35 @@ beforeAll(async () => {
   world = await demoWorld();
 });
 
-const rect = (x0: number, y0: number, x1: number, y1: number) => ({ type: "Polygon", coordinates: [[[x0, y0], [x1, y0], [x1, y1], [x0, y1], [x0, y0]]] });
+const rect = (x0: number, y0: number, x1: number, y1: number) => ({
+  type: "Polygon",
+  coordinates: [
+    [
+      [x0, y0],
+      [x1, y0],
+      [x1, y1],
+      [x0, y1],
+      [x0, y0],
+    ],
+  ],
+});
 
 describe("die outline", () => {
   it("moves the origin to its lower-left corner and sets the die size", async () => {
     const owner = world.clients.owner;
     const c = await owner.request<{ id: string }>("POST", `/api/teams/${world.teamId}/cases`, { title: "Frame case" });
     const d = await owner.request<{ id: string }>("POST", `/api/cases/${c.body.id}/dies`, { name: "unsized die" });
-    const pad = await owner.request<{ id: string }>("POST", `/api/dies/${d.body.id}/markup`, { kind: "pad", geometry: rect(500, 500, 580, 580), properties: { label: "A", net: "", state: "bonded" } });
+    const pad = await owner.request<{ id: string }>("POST", `/api/dies/${d.body.id}/markup`, {
+      kind: "pad",
+      geometry: rect(500, 500, 580, 580),
+      properties: { label: "A", net: "", state: "bonded" },
+    });
     expect(pad.status).toBe(201);
-    const outline = await owner.request<{ geometry: { coordinates: number[][][] }; version: number }>("POST", `/api/dies/${d.body.id}/markup`, { kind: "die_outline", geometry: rect(300, 250, 2700, 1850), properties: {} });
+    const outline = await owner.request<{ geometry: { coordinates: number[][][] }; version: number }>("POST", `/api/dies/${d.body.id}/markup`, {
+      kind: "die_outline",
+      geometry: rect(300, 250, 2700, 1850),
+      properties: {},
+    });
     expect(outline.status).toBe(201);
     // Worked by hand: offset (300, 250); the outline becomes (0,0)–(2400,1600).
     expect(outline.body.geometry.coordinates[0][0]).toEqual([0, 0]);
@@ -38,7 +57,22 @@ describe("die outline", () => {
     const owner = world.clients.owner;
     const c = await owner.request<{ id: string }>("POST", `/api/teams/${world.teamId}/cases`, { title: "Frame case 2" });
     const d = await owner.request<{ id: string }>("POST", `/api/cases/${c.body.id}/dies`, { name: "die" });
-    const res = await owner.request<{ error: string }>("POST", `/api/dies/${d.body.id}/markup`, { kind: "die_outline", geometry: { type: "Polygon", coordinates: [[[0, 0], [100, 0], [120, 90], [0, 100], [0, 0]]] }, properties: {} });
+    const res = await owner.request<{ error: string }>("POST", `/api/dies/${d.body.id}/markup`, {
+      kind: "die_outline",
+      geometry: {
+        type: "Polygon",
+        coordinates: [
+          [
+            [0, 0],
+            [100, 0],
+            [120, 90],
+            [0, 100],
+            [0, 0],
+          ],
+        ],
+      },
+      properties: {},
+    });
     expect(res.status).toBe(400);
     expect(res.body.error).toMatch(/rectangle/);
     expect((await owner.get<unknown[]>(`/api/dies/${d.body.id}/markup`)).body).toEqual([]);
@@ -49,15 +83,28 @@ describe("die outline", () => {
     const c = await owner.request<{ id: string }>("POST", `/api/teams/${world.teamId}/cases`, { title: "Frame undo case" });
     const d = await owner.request<{ id: string }>("POST", `/api/cases/${c.body.id}/dies`, { name: "NV-24R", widthUm: 2400, heightUm: 1600 });
     const dieId = d.body.id;
-    const earlier = await owner.request<{ id: string }>("POST", `/api/dies/${dieId}/markup`, { kind: "die_outline", geometry: rect(0, 0, 2400, 1600), properties: {} });
-    const pad = await owner.request<{ id: string }>("POST", `/api/dies/${dieId}/markup`, { kind: "pad", geometry: rect(500, 500, 580, 580), properties: { label: "VCC", net: "", state: "unbonded" } });
+    const earlier = await owner.request<{ id: string }>("POST", `/api/dies/${dieId}/markup`, {
+      kind: "die_outline",
+      geometry: rect(0, 0, 2400, 1600),
+      properties: {},
+    });
+    const pad = await owner.request<{ id: string }>("POST", `/api/dies/${dieId}/markup`, {
+      kind: "pad",
+      geometry: rect(500, 500, 580, 580),
+      properties: { label: "VCC", net: "", state: "unbonded" },
+    });
     // The fault seen: an outline drawn a few µm inside the edge re-framed the die for good.
     await owner.request("POST", `/api/dies/${dieId}/markup`, { kind: "die_outline", geometry: rect(3, 4, 2397, 1597), properties: {} });
     await owner.request("DELETE", `/api/markup/${earlier.body.id}`);
     const framed = await owner.get<{ widthUm: number; heightUm: number }>(`/api/dies/${dieId}`);
     // Worked by hand: 2397 − 3 = 2394, 1597 − 4 = 1593; the pad moved by (−3, −4).
     expect(framed.body).toMatchObject({ widthUm: 2394, heightUm: 1593 });
-    const restore = await owner.request<{ moved: number }>("POST", `/api/dies/${dieId}/frame/restore`, { originUm: [-3, -4], widthUm: 2400, heightUm: 1600, outline: rect(0, 0, 2400, 1600) });
+    const restore = await owner.request<{ moved: number }>("POST", `/api/dies/${dieId}/frame/restore`, {
+      originUm: [-3, -4],
+      widthUm: 2400,
+      heightUm: 1600,
+      outline: rect(0, 0, 2400, 1600),
+    });
     expect(restore.status).toBe(200);
     const die = await owner.get<{ widthUm: number; heightUm: number }>(`/api/dies/${dieId}`);
     expect(die.body).toMatchObject({ widthUm: 2400, heightUm: 1600 });
@@ -72,12 +119,37 @@ describe("die outline", () => {
     const c = await owner.request<{ id: string }>("POST", `/api/teams/${world.teamId}/cases`, { title: "Frame undo case 2" });
     const d = await owner.request<{ id: string }>("POST", `/api/cases/${c.body.id}/dies`, { name: "die", widthUm: 2400, heightUm: 1600 });
     const dieId = d.body.id;
-    const pad = await owner.request<{ id: string }>("POST", `/api/dies/${dieId}/markup`, { kind: "pad", geometry: rect(500, 500, 580, 580), properties: { label: "A", net: "", state: "unbonded" } });
+    const pad = await owner.request<{ id: string }>("POST", `/api/dies/${dieId}/markup`, {
+      kind: "pad",
+      geometry: rect(500, 500, 580, 580),
+      properties: { label: "A", net: "", state: "unbonded" },
+    });
     await owner.request("POST", `/api/dies/${dieId}/markup`, { kind: "die_outline", geometry: rect(10, 20, 2390, 1580), properties: {} });
-    const bad = await owner.request<{ error: string }>("POST", `/api/dies/${dieId}/frame/restore`, { originUm: [-10, -20], widthUm: 2400, heightUm: 1600, outline: { type: "Polygon", coordinates: [[[0, 0], [100, 0], [120, 90], [0, 100], [0, 0]]] } });
+    const bad = await owner.request<{ error: string }>("POST", `/api/dies/${dieId}/frame/restore`, {
+      originUm: [-10, -20],
+      widthUm: 2400,
+      heightUm: 1600,
+      outline: {
+        type: "Polygon",
+        coordinates: [
+          [
+            [0, 0],
+            [100, 0],
+            [120, 90],
+            [0, 100],
+            [0, 0],
+          ],
+        ],
+      },
+    });
     expect(bad.status).toBe(400);
     expect(bad.body.error).toMatch(/rectangle/);
-    const viewer = await world.clients.viewer.request("POST", `/api/dies/${dieId}/frame/restore`, { originUm: [-10, -20], widthUm: 2400, heightUm: 1600, outline: null });
+    const viewer = await world.clients.viewer.request("POST", `/api/dies/${dieId}/frame/restore`, {
+      originUm: [-10, -20],
+      widthUm: 2400,
+      heightUm: 1600,
+      outline: null,
+    });
     expect(viewer.status).toBe(403);
     expect((await owner.get<{ widthUm: number }>(`/api/dies/${dieId}`)).body.widthUm).toBe(2380);
     const ok = await owner.request("POST", `/api/dies/${dieId}/frame/restore`, { originUm: [-10, -20], widthUm: 2400, heightUm: 1600, outline: null });

@@ -25,7 +25,9 @@ describe("GET /api/estimates/{kind}", () => {
 
   it("answers Hennessy & Patterson's 270 dies for a 1.5 cm die on a 300 mm wafer", async () => {
     // Hennessy & Patterson, 5th ed., §1.6 [pub].
-    const res = await world.clients.analyst.get<Est>("/api/estimates/wafer?waferDiameterMm=300&dieWidthMm=15&dieHeightMm=15&defectDensityPerCm2=0.031&model=poisson");
+    const res = await world.clients.analyst.get<Est>(
+      "/api/estimates/wafer?waferDiameterMm=300&dieWidthMm=15&dieHeightMm=15&defectDensityPerCm2=0.031&model=poisson",
+    );
     expect(res.status).toBe(200);
     expect(res.body.grossDies).toBe(270);
   });

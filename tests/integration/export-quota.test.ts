@@ -20,11 +20,16 @@ type ExportDto = { id: string; status: string; error?: string };
 beforeAll(async () => {
   server = await startServer({ env: { KERFLINE_SEED: "demo-records", KERFLINE_EXPORTS_PENDING_PER_DIE: "12", KERFLINE_EXPORT_TTL_HOURS: String(TTL_HOURS) } });
   clients = await demoClients(server.url);
-  const teamId = (await clients.owner.get<{ teams: { id: string; name: string }[] }>("/api/me")).body.teams.find((t) => t.name === "Fjordlight Failure Lab")!.id;
+  const teamId = (await clients.owner.get<{ teams: { id: string; name: string }[] }>("/api/me")).body.teams.find(
+    (t) => t.name === "Fjordlight Failure Lab",
+  )!.id;
   const c = await clients.owner.request<{ id: string }>("POST", `/api/teams/${teamId}/cases`, { title: "Quota case" });
   const d = await clients.owner.request<{ id: string }>("POST", `/api/cases/${c.body.id}/dies`, { name: "quota die", widthUm: 700, heightUm: 500 });
   dieId = d.body.id;
-  const up = await clients.analyst.upload<{ id: string }>(`/api/dies/${dieId}/micrographs`, uploadForm(await makeJpeg(700, 500), "die.jpg", { scaleUmPerPx: "1" }));
+  const up = await clients.analyst.upload<{ id: string }>(
+    `/api/dies/${dieId}/micrographs`,
+    uploadForm(await makeJpeg(700, 500), "die.jpg", { scaleUmPerPx: "1" }),
+  );
   micrographId = up.body.id;
   await waitForStatus(clients.analyst, micrographId, "ready");
 }, 180_000);

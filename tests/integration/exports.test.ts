@@ -26,21 +26,49 @@ async function rampPng(): Promise<Buffer> {
       raw[i + 1] = Math.round((y / H) * 120);
       raw[i + 2] = 60;
     }
-  return sharp(raw, { raw: { width: W, height: H, channels: 3 } }).png().toBuffer();
+  return sharp(raw, { raw: { width: W, height: H, channels: 3 } })
+    .png()
+    .toBuffer();
 }
 
-type ExportDto = { id: string; status: string; progress: number; error: string | null; warnings: string[]; fileName: string | null; result: { width: number; height: number; umPerPx: number; scaleBar: { label: string; lengthUm: number; x: number; y: number } } | null };
+type ExportDto = {
+  id: string;
+  status: string;
+  progress: number;
+  error: string | null;
+  warnings: string[];
+  fileName: string | null;
+  result: { width: number; height: number; umPerPx: number; scaleBar: { label: string; lengthUm: number; x: number; y: number } } | null;
+};
 
 beforeAll(async () => {
   world = await demoWorld();
   ({ dieId } = await freshCase(world.clients.owner, world.teamId));
   source = await rampPng();
   // 1 µm/px: the reference's transform is then [[1, 0, 0], [0, -1, 800]] (image top-left at die y = 800).
-  const up = await world.clients.analyst.upload<{ id: string }>(`/api/dies/${dieId}/micrographs`, uploadForm(source, "ramp.png", { label: "ramp bright field", scaleUmPerPx: "1" }));
+  const up = await world.clients.analyst.upload<{ id: string }>(
+    `/api/dies/${dieId}/micrographs`,
+    uploadForm(source, "ramp.png", { label: "ramp bright field", scaleUmPerPx: "1" }),
+  );
   expect(up.status).toBe(202);
   micrographId = up.body.id;
   await waitForStatus(world.clients.analyst, micrographId, "ready");
-  const pad = { kind: "pad", geometry: { type: "Polygon", coordinates: [[[300, 200], [400, 200], [400, 300], [300, 300], [300, 200]]] }, properties: { label: "", state: "unbonded" } };
+  const pad = {
+    kind: "pad",
+    geometry: {
+      type: "Polygon",
+      coordinates: [
+        [
+          [300, 200],
+          [400, 200],
+          [400, 300],
+          [300, 300],
+          [300, 200],
+        ],
+      ],
+    },
+    properties: { label: "", state: "unbonded" },
+  };
   expect((await world.clients.analyst.request("POST", `/api/dies/${dieId}/markup`, pad)).status).toBe(201);
 });
 
@@ -136,8 +164,18 @@ describe("annotated PNG export", () => {
 });
 
 describe("export preview", () => {
-  type Preview = { width: number; height: number; umPerPx: number; warnings: string[]; png: string; previewWidth: number; previewHeight: number; error?: string };
-  const preview = (who: Who, body: Record<string, unknown>, die = dieId) => world.clients[who].request<Preview>("POST", `/api/dies/${die}/exports/preview`, { micrographId, ...body });
+  type Preview = {
+    width: number;
+    height: number;
+    umPerPx: number;
+    warnings: string[];
+    png: string;
+    previewWidth: number;
+    previewHeight: number;
+    error?: string;
+  };
+  const preview = (who: Who, body: Record<string, unknown>, die = dieId) =>
+    world.clients[who].request<Preview>("POST", `/api/dies/${die}/exports/preview`, { micrographId, ...body });
 
   it("states the final size and scale and returns a small PNG of the same region, storing nothing", async () => {
     const before = (await world.clients.viewer.get<unknown[]>(`/api/dies/${dieId}/exports`)).body.length;
@@ -178,7 +216,10 @@ describe("export preview", () => {
 describe("an export whose micrograph can no longer be read", () => {
   it("ends failed with a reason, serves no file and leaves nothing in the exports folder", async () => {
     const other = await freshCase(world.clients.owner, world.teamId, "Broken source");
-    const up = await world.clients.analyst.upload<{ id: string }>(`/api/dies/${other.dieId}/micrographs`, uploadForm(source, "ramp.png", { label: "to be damaged", scaleUmPerPx: "1" }));
+    const up = await world.clients.analyst.upload<{ id: string }>(
+      `/api/dies/${other.dieId}/micrographs`,
+      uploadForm(source, "ramp.png", { label: "to be damaged", scaleUmPerPx: "1" }),
+    );
     expect(up.status).toBe(202);
     await waitForStatus(world.clients.analyst, up.body.id, "ready");
     // The stored original is damaged on disk after tiling (a failing disk, a careless hand).

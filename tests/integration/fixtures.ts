@@ -19,7 +19,13 @@ export async function demoWorld() {
 
 /** A new case (and die) made by the owner, so each test mutates its own rows. */
 export async function freshCase(owner: ApiClient, teamId: string, title = `Test case ${Math.random().toString(36).slice(2, 8)}`) {
-  const c = await owner.request<{ id: string }>("POST", `/api/teams/${teamId}/cases`, { title, partMarking: "TP-1", package: "DIP-8", sampleId: "S-1", notes: "" });
+  const c = await owner.request<{ id: string }>("POST", `/api/teams/${teamId}/cases`, {
+    title,
+    partMarking: "TP-1",
+    package: "DIP-8",
+    sampleId: "S-1",
+    notes: "",
+  });
   if (c.status !== 201) throw new Error(`could not create case: ${JSON.stringify(c.body)}`);
   const d = await owner.request<{ id: string }>("POST", `/api/cases/${c.body.id}/dies`, { name: "die 1", widthUm: 1000, heightUm: 800, notes: "" });
   if (d.status !== 201) throw new Error(`could not create die: ${JSON.stringify(d.body)}`);

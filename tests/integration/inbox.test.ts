@@ -18,7 +18,10 @@ const inboxOf = async (who: "owner" | "analyst" | "reviewer" | "viewer" | "outsi
 describe("GET /api/me/inbox", () => {
   it("lists a mention for the mentioned user alone, linking to the exact thread, and the mail still goes out", async () => {
     const { dieId } = await freshCase(world.clients.owner, world.teamId);
-    const t = await world.clients.reviewer.request<{ id: string }>("POST", `/api/dies/${dieId}/threads`, { region: square(50, 50), body: "@Demo Analyst is this the bond pad for VDD?" });
+    const t = await world.clients.reviewer.request<{ id: string }>("POST", `/api/dies/${dieId}/threads`, {
+      region: square(50, 50),
+      body: "@Demo Analyst is this the bond pad for VDD?",
+    });
     expect(t.status).toBe(201);
     const items = (await inboxOf("analyst")).filter((i) => i.threadId === t.body.id);
     expect(items).toHaveLength(1);

@@ -19,7 +19,17 @@ const ROSA_NH = 2e-7 * 1e-3 * (Math.log((2 * 1e-3) / 12.5e-6) - 0.75) * 1e9;
 async function dieWithBond() {
   const { dieId } = await freshCase(world.clients.owner, world.teamId);
   // 600 × 800 µm run: 1000 µm long (3-4-5 triangle).
-  const bond = { kind: "wire_bond", geometry: { type: "LineString", coordinates: [[100, 100], [700, 900]] }, properties: { label: "RFIN bond", diameterUm: 25 } };
+  const bond = {
+    kind: "wire_bond",
+    geometry: {
+      type: "LineString",
+      coordinates: [
+        [100, 100],
+        [700, 900],
+      ],
+    },
+    properties: { label: "RFIN bond", diameterUm: 25 },
+  };
   const res = await world.clients.analyst.request<AnyShape>("POST", `/api/dies/${dieId}/markup`, bond);
   expect(res.status).toBe(201);
   return { dieId, shape: res.body };
@@ -50,7 +60,10 @@ describe("estimates saved on a wire bond", () => {
 
   it("refuses a reviewer's save and a nested value, and keeps the shape as it was", async () => {
     const { dieId, shape } = await dieWithBond();
-    const reviewer = await world.clients.reviewer.request("PATCH", `/api/markup/${shape.id}`, { version: shape.version, properties: { ...shape.properties, estimates: { "bond-wire": { inductanceNh: 1 } } } });
+    const reviewer = await world.clients.reviewer.request("PATCH", `/api/markup/${shape.id}`, {
+      version: shape.version,
+      properties: { ...shape.properties, estimates: { "bond-wire": { inductanceNh: 1 } } },
+    });
     expect(reviewer.status).toBe(403);
     const nested = await world.clients.analyst.request<{ error: string }>("PATCH", `/api/markup/${shape.id}`, {
       version: shape.version,

@@ -69,9 +69,14 @@ describe("markup audit trail", () => {
     const viewer = { userId: ids.viewer };
     await expect(createMarkup(db, viewer, ids.die, input(note(9)).shapes, false)).rejects.toMatchObject({ status: 403 });
     const outside = input([note(4), { kind: "note", geometry: { type: "Point", coordinates: [9000, 10] }, properties: { text: "far" } }]);
-    await expect(createMarkup(db, { userId: ids.analyst }, ids.die, outside.shapes, true)).rejects.toMatchObject({ status: 400, message: /item 1: geometry\.coordinates/ });
+    await expect(createMarkup(db, { userId: ids.analyst }, ids.die, outside.shapes, true)).rejects.toMatchObject({
+      status: 400,
+      message: /item 1: geometry\.coordinates/,
+    });
     const target = beforeShapes[0];
-    await expect(updateMarkup(db, { userId: ids.analyst }, target.id, { version: target.version + 5, properties: { text: "stale" } })).rejects.toMatchObject({ status: 409 });
+    await expect(updateMarkup(db, { userId: ids.analyst }, target.id, { version: target.version + 5, properties: { text: "stale" } })).rejects.toMatchObject({
+      status: 409,
+    });
     expect(await events()).toEqual(before);
     expect(await shapes()).toEqual(beforeShapes);
   });

@@ -14,15 +14,88 @@ beforeAll(async () => {
 
 type Fc = { type: string; kerfline: Record<string, unknown>; features: { id: string; type: string; geometry: unknown; properties: Record<string, unknown> }[] };
 
-const rect = (x0: number, y0: number, w: number, h: number) => ({ type: "Polygon", coordinates: [[[x0, y0], [x0 + w, y0], [x0 + w, y0 + h], [x0, y0 + h], [x0, y0]]] });
+const rect = (x0: number, y0: number, w: number, h: number) => ({
+  type: "Polygon",
+  coordinates: [
+    [
+      [x0, y0],
+      [x0 + w, y0],
+      [x0 + w, y0 + h],
+      [x0, y0 + h],
+      [x0, y0],
+    ],
+  ],
+});
 const SAMPLE = (padId: string) => [
   { id: padId, kind: "pad", geometry: rect(20, 20, 80, 80), properties: { label: "VDD", net: "VDD", state: "bonded", side: "S", isPadOne: true } },
   { kind: "pad", geometry: rect(200, 20, 80, 80), properties: { label: "OUT ± µ", net: "", state: "probed" } },
-  { kind: "wire_bond", geometry: { type: "LineString", coordinates: [[60, 60], [60, -200]] }, properties: { diameterUm: 25, padId } },
-  { kind: "block", geometry: { type: "Polygon", coordinates: [[[300, 300], [700, 300], [700, 600], [300, 600], [300, 300]], [[400, 400], [450, 400], [450, 450], [400, 400]]] }, properties: { name: "bandgap", function: "reference" } },
-  { kind: "trace", geometry: { type: "LineString", coordinates: [[100, 100], [300, 100], [300, 300.125]] }, properties: { widthUm: 4.5, layerNote: "M2", estimates: { resistance: { ohms: 1.25, note: "sheet 0.07" } } } },
-  { kind: "ruler", geometry: { type: "LineString", coordinates: [[0, 0], [1000, 0]] }, properties: { label: "width" } },
-  { kind: "symmetry_axis", geometry: { type: "LineString", coordinates: [[500, 0], [500, 800]] }, properties: { name: "mirror" } },
+  {
+    kind: "wire_bond",
+    geometry: {
+      type: "LineString",
+      coordinates: [
+        [60, 60],
+        [60, -200],
+      ],
+    },
+    properties: { diameterUm: 25, padId },
+  },
+  {
+    kind: "block",
+    geometry: {
+      type: "Polygon",
+      coordinates: [
+        [
+          [300, 300],
+          [700, 300],
+          [700, 600],
+          [300, 600],
+          [300, 300],
+        ],
+        [
+          [400, 400],
+          [450, 400],
+          [450, 450],
+          [400, 400],
+        ],
+      ],
+    },
+    properties: { name: "bandgap", function: "reference" },
+  },
+  {
+    kind: "trace",
+    geometry: {
+      type: "LineString",
+      coordinates: [
+        [100, 100],
+        [300, 100],
+        [300, 300.125],
+      ],
+    },
+    properties: { widthUm: 4.5, layerNote: "M2", estimates: { resistance: { ohms: 1.25, note: "sheet 0.07" } } },
+  },
+  {
+    kind: "ruler",
+    geometry: {
+      type: "LineString",
+      coordinates: [
+        [0, 0],
+        [1000, 0],
+      ],
+    },
+    properties: { label: "width" },
+  },
+  {
+    kind: "symmetry_axis",
+    geometry: {
+      type: "LineString",
+      coordinates: [
+        [500, 0],
+        [500, 800],
+      ],
+    },
+    properties: { name: "mirror" },
+  },
   { kind: "note", geometry: { type: "Point", coordinates: [900.5, 700.25] }, properties: { text: "scratch near\nthe corner" } },
   { kind: "die_outline", geometry: rect(0, 0, 1000, 800), properties: { label: "outline" } },
 ];
@@ -55,14 +128,22 @@ describe("GeoJSON export and import", () => {
     expect(first.features).toHaveLength(9);
 
     const target = await freshCase(world.clients.owner, world.teamId);
-    const imported = await world.clients.analyst.request<{ total: number; counts: Record<string, number> }>("POST", `/api/dies/${target.dieId}/markup/import`, first);
+    const imported = await world.clients.analyst.request<{ total: number; counts: Record<string, number> }>(
+      "POST",
+      `/api/dies/${target.dieId}/markup/import`,
+      first,
+    );
     expect(imported.status).toBe(201);
     expect(imported.body.counts).toEqual({ pad: 2, wire_bond: 1, block: 1, trace: 1, ruler: 1, symmetry_axis: 1, note: 1, die_outline: 1 });
 
     const second = await exportOf(target.dieId);
     const newIdOf = new Map(first.features.map((f, i) => [f.id, second.features[i].id]));
     const strip = (fc: Fc, map?: Map<string, string>) =>
-      fc.features.map((f) => ({ type: f.type, geometry: f.geometry, properties: { ...f.properties, ...(typeof f.properties.padId === "string" && map ? { padId: map.get(f.properties.padId) } : {}) } }));
+      fc.features.map((f) => ({
+        type: f.type,
+        geometry: f.geometry,
+        properties: { ...f.properties, ...(typeof f.properties.padId === "string" && map ? { padId: map.get(f.properties.padId) } : {}) },
+      }));
     expect(strip(second)).toEqual(strip(first, newIdOf));
     expect(second.features.every((f, i) => f.id !== first.features[i].id)).toBe(true);
   });
@@ -89,20 +170,66 @@ describe("GeoJSON export and import", () => {
   });
 });
 
-const feature = (over: Record<string, unknown> = {}) => ({ type: "Feature", geometry: { type: "Point", coordinates: [10, 20] }, properties: { kind: "note", text: "ok" }, ...over });
+const feature = (over: Record<string, unknown> = {}) => ({
+  type: "Feature",
+  geometry: { type: "Point", coordinates: [10, 20] },
+  properties: { kind: "note", text: "ok" },
+  ...over,
+});
 const fc = (...features: unknown[]) => ({ type: "FeatureCollection", features });
 
 describe("a bad import adds nothing", () => {
   const corpus: { name: string; body: () => string; status: number; message: RegExp }[] = [
     { name: "a file that is not JSON", body: () => "type,features\nnot,json", status: 400, message: /not valid JSON/ },
-    { name: "a NaN literal (not JSON)", body: () => '{"type":"FeatureCollection","features":[{"type":"Feature","geometry":{"type":"Point","coordinates":[NaN,1]},"properties":{"kind":"note","text":""}}]}', status: 400, message: /not valid JSON/ },
-    { name: "a coordinate given as the text NaN", body: () => JSON.stringify(fc(feature(), feature({ geometry: { type: "Point", coordinates: ["NaN", 1] } }))), status: 400, message: /feature 1: geometry\.coordinates\.0: must be a number/ },
-    { name: "a coordinate overflowing to Infinity", body: () => JSON.stringify(fc(feature())).replace("[10,20]", "[1e999,20]"), status: 400, message: /feature 0: geometry\.coordinates\.0: must be finite/ },
-    { name: "the wrong type", body: () => JSON.stringify({ type: "GeometryCollection", geometries: [] }), status: 400, message: /type: must be "FeatureCollection"/ },
-    { name: "a feature without geometry", body: () => JSON.stringify(fc(feature(), feature(), feature({ geometry: null }))), status: 400, message: /feature 2: geometry: is required/ },
-    { name: "an unknown kind", body: () => JSON.stringify(fc(feature({ properties: { kind: "via" } }))), status: 400, message: /feature 0: properties\.kind: must be one of/ },
-    { name: "100,000 features", body: () => `{"type":"FeatureCollection","features":[${new Array(100_000).fill(JSON.stringify(feature())).join(",")}]}`, status: 400, message: /holds 100000 features; one import takes at most 50000/ },
-    { name: "a 21 MB file", body: () => JSON.stringify(fc(feature({ properties: { kind: "note", text: "x" }, padding: "y".repeat(21 * 1024 * 1024) }))), status: 413, message: /larger than/ },
+    {
+      name: "a NaN literal (not JSON)",
+      body: () =>
+        '{"type":"FeatureCollection","features":[{"type":"Feature","geometry":{"type":"Point","coordinates":[NaN,1]},"properties":{"kind":"note","text":""}}]}',
+      status: 400,
+      message: /not valid JSON/,
+    },
+    {
+      name: "a coordinate given as the text NaN",
+      body: () => JSON.stringify(fc(feature(), feature({ geometry: { type: "Point", coordinates: ["NaN", 1] } }))),
+      status: 400,
+      message: /feature 1: geometry\.coordinates\.0: must be a number/,
+    },
+    {
+      name: "a coordinate overflowing to Infinity",
+      body: () => JSON.stringify(fc(feature())).replace("[10,20]", "[1e999,20]"),
+      status: 400,
+      message: /feature 0: geometry\.coordinates\.0: must be finite/,
+    },
+    {
+      name: "the wrong type",
+      body: () => JSON.stringify({ type: "GeometryCollection", geometries: [] }),
+      status: 400,
+      message: /type: must be "FeatureCollection"/,
+    },
+    {
+      name: "a feature without geometry",
+      body: () => JSON.stringify(fc(feature(), feature(), feature({ geometry: null }))),
+      status: 400,
+      message: /feature 2: geometry: is required/,
+    },
+    {
+      name: "an unknown kind",
+      body: () => JSON.stringify(fc(feature({ properties: { kind: "via" } }))),
+      status: 400,
+      message: /feature 0: properties\.kind: must be one of/,
+    },
+    {
+      name: "100,000 features",
+      body: () => `{"type":"FeatureCollection","features":[${new Array(100_000).fill(JSON.stringify(feature())).join(",")}]}`,
+      status: 400,
+      message: /holds 100000 features; one import takes at most 50000/,
+    },
+    {
+      name: "a 21 MB file",
+      body: () => JSON.stringify(fc(feature({ properties: { kind: "note", text: "x" }, padding: "y".repeat(21 * 1024 * 1024) }))),
+      status: 413,
+      message: /larger than/,
+    },
   ];
   for (const c of corpus) {
     it(`refuses ${c.name} with ${c.status}`, async () => {
@@ -127,7 +254,9 @@ describe("import media types", () => {
   }
   it("refuses another media type with 415 and imports nothing", async () => {
     const { dieId } = await freshCase(world.clients.owner, world.teamId);
-    const res = await world.clients.owner.request<{ error: string }>("POST", `/api/dies/${dieId}/markup/import`, JSON.stringify(fc(feature())), { "content-type": "application/jsonl" });
+    const res = await world.clients.owner.request<{ error: string }>("POST", `/api/dies/${dieId}/markup/import`, JSON.stringify(fc(feature())), {
+      "content-type": "application/jsonl",
+    });
     expect(res.status).toBe(415);
     expect(res.body.error).toMatch(/application\/geo\+json/);
     expect(await countOf(dieId)).toBe(0);

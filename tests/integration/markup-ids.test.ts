@@ -8,8 +8,34 @@ import type { AnyShape } from "@/lib/markup/types";
 // bond's padId must name a pad of the same die.
 let world: Awaited<ReturnType<typeof demoWorld>>;
 const note = (id?: string) => ({ ...(id ? { id } : {}), kind: "note", geometry: { type: "Point", coordinates: [100, 100] }, properties: { text: "see here" } });
-const pad = (id: string) => ({ id, kind: "pad", geometry: { type: "Polygon", coordinates: [[[20, 20], [80, 20], [80, 80], [20, 80], [20, 20]]] }, properties: { label: "VB1" } });
-const bond = (padId: string) => ({ kind: "wire_bond", geometry: { type: "LineString", coordinates: [[50, 50], [50, 400]] }, properties: { diameterUm: 25, padId } });
+const pad = (id: string) => ({
+  id,
+  kind: "pad",
+  geometry: {
+    type: "Polygon",
+    coordinates: [
+      [
+        [20, 20],
+        [80, 20],
+        [80, 80],
+        [20, 80],
+        [20, 20],
+      ],
+    ],
+  },
+  properties: { label: "VB1" },
+});
+const bond = (padId: string) => ({
+  kind: "wire_bond",
+  geometry: {
+    type: "LineString",
+    coordinates: [
+      [50, 50],
+      [50, 400],
+    ],
+  },
+  properties: { diameterUm: 25, padId },
+});
 
 beforeAll(async () => {
   world = await demoWorld();
@@ -66,7 +92,10 @@ describe("a wire bond's padId", () => {
     // A PATCH that points an existing bond at another die's pad is refused too.
     const shapes = (await world.clients.owner.get<AnyShape[]>(`/api/dies/${a.dieId}/markup`)).body;
     const stored = shapes.find((s) => s.kind === "wire_bond")!;
-    const patch = await world.clients.owner.request<{ error: string }>("PATCH", `/api/markup/${stored.id}`, { version: stored.version, properties: { diameterUm: 25, padId: padB } });
+    const patch = await world.clients.owner.request<{ error: string }>("PATCH", `/api/markup/${stored.id}`, {
+      version: stored.version,
+      properties: { diameterUm: 25, padId: padB },
+    });
     expect(patch.status).toBe(400);
     expect(patch.body.error).toMatch(/padId does not name a pad of this die/);
   });

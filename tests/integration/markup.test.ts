@@ -16,7 +16,15 @@ beforeAll(async () => {
 
 const rect = (x0: number, y0: number, w: number, h: number) => ({
   type: "Polygon",
-  coordinates: [[[x0, y0], [x0 + w, y0], [x0 + w, y0 + h], [x0, y0 + h], [x0, y0]]],
+  coordinates: [
+    [
+      [x0, y0],
+      [x0 + w, y0],
+      [x0 + w, y0 + h],
+      [x0, y0 + h],
+      [x0, y0],
+    ],
+  ],
 });
 const padAt = (cx: number, cy: number, label: string, net = "", state = "bonded") => ({
   kind: "pad",
@@ -79,7 +87,12 @@ describe("optimistic concurrency", () => {
     for (let round = 0; round < 5; round++) {
       const writers: Who[] = ["owner", "analyst"];
       const results = await Promise.all(
-        writers.map((who) => world.clients[who].request<AnyShape & { current?: AnyShape }>("PATCH", `/api/markup/${shape.id}`, { version, properties: { text: `${who} ${round}` } })),
+        writers.map((who) =>
+          world.clients[who].request<AnyShape & { current?: AnyShape }>("PATCH", `/api/markup/${shape.id}`, {
+            version,
+            properties: { text: `${who} ${round}` },
+          }),
+        ),
       );
       expect(results.map((r) => r.status).sort()).toEqual([200, 409]);
       const winner = results.find((r) => r.status === 200)!;
@@ -94,10 +107,16 @@ describe("optimistic concurrency", () => {
 
   it("refuses a stale version on PATCH and DELETE with the current shape, and deletes with the right one", async () => {
     const { shape } = await dieWithNote();
-    const moved = await world.clients.analyst.request<AnyShape>("PATCH", `/api/markup/${shape.id}`, { version: 1, geometry: { type: "Point", coordinates: [150, 120] } });
+    const moved = await world.clients.analyst.request<AnyShape>("PATCH", `/api/markup/${shape.id}`, {
+      version: 1,
+      geometry: { type: "Point", coordinates: [150, 120] },
+    });
     expect(moved.status).toBe(200);
     expect(moved.body).toMatchObject({ version: 2, geometry: { type: "Point", coordinates: [150, 120] }, properties: shape.properties });
-    const stale = await world.clients.owner.request<{ error: string; current: AnyShape }>("PATCH", `/api/markup/${shape.id}`, { version: 1, properties: { text: "late" } });
+    const stale = await world.clients.owner.request<{ error: string; current: AnyShape }>("PATCH", `/api/markup/${shape.id}`, {
+      version: 1,
+      properties: { text: "late" },
+    });
     expect(stale.status).toBe(409);
     expect(stale.body.error).toMatch(/version 2/);
     expect(stale.body.current).toEqual(moved.body);
@@ -110,7 +129,12 @@ describe("optimistic concurrency", () => {
   it("re-creates a deleted shape under its own id (undo of a delete) and refuses a taken id", async () => {
     const { dieId, shape } = await dieWithNote();
     expect((await world.clients.owner.request("DELETE", `/api/markup/${shape.id}`)).status).toBe(204);
-    const again = await world.clients.owner.request<AnyShape>("POST", `/api/dies/${dieId}/markup`, { id: shape.id, kind: shape.kind, geometry: shape.geometry, properties: shape.properties });
+    const again = await world.clients.owner.request<AnyShape>("POST", `/api/dies/${dieId}/markup`, {
+      id: shape.id,
+      kind: shape.kind,
+      geometry: shape.geometry,
+      properties: shape.properties,
+    });
     expect(again.status).toBe(201);
     expect(again.body).toMatchObject({ id: shape.id, version: 1, geometry: shape.geometry, properties: shape.properties });
     const taken = await world.clients.owner.request<{ error: string }>("POST", `/api/dies/${dieId}/markup`, [noteAt(1, 1), { ...noteAt(2, 2), id: shape.id }]);
@@ -190,7 +214,14 @@ describe("pad table", () => {
     records.forEach((rec, i) => {
       const row = json.body.rows[i];
       expect(rec).toMatchObject({ number: String(row.number), id: row.id, label: row.label, net: row.net, state: row.state, side: row.side });
-      const numbers = { x_um: row.xUm, y_um: row.yUm, x_from_centre_um: row.xFromCentreUm, y_from_centre_um: row.yFromCentreUm, width_um: row.widthUm, height_um: row.heightUm };
+      const numbers = {
+        x_um: row.xUm,
+        y_um: row.yUm,
+        x_from_centre_um: row.xFromCentreUm,
+        y_from_centre_um: row.yFromCentreUm,
+        width_um: row.widthUm,
+        height_um: row.heightUm,
+      };
       for (const [key, value] of Object.entries(numbers)) expect(Math.abs(Number(rec[key]) - value), key).toBeLessThanOrEqual(0.0005);
       expect(rec.pitch_um === "" ? null : Number(rec.pitch_um)).toEqual(row.pitchUm === null ? null : expect.closeTo(row.pitchUm, 3));
     });
@@ -226,8 +257,28 @@ describe("markup CSV", () => {
     const body = [
       padAt(100, 100, 'pad "A", left'),
       { kind: "block", geometry: rect(200, 200, 300, 150), properties: { name: "LNA, stage 1", function: "low-noise amplifier" } },
-      { kind: "trace", geometry: { type: "LineString", coordinates: [[10, 10], [40, 50], [40, 90.125]] }, properties: { widthUm: 6, label: "L1" } },
-      { kind: "ruler", geometry: { type: "LineString", coordinates: [[0, 0], [300, 400]] } },
+      {
+        kind: "trace",
+        geometry: {
+          type: "LineString",
+          coordinates: [
+            [10, 10],
+            [40, 50],
+            [40, 90.125],
+          ],
+        },
+        properties: { widthUm: 6, label: "L1" },
+      },
+      {
+        kind: "ruler",
+        geometry: {
+          type: "LineString",
+          coordinates: [
+            [0, 0],
+            [300, 400],
+          ],
+        },
+      },
       noteAt(500, 700, "two\nlines"),
     ];
     expect((await world.clients.analyst.request("POST", `/api/dies/${dieId}/markup`, body)).status).toBe(201);

@@ -15,12 +15,20 @@ beforeAll(async () => {
   ({ dieId } = await freshCase(world.clients.owner, world.teamId, "Management target"));
   const jpeg = await makeJpeg(400, 300);
   for (const label of ["first", "second", "third"]) {
-    const res = await world.clients.analyst.upload<{ id: string }>(`/api/dies/${dieId}/micrographs`, uploadForm(jpeg, `${label}.jpg`, { label, scaleUmPerPx: "0.5" }));
+    const res = await world.clients.analyst.upload<{ id: string }>(
+      `/api/dies/${dieId}/micrographs`,
+      uploadForm(jpeg, `${label}.jpg`, { label, scaleUmPerPx: "0.5" }),
+    );
     ids.push(res.body.id);
   }
   for (const id of ids) await waitForStatus(world.clients.analyst, id, "ready");
   // Put "second" in the die frame: the first micrograph's frame shifted 10 µm right (worked by hand).
-  const pairs = [[0, 0], [400, 0], [400, 300], [0, 300]].map(([x, y]) => ({ imagePx: [x, y], dieUm: [0.5 * x + 10, 150 - 0.5 * y] }));
+  const pairs = [
+    [0, 0],
+    [400, 0],
+    [400, 300],
+    [0, 300],
+  ].map(([x, y]) => ({ imagePx: [x, y], dieUm: [0.5 * x + 10, 150 - 0.5 * y] }));
   const aligned = await world.clients.analyst.request("PUT", `/api/micrographs/${ids[1]}/alignment`, { model: "similarity", pairs });
   if (aligned.status !== 200) throw new Error(JSON.stringify(aligned.body));
 }, 60_000);
@@ -43,7 +51,10 @@ describe("changing the reference micrograph", () => {
     const after = await list();
     expect(after.filter((m) => m.isReference).map((m) => m.id)).toEqual([ids[1]]);
     for (const m of after) expect(m.transform).toEqual(before.find((b) => b.id === m.id)!.transform);
-    expect(after.find((m) => m.id === ids[1])!.transform).toEqual([[0.5, 0, 10], [0, -0.5, 150]]);
+    expect(after.find((m) => m.id === ids[1])!.transform).toEqual([
+      [0.5, 0, 10],
+      [0, -0.5, 150],
+    ]);
   });
 
   it("follows the role table", async () => {

@@ -42,19 +42,53 @@ const count = async () => (await world.clients.owner.get<unknown[]>(`/api/dies/$
 type BadCase = { name: string; form: () => FormData; status: number; message: RegExp };
 const CORPUS: BadCase[] = [
   { name: "a zero-byte file", form: () => uploadForm(Buffer.alloc(0), "empty.jpg"), status: 400, message: /empty/ },
-  { name: "text renamed .jpg", form: () => uploadForm("just some notes, not an image at all\n".repeat(4), "notes.jpg"), status: 415, message: /Only JPEG, PNG, TIFF/ },
+  {
+    name: "text renamed .jpg",
+    form: () => uploadForm("just some notes, not an image at all\n".repeat(4), "notes.jpg"),
+    status: 415,
+    message: /Only JPEG, PNG, TIFF/,
+  },
   { name: "a truncated JPEG", form: () => uploadForm(jpeg.subarray(0, Math.floor(jpeg.length * 0.6)), "cut.jpg"), status: 422, message: /incomplete/ },
   { name: "a truncated PNG", form: () => uploadForm(png.subarray(0, Math.floor(png.length * 0.6)), "cut.png"), status: 422, message: /incomplete/ },
   { name: "a PNG declaring 100000 × 100000 px", form: () => uploadForm(pngDeclaring(100_000, 100_000), "bomb.png"), status: 413, message: /pixel/i },
-  { name: "an SVG", form: () => uploadForm('<svg xmlns="http://www.w3.org/2000/svg" width="10" height="10"><rect width="10" height="10"/></svg>', "die.svg"), status: 415, message: /Only JPEG/ },
-  { name: "an HTML page", form: () => uploadForm("<!doctype html><html><body><script>alert(1)</script></body></html>", "die.jpg"), status: 415, message: /Only JPEG/ },
-  { name: "a TIFF with a bad header", form: () => uploadForm(Buffer.concat([Buffer.from([0x49, 0x49, 0x2a, 0x00, 0xff, 0xff, 0xff, 0x7f]), Buffer.alloc(200, 7)]), "bad.tif"), status: 415, message: /TIFF|format|read/i },
+  {
+    name: "an SVG",
+    form: () => uploadForm('<svg xmlns="http://www.w3.org/2000/svg" width="10" height="10"><rect width="10" height="10"/></svg>', "die.svg"),
+    status: 415,
+    message: /Only JPEG/,
+  },
+  {
+    name: "an HTML page",
+    form: () => uploadForm("<!doctype html><html><body><script>alert(1)</script></body></html>", "die.jpg"),
+    status: 415,
+    message: /Only JPEG/,
+  },
+  {
+    name: "a TIFF with a bad header",
+    form: () => uploadForm(Buffer.concat([Buffer.from([0x49, 0x49, 0x2a, 0x00, 0xff, 0xff, 0xff, 0x7f]), Buffer.alloc(200, 7)]), "bad.tif"),
+    status: 415,
+    message: /TIFF|format|read/i,
+  },
   { name: "a file name with ../", form: () => uploadForm(jpeg, "../../etc/die.jpg"), status: 400, message: /plain name/ },
   { name: "a wrong field type", form: () => uploadForm(jpeg, "die.jpg", { objectiveMag: "twenty" }), status: 400, message: /objectiveMag must be a number/ },
   { name: "an unknown illumination", form: () => uploadForm(jpeg, "die.jpg", { illumination: "uv" }), status: 400, message: /illumination must be one of/ },
-  { name: "a label with a NUL character", form: () => uploadForm(jpeg, "die.jpg", { label: "bright\u0000field" }), status: 400, message: /label contains a NUL character/ },
+  {
+    name: "a label with a NUL character",
+    form: () => uploadForm(jpeg, "die.jpg", { label: "bright\u0000field" }),
+    status: 400,
+    message: /label contains a NUL character/,
+  },
   { name: "a missing file", form: () => uploadForm(null, "", { label: "no file" }), status: 400, message: /No file was sent/ },
-  { name: "a file in the wrong field", form: () => { const f = new FormData(); f.append("image", new Blob([new Uint8Array(jpeg)]), "die.jpg"); return f; }, status: 400, message: /field “file”/ },
+  {
+    name: "a file in the wrong field",
+    form: () => {
+      const f = new FormData();
+      f.append("image", new Blob([new Uint8Array(jpeg)]), "die.jpg");
+      return f;
+    },
+    status: 400,
+    message: /field “file”/,
+  },
 ];
 
 describe("POST /api/dies/{dieId}/micrographs refuses bad uploads", () => {
@@ -76,7 +110,12 @@ describe("POST /api/dies/{dieId}/micrographs refuses bad uploads", () => {
   });
 
   it("answers 404 for another team's die and 403 for a reviewer or viewer, before reading the file", async () => {
-    for (const [who, status] of [["outsider", 404], ["reviewer", 403], ["viewer", 403], ["anonymous", 401]] as const) {
+    for (const [who, status] of [
+      ["outsider", 404],
+      ["reviewer", 403],
+      ["viewer", 403],
+      ["anonymous", 401],
+    ] as const) {
       const res = await world.clients[who].upload<{ error: string }>(`/api/dies/${dieId}/micrographs`, uploadForm(jpeg, "die.jpg"));
       expect(res.status).toBe(status);
       expect(typeof res.body.error).toBe("string");
@@ -97,13 +136,23 @@ describe("an accepted upload", () => {
     // REFERENCES.md: 5 µm camera pixels at 20x give 0.25 µm/px [pub].
     expect(res.body.scaleUmPerPx).toBeCloseTo(0.25, 12);
     // The first micrograph defines the die frame: x right, y up (negative determinant).
-    expect(res.body.transform).toEqual([[0.25, 0, 0], [0, -0.25, 250]]);
+    expect(res.body.transform).toEqual([
+      [0.25, 0, 0],
+      [0, -0.25, 250],
+    ]);
     const ready = await waitForStatus(world.clients.analyst, res.body.id, "ready");
     expect(ready).toMatchObject({ dieId, width: 1500, height: 1000, progress: 100, illumination: "bright_field", objectiveMag: 20, numericalAperture: 0.45 });
 
     const info = await world.clients.viewer.get<Record<string, unknown>>(`/api/micrographs/${res.body.id}/iiif/info.json`);
     expect(info.status).toBe(200);
-    expect(info.body).toMatchObject({ "@context": "http://iiif.io/api/image/3/context.json", type: "ImageService3", protocol: "http://iiif.io/api/image", profile: "level0", width: 1500, height: 1000 });
+    expect(info.body).toMatchObject({
+      "@context": "http://iiif.io/api/image/3/context.json",
+      type: "ImageService3",
+      protocol: "http://iiif.io/api/image",
+      profile: "level0",
+      width: 1500,
+      height: 1000,
+    });
     expect(info.body.id).toBe(`${inject("baseUrl")}/api/micrographs/${res.body.id}/iiif`);
 
     const tilePath = `/api/micrographs/${res.body.id}/iiif/0,0,512,512/512,512/0/default.jpg`;
@@ -118,7 +167,13 @@ describe("an accepted upload", () => {
     expect((await world.clients.outsider.get(`/api/micrographs/${res.body.id}/iiif/info.json`)).status).toBe(404);
     expect((await world.clients.outsider.get(tilePath)).status).toBe(404);
     expect((await world.clients.outsider.get(`/api/micrographs/${res.body.id}`)).status).toBe(404);
-    for (const bad of ["..%2F..%2Fpgdata/512,512/0/default.jpg", "0,0,512,512/512,512/0/..%2F..%2Finfo.json", "0,0,512,512/512,512/90/default.jpg", "0,0,-1,512/512,512/0/default.jpg", "0,0,512,512/pct:50/0/default.jpg"]) {
+    for (const bad of [
+      "..%2F..%2Fpgdata/512,512/0/default.jpg",
+      "0,0,512,512/512,512/0/..%2F..%2Finfo.json",
+      "0,0,512,512/512,512/90/default.jpg",
+      "0,0,-1,512/512,512/0/default.jpg",
+      "0,0,512,512/pct:50/0/default.jpg",
+    ]) {
       const r = await world.clients.viewer.get<{ error: string }>(`/api/micrographs/${res.body.id}/iiif/${bad}`);
       expect([400, 404]).toContain(r.status);
     }
@@ -135,13 +190,19 @@ describe("an accepted upload", () => {
     const res = await world.clients.analyst.upload<{ id: string; scaleUmPerPx: number | null }>(`/api/dies/${dieId}/micrographs`, uploadForm(png, "uncal.png"));
     expect(res.status).toBe(202);
     expect(res.body.scaleUmPerPx).toBeNull();
-    const bad = await world.clients.analyst.request<{ error: string }>("PATCH", `/api/micrographs/${res.body.id}`, { calibration: { p1: [10, 10], p2: [10, 10], lengthUm: 50 } });
+    const bad = await world.clients.analyst.request<{ error: string }>("PATCH", `/api/micrographs/${res.body.id}`, {
+      calibration: { p1: [10, 10], p2: [10, 10], lengthUm: 50 },
+    });
     expect(bad.status).toBe(400);
     expect(bad.body.error).toMatch(/coincide/);
-    const off = await world.clients.analyst.request<{ error: string }>("PATCH", `/api/micrographs/${res.body.id}`, { calibration: { p1: [0, 0], p2: [5000, 0], lengthUm: 50 } });
+    const off = await world.clients.analyst.request<{ error: string }>("PATCH", `/api/micrographs/${res.body.id}`, {
+      calibration: { p1: [0, 0], p2: [5000, 0], lengthUm: 50 },
+    });
     expect(off.status).toBe(400);
     // 3-4-5: 500 px between the points over 100 µm → 0.2 µm/px (worked by hand).
-    const ok = await world.clients.analyst.request<{ scaleUmPerPx: number; transform: number[][] }>("PATCH", `/api/micrographs/${res.body.id}`, { calibration: { p1: [100, 100], p2: [400, 500], lengthUm: 100 } });
+    const ok = await world.clients.analyst.request<{ scaleUmPerPx: number; transform: number[][] }>("PATCH", `/api/micrographs/${res.body.id}`, {
+      calibration: { p1: [100, 100], p2: [400, 500], lengthUm: 100 },
+    });
     expect(ok.status).toBe(200);
     expect(ok.body.scaleUmPerPx).toBeCloseTo(0.2, 12);
     expect((await world.clients.reviewer.request("PATCH", `/api/micrographs/${res.body.id}`, { label: "x" })).status).toBe(403);

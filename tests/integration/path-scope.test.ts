@@ -8,18 +8,39 @@ import { uploadForm } from "../support/images";
 // nothing from validation messages; a member sending the same body gets the 400 it deserves.
 let world: Awaited<ReturnType<typeof demoWorld>>;
 const ids: Record<string, string> = {};
-const square = (x: number, y: number) => ({ type: "Polygon", coordinates: [[[x, y], [x + 10, y], [x + 10, y + 10], [x, y + 10], [x, y]]] });
+const square = (x: number, y: number) => ({
+  type: "Polygon",
+  coordinates: [
+    [
+      [x, y],
+      [x + 10, y],
+      [x + 10, y + 10],
+      [x, y + 10],
+      [x, y],
+    ],
+  ],
+});
 
 beforeAll(async () => {
   world = await demoWorld();
   const { caseId, dieId } = await freshCase(world.clients.owner, world.teamId, "Path scope target");
   Object.assign(ids, { caseId, dieId });
-  const png = await sharp({ create: { width: 64, height: 48, channels: 3, background: { r: 90, g: 90, b: 90 } } }).png().toBuffer();
-  const up = await world.clients.analyst.upload<{ id: string }>(`/api/dies/${dieId}/micrographs`, uploadForm(png, "m.png", { label: "scope", scaleUmPerPx: "1" }));
+  const png = await sharp({ create: { width: 64, height: 48, channels: 3, background: { r: 90, g: 90, b: 90 } } })
+    .png()
+    .toBuffer();
+  const up = await world.clients.analyst.upload<{ id: string }>(
+    `/api/dies/${dieId}/micrographs`,
+    uploadForm(png, "m.png", { label: "scope", scaleUmPerPx: "1" }),
+  );
   ids.micrographId = up.body.id;
-  const shape = await world.clients.analyst.request<{ id: string }[]>("POST", `/api/dies/${dieId}/markup`, [{ kind: "pad", geometry: square(5, 5), properties: { label: "S1", state: "bonded" } }]);
+  const shape = await world.clients.analyst.request<{ id: string }[]>("POST", `/api/dies/${dieId}/markup`, [
+    { kind: "pad", geometry: square(5, 5), properties: { label: "S1", state: "bonded" } },
+  ]);
   ids.markupId = (Array.isArray(shape.body) ? shape.body[0] : (shape.body as unknown as { id: string })).id;
-  const thread = await world.clients.reviewer.request<{ id: string; comments: { id: string }[] }>("POST", `/api/dies/${dieId}/threads`, { region: square(20, 20), body: "scope check" });
+  const thread = await world.clients.reviewer.request<{ id: string; comments: { id: string }[] }>("POST", `/api/dies/${dieId}/threads`, {
+    region: square(20, 20),
+    body: "scope check",
+  });
   ids.threadId = thread.body.id;
   ids.commentId = thread.body.comments[0].id;
 });

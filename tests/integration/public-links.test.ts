@@ -35,7 +35,12 @@ function getWithHost(path: string, host: string, cookie: string): Promise<{ stat
 describe("links do not follow forged Host or X-Forwarded-Host headers", () => {
   it("mails a mention with a link to the configured origin", async () => {
     const { dieId } = await freshCase(world.clients.owner, world.teamId);
-    const t = await world.clients.reviewer.request<Thread>("POST", `/api/dies/${dieId}/threads`, { region: square(100, 100), body: "@Demo Analyst check the bond on VB1" }, { ...FORGED, host: "attacker.test" });
+    const t = await world.clients.reviewer.request<Thread>(
+      "POST",
+      `/api/dies/${dieId}/threads`,
+      { region: square(100, 100), body: "@Demo Analyst check the bond on VB1" },
+      { ...FORGED, host: "attacker.test" },
+    );
     expect(t.status).toBe(201);
     const mail = await waitForMail(world.clients.owner, DEMO_EMAILS.analyst, (m) => m.subject.includes("mentioned you"), `?thread=${t.body.id}`);
     expect(mail.text).toContain(`${base()}/dies/${dieId}?thread=${t.body.id}`);

@@ -16,18 +16,43 @@ import { join } from "node:path";
 let world: Awaited<ReturnType<typeof demoWorld>>;
 let dieId: string;
 
-const rect = (x0: number, y0: number, w: number, h: number) => ({ type: "Polygon", coordinates: [[[x0, y0], [x0 + w, y0], [x0 + w, y0 + h], [x0, y0 + h], [x0, y0]]] });
+const rect = (x0: number, y0: number, w: number, h: number) => ({
+  type: "Polygon",
+  coordinates: [
+    [
+      [x0, y0],
+      [x0 + w, y0],
+      [x0 + w, y0 + h],
+      [x0, y0 + h],
+      [x0, y0],
+    ],
+  ],
+});
 const LABELS = ["VREF", "GND", "OUTA", "VCC"];
 // Longer than any table cell, so a layout that cuts cells shows it.
-const LONG_REMARK = "The bandgap core looks re-drawn: " + Array.from({ length: 40 }, (_, i) => `detail${i}`).join(" ") + " please compare with the dark-field frame.";
+const LONG_REMARK =
+  "The bandgap core looks re-drawn: " + Array.from({ length: 40 }, (_, i) => `detail${i}`).join(" ") + " please compare with the dark-field frame.";
 const REPLY = "Reply: the trim fuses F2 and F3 are open, photographed at 50x; nothing else differs.";
-const SAVED = { kind: "bond-wire", formula: "Bond-wire inductance (Rosa; Grover)", source: "Grover 1946", lengthUm: 1000, diameterUm: 25, inductanceNh: 1.024, savedAt: "2026-12-01T10:00:00.000Z" };
+const SAVED = {
+  kind: "bond-wire",
+  formula: "Bond-wire inductance (Rosa; Grover)",
+  source: "Grover 1946",
+  lengthUm: 1000,
+  diameterUm: 25,
+  inductanceNh: 1.024,
+  savedAt: "2026-12-01T10:00:00.000Z",
+};
 
 beforeAll(async () => {
   world = await demoWorld();
   ({ dieId } = await freshCase(world.clients.owner, world.teamId, "Report case"));
-  const png = await sharp({ create: { width: 500, height: 400, channels: 3, background: { r: 120, g: 130, b: 90 } } }).png().toBuffer();
-  const up = await world.clients.analyst.upload<{ id: string }>(`/api/dies/${dieId}/micrographs`, uploadForm(png, "bf.png", { label: "bright field 5x", scaleUmPerPx: "2" }));
+  const png = await sharp({ create: { width: 500, height: 400, channels: 3, background: { r: 120, g: 130, b: 90 } } })
+    .png()
+    .toBuffer();
+  const up = await world.clients.analyst.upload<{ id: string }>(
+    `/api/dies/${dieId}/micrographs`,
+    uploadForm(png, "bf.png", { label: "bright field 5x", scaleUmPerPx: "2" }),
+  );
   expect(up.status).toBe(202);
   await waitForStatus(world.clients.analyst, up.body.id, "ready");
   const shapes = [
@@ -36,14 +61,40 @@ beforeAll(async () => {
     { kind: "pad", geometry: rect(920, 200, 60, 60), properties: { label: LABELS[2], state: "probed" } },
     { kind: "pad", geometry: rect(920, 600, 60, 60), properties: { label: LABELS[3], state: "unbonded" } },
     { kind: "block", geometry: rect(300, 300, 300, 200), properties: { name: "bandgap", function: "voltage reference" } },
-    { kind: "ruler", geometry: { type: "LineString", coordinates: [[0, 100], [1000, 100]] }, properties: { label: "die width" } },
-    { kind: "wire_bond", geometry: { type: "LineString", coordinates: [[50, 630], [-200, 630]] }, properties: { label: "BW1", estimates: { "bond-wire": SAVED } } },
+    {
+      kind: "ruler",
+      geometry: {
+        type: "LineString",
+        coordinates: [
+          [0, 100],
+          [1000, 100],
+        ],
+      },
+      properties: { label: "die width" },
+    },
+    {
+      kind: "wire_bond",
+      geometry: {
+        type: "LineString",
+        coordinates: [
+          [50, 630],
+          [-200, 630],
+        ],
+      },
+      properties: { label: "BW1", estimates: { "bond-wire": SAVED } },
+    },
   ];
   expect((await world.clients.analyst.request("POST", `/api/dies/${dieId}/markup`, shapes)).status).toBe(201);
   // Review: one open thread, one resolved, and the die submitted for review.
-  const open = await world.clients.reviewer.request<{ id: string }>("POST", `/api/dies/${dieId}/threads`, { region: rect(400, 400, 50, 50), body: "Is the bandgap trimmed? Ω ± 5 %" });
+  const open = await world.clients.reviewer.request<{ id: string }>("POST", `/api/dies/${dieId}/threads`, {
+    region: rect(400, 400, 50, 50),
+    body: "Is the bandgap trimmed? Ω ± 5 %",
+  });
   expect(open.status).toBe(201);
-  const closed = await world.clients.reviewer.request<{ id: string }>("POST", `/api/dies/${dieId}/threads`, { region: rect(100, 100, 50, 50), body: "Pad pitch checked" });
+  const closed = await world.clients.reviewer.request<{ id: string }>("POST", `/api/dies/${dieId}/threads`, {
+    region: rect(100, 100, 50, 50),
+    body: "Pad pitch checked",
+  });
   expect((await world.clients.analyst.request("POST", `/api/threads/${open.body.id}/comments`, { body: REPLY })).status).toBe(201);
   expect((await world.clients.reviewer.request("POST", `/api/dies/${dieId}/threads`, { region: rect(600, 300, 50, 50), body: LONG_REMARK })).status).toBe(201);
   expect((await world.clients.reviewer.request("POST", `/api/threads/${closed.body.id}/resolve`, {})).status).toBe(200);

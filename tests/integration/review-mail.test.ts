@@ -20,7 +20,12 @@ function startSmtp(): Promise<void> {
     onData(stream, _session, callback) {
       simpleParser(stream).then(
         (m) => {
-          received.push({ to: Array.isArray(m.to) ? m.to.map((t) => t.text).join(",") : (m.to?.text ?? ""), subject: m.subject ?? "", text: m.text ?? "", messageId: m.messageId ?? "" });
+          received.push({
+            to: Array.isArray(m.to) ? m.to.map((t) => t.text).join(",") : (m.to?.text ?? ""),
+            subject: m.subject ?? "",
+            text: m.text ?? "",
+            messageId: m.messageId ?? "",
+          });
           callback();
         },
         (e: Error) => callback(e),
@@ -77,7 +82,10 @@ describe("the mail outbox", () => {
   it("saves a comment while the mail server is down, retries, and delivers exactly once when it is back", async () => {
     const c = await clients.owner.request<{ id: string }>("POST", `/api/teams/${teamId}/cases`, { title: "Mail outage case" });
     const d = await clients.analyst.request<{ id: string }>("POST", `/api/cases/${c.body.id}/dies`, { name: "outage die", widthUm: 1000, heightUm: 800 });
-    const t = await clients.reviewer.request<{ id: string; comments: { body: string }[] }>("POST", `/api/dies/${d.body.id}/threads`, { region: square(100, 100), body: "@Demo Analyst the VB2 pad looks lifted" });
+    const t = await clients.reviewer.request<{ id: string; comments: { body: string }[] }>("POST", `/api/dies/${d.body.id}/threads`, {
+      region: square(100, 100),
+      body: "@Demo Analyst the VB2 pad looks lifted",
+    });
     expect(t.status).toBe(201);
     expect(t.body.comments[0].body).toContain("VB2 pad");
 
@@ -111,7 +119,11 @@ describe("the mail outbox", () => {
     const mail = await until("the invitation mail", async () => received.find((m) => m.to.includes(email)));
     const token = /\/invitations\/([A-Za-z0-9_-]{20,})/.exec(mail.text)![1];
     await new Promise((r) => setTimeout(r, 5_500));
-    const res = await new ApiClient(server.url).request<{ error: string }>("POST", "/api/invitations/accept", { token, name: "Late", password: "a-long-password" });
+    const res = await new ApiClient(server.url).request<{ error: string }>("POST", "/api/invitations/accept", {
+      token,
+      name: "Late",
+      password: "a-long-password",
+    });
     expect(res.status).toBe(410);
     expect(res.body.error).toMatch(/expired/);
   });

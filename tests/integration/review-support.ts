@@ -16,12 +16,27 @@ export type StoredMail = MailEntry & { text: string; html: string | null };
 
 /** A 100 µm square region at (x, y) in die µm, as a GeoJSON Polygon. */
 export function square(x: number, y: number, size = 100) {
-  return { type: "Polygon", coordinates: [[[x, y], [x + size, y], [x + size, y + size], [x, y + size], [x, y]]] };
+  return {
+    type: "Polygon",
+    coordinates: [
+      [
+        [x, y],
+        [x + size, y],
+        [x + size, y + size],
+        [x, y + size],
+        [x, y],
+      ],
+    ],
+  };
 }
 
 /** A pad shape on the die, made by a client with the edit right. */
 export async function addPad(editor: ApiClient, dieId: string, x = 100, y = 100): Promise<string> {
-  const res = await editor.request<{ id: string }>("POST", `/api/dies/${dieId}/markup`, { kind: "pad", geometry: square(x, y, 80), properties: { label: "VB1" } });
+  const res = await editor.request<{ id: string }>("POST", `/api/dies/${dieId}/markup`, {
+    kind: "pad",
+    geometry: square(x, y, 80),
+    properties: { label: "VB1" },
+  });
   if (res.status !== 201) throw new Error(`could not add a pad: ${res.status} ${JSON.stringify(res.body)}`);
   return (Array.isArray(res.body) ? res.body[0] : res.body).id;
 }

@@ -165,7 +165,11 @@ describe("POST /api/dies/{dieId}/review", () => {
     const approve = who === "anonymous" ? 401 : who === "outsider" ? 404 : ["owner", "reviewer"].includes(who) ? 200 : 403;
     it(`answers approve ${approve} for ${who} on a die in review`, async () => {
       const { caseId } = await freshCase(world.clients.owner, world.teamId);
-      const d = await world.clients.analyst.request<{ id: string }>("POST", `/api/cases/${caseId}/dies`, { name: "analyst's die", widthUm: 1000, heightUm: 800 });
+      const d = await world.clients.analyst.request<{ id: string }>("POST", `/api/cases/${caseId}/dies`, {
+        name: "analyst's die",
+        widthUm: 1000,
+        heightUm: 800,
+      });
       expect((await world.clients.analyst.request("POST", `/api/dies/${d.body.id}/review`, { action: "submit", message: "" })).status).toBe(200);
       const res = await world.clients[who].request("POST", `/api/dies/${d.body.id}/review`, { action: "approve", message: "looks right" });
       expect(res.status).toBe(approve);
@@ -186,7 +190,8 @@ describe("POST /api/dies/{dieId}/review", () => {
 
   it("follows draft → in review → changes requested → in review → approved, keeping the history", async () => {
     const { dieId } = await freshCase(world.clients.owner, world.teamId);
-    const step = (c: ApiClient, action: string, message = "") => c.request<{ reviewStatus: string; error: string }>("POST", `/api/dies/${dieId}/review`, { action, message });
+    const step = (c: ApiClient, action: string, message = "") =>
+      c.request<{ reviewStatus: string; error: string }>("POST", `/api/dies/${dieId}/review`, { action, message });
     expect((await step(world.clients.reviewer, "approve")).status).toBe(409);
     expect((await step(world.clients.owner, "submit", "first pass")).body.reviewStatus).toBe("in_review");
     expect((await step(world.clients.owner, "submit")).status).toBe(409);

@@ -46,7 +46,12 @@ describe("writes from another origin answer 403 and change nothing", () => {
   it("refuses a body-less POST (resolve a thread) from a sibling origin and from Sec-Fetch-Site: same-site", async () => {
     const { dieId } = await freshCase(world.clients.owner, world.teamId);
     const t = await openThread(dieId);
-    const refused: Record<string, string>[] = [{ origin: sibling() }, { origin: "null" }, { "sec-fetch-site": "same-site" }, { "sec-fetch-site": "cross-site" }];
+    const refused: Record<string, string>[] = [
+      { origin: sibling() },
+      { origin: "null" },
+      { "sec-fetch-site": "same-site" },
+      { "sec-fetch-site": "cross-site" },
+    ];
     for (const headers of refused) {
       const res = await world.clients.reviewer.request<{ error: string }>("POST", `/api/threads/${t.id}/resolve`, undefined, headers);
       expect(res.status, JSON.stringify(headers)).toBe(403);
@@ -63,7 +68,12 @@ describe("writes from another origin answer 403 and change nothing", () => {
     expect((await world.clients.owner.get(`/api/cases/${caseId}`)).status).toBe(200);
     const patch = await world.clients.owner.request("PATCH", `/api/cases/${caseId}`, { title: "renamed" }, { origin: sibling() });
     expect(patch.status).toBe(403);
-    const signOut = await fetch(`${base()}/api/auth/signout`, { method: "POST", redirect: "manual", headers: { origin: sibling(), cookie: world.clients.owner.cookie, "content-type": "application/x-www-form-urlencoded" }, body: "csrfToken=x" });
+    const signOut = await fetch(`${base()}/api/auth/signout`, {
+      method: "POST",
+      redirect: "manual",
+      headers: { origin: sibling(), cookie: world.clients.owner.cookie, "content-type": "application/x-www-form-urlencoded" },
+      body: "csrfToken=x",
+    });
     expect(signOut.status).toBe(403);
   });
 
@@ -81,7 +91,10 @@ describe("writes from another origin answer 403 and change nothing", () => {
   it("accepts the same writes from the app's own origin", async () => {
     const { dieId } = await freshCase(world.clients.owner, world.teamId);
     const t = await openThread(dieId);
-    const res = await world.clients.reviewer.request<Thread>("POST", `/api/threads/${t.id}/resolve`, undefined, { origin: base(), "sec-fetch-site": "same-origin" });
+    const res = await world.clients.reviewer.request<Thread>("POST", `/api/threads/${t.id}/resolve`, undefined, {
+      origin: base(),
+      "sec-fetch-site": "same-origin",
+    });
     expect(res.status).toBe(200);
     const up = await world.clients.owner.upload(`/api/dies/${dieId}/micrographs`, uploadForm(jpeg, "die.jpg"), { origin: base() });
     expect(up.status).toBe(202);

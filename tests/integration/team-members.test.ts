@@ -51,5 +51,4 @@ describe("team membership management by the owner", () => {
     expect((await owner.request("PATCH", `/api/teams/${teamId}/members/${ids.analyst}`, { role: "owner" })).status).toBe(200);
     expect((await owner.request("PATCH", `/api/teams/${teamId}/members/${ids.owner}`, { role: "reviewer" })).status).toBe(200);
   });
-
 });

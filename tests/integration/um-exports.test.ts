@@ -11,12 +11,25 @@ let dieId: string;
 beforeAll(async () => {
   world = await demoWorld();
   ({ dieId } = await freshCase(world.clients.owner, world.teamId, "Export decimals"));
-  const up = await world.clients.analyst.upload(`/api/dies/${dieId}/micrographs`, uploadForm(await makeJpeg(400, 300), "bf.jpg", { label: "bright field", scaleUmPerPx: "0.5" }));
+  const up = await world.clients.analyst.upload(
+    `/api/dies/${dieId}/micrographs`,
+    uploadForm(await makeJpeg(400, 300), "bf.jpg", { label: "bright field", scaleUmPerPx: "0.5" }),
+  );
   expect(up.status).toBe(202);
   // x carries 0.04 µm more than a 0.5 µm pixel resolves, y the float noise.
   const [x0, y0] = [27.039981, 26.999981];
-  const ring = [[x0, y0], [x0 + 80.000004, y0], [x0 + 80.000004, y0 + 79.99997], [x0, y0 + 79.99997], [x0, y0]];
-  const res = await world.clients.analyst.request("POST", `/api/dies/${dieId}/markup`, { kind: "pad", geometry: { type: "Polygon", coordinates: [ring] }, properties: { label: "VCC", net: "VCC", state: "unbonded" } });
+  const ring = [
+    [x0, y0],
+    [x0 + 80.000004, y0],
+    [x0 + 80.000004, y0 + 79.99997],
+    [x0, y0 + 79.99997],
+    [x0, y0],
+  ];
+  const res = await world.clients.analyst.request("POST", `/api/dies/${dieId}/markup`, {
+    kind: "pad",
+    geometry: { type: "Polygon", coordinates: [ring] },
+    properties: { label: "VCC", net: "VCC", state: "unbonded" },
+  });
   expect(res.status).toBe(201);
 });
 
@@ -35,6 +48,12 @@ describe("µm in exports", () => {
     const res = await world.clients.viewer.request<Fc | string>("GET", `/api/dies/${dieId}/markup.geojson`);
     expect(res.status).toBe(200);
     const fc = (typeof res.body === "string" ? JSON.parse(res.body) : res.body) as Fc;
-    expect(fc.features[0].geometry.coordinates[0]).toEqual([[27, 27], [107, 27], [107, 107], [27, 107], [27, 27]]);
+    expect(fc.features[0].geometry.coordinates[0]).toEqual([
+      [27, 27],
+      [107, 27],
+      [107, 107],
+      [27, 107],
+      [27, 27],
+    ]);
   });
 });

@@ -39,7 +39,11 @@ describe("dropped uploads", () => {
       port: u.port,
       method: "POST",
       path: `/api/dies/${dieId}/micrographs`,
-      headers: { cookie: world.clients.analyst.cookie, "content-type": `multipart/form-data; boundary=${boundary}`, "content-length": String(200 * 1024 * 1024) },
+      headers: {
+        cookie: world.clients.analyst.cookie,
+        "content-type": `multipart/form-data; boundary=${boundary}`,
+        "content-length": String(200 * 1024 * 1024),
+      },
     });
     req.on("error", () => {});
     req.write(head);

@@ -21,7 +21,11 @@ export async function uploadDemoMicrograph(client: ApiClient, dieId: string, loo
   const file = path.join(dir, `${look}.jpg`);
   try {
     const render = await renderDemoMicrograph(file, demoMicrographOptions(look, widthPx));
-    const form = uploadForm(await fs.readFile(file), `nv24r-${look}.jpg`, { illumination: look, label: `NV-24R ${look.replace("_", " ")}`, scaleUmPerPx: String(render.umPerPx) });
+    const form = uploadForm(await fs.readFile(file), `nv24r-${look}.jpg`, {
+      illumination: look,
+      label: `NV-24R ${look.replace("_", " ")}`,
+      scaleUmPerPx: String(render.umPerPx),
+    });
     const res = await client.upload<{ id: string; error?: string }>(`/api/dies/${dieId}/micrographs`, form);
     if (res.status !== 202) throw new Error(`upload failed: ${res.status} ${JSON.stringify(res.body)}`);
     await waitForStatus(client, res.body.id, "ready");

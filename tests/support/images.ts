@@ -12,7 +12,9 @@ export async function makeJpeg(width: number, height: number, quality = 85): Pro
 }
 
 export async function makePng(width: number, height: number): Promise<Buffer> {
-  return sharp({ create: { width, height, channels: 3, background: { r: 90, g: 110, b: 80 } }, limitInputPixels: false }).png().toBuffer();
+  return sharp({ create: { width, height, channels: 3, background: { r: 90, g: 110, b: 80 } }, limitInputPixels: false })
+    .png()
+    .toBuffer();
 }
 
 function pngChunk(type: string, body: Buffer): Buffer {

@@ -48,7 +48,10 @@ describe("editor commands", () => {
     expect(polygonOf(padCopy).coordinates[0][0]).toEqual([20 + dx, 760 + dy]);
     expect(padCopy.properties).toMatchObject({ label: "P1" });
     expect(bondCopy.properties).toMatchObject({ padId: padCopy.id });
-    expect(bondCopy.geometry.coordinates).toEqual([[60 + dx, 800 + dy], [-300 + dx, 800 + dy]]);
+    expect(bondCopy.geometry.coordinates).toEqual([
+      [60 + dx, 800 + dy],
+      [-300 + dx, 800 + dy],
+    ]);
     expect(t.commits).toHaveLength(1);
     expect(t.commits[0].every((c) => c.before === null)).toBe(true);
   });
@@ -182,7 +185,16 @@ describe("editor commands", () => {
 
 describe("read-only editor", () => {
   it("selects and pans but never changes or commits anything", () => {
-    const shapes = [vcc, bond, blockShape("lna", [[200, 200], [800, 200], [800, 600], [200, 600]])];
+    const shapes = [
+      vcc,
+      bond,
+      blockShape("lna", [
+        [200, 200],
+        [800, 200],
+        [800, 600],
+        [200, 600],
+      ]),
+    ];
     const t = setup({ shapes, canEdit: false });
     t.click(60, 820);
     expect(t.selected()).toEqual(["vcc"]);

@@ -18,7 +18,7 @@ function random(seed: number) {
   };
   return {
     int: (lo: number, hi: number) => lo + Math.floor(next() * (hi - lo + 1)),
-    pick: <T,>(items: readonly T[]): T | undefined => items[Math.floor(next() * items.length)],
+    pick: <T>(items: readonly T[]): T | undefined => items[Math.floor(next() * items.length)],
   };
 }
 type Rng = ReturnType<typeof random>;
@@ -26,7 +26,8 @@ type Rng = ReturnType<typeof random>;
 const model = (t: Kit) => [...t.state().shapes.values()].sort((a, b) => a.id.localeCompare(b.id));
 const point = (r: Rng): Position => [r.int(0, 240) * 10, r.int(0, 160) * 10];
 const centreOf = (s: AnyShape): Position => {
-  const [x, y] = s.geometry.type === "Point" ? s.geometry.coordinates : s.geometry.type === "Polygon" ? s.geometry.coordinates[0][0] : s.geometry.coordinates[0];
+  const [x, y] =
+    s.geometry.type === "Point" ? s.geometry.coordinates : s.geometry.type === "Polygon" ? s.geometry.coordinates[0][0] : s.geometry.coordinates[0];
   return s.geometry.type === "Polygon" ? [x + 5, y + 5] : [x, y];
 };
 
@@ -45,7 +46,12 @@ const actions: ((t: Kit, r: Rng) => void)[] = [
     t.key("Delete");
   },
   (t, r) => {
-    t.editor.select(t.state().shapeList.filter(() => r.int(0, 3) === 0).map((s) => s.id));
+    t.editor.select(
+      t
+        .state()
+        .shapeList.filter(() => r.int(0, 3) === 0)
+        .map((s) => s.id),
+    );
     t.key("d", { ctrl: true });
   },
   (t, r) => {
@@ -56,7 +62,12 @@ const actions: ((t: Kit, r: Rng) => void)[] = [
   (t, r) => {
     t.key("b");
     const [x, y] = point(r);
-    for (const p of [[x, y], [x + r.int(5, 50) * 10, y], [x, y + r.int(5, 50) * 10]] as Position[]) t.click(...p);
+    for (const p of [
+      [x, y],
+      [x + r.int(5, 50) * 10, y],
+      [x, y + r.int(5, 50) * 10],
+    ] as Position[])
+      t.click(...p);
     t.key("Enter");
   },
   (t, r) => {
@@ -110,7 +121,21 @@ describe("undo and redo", () => {
     const vcc = padShape("vcc", 60, 1200);
     const vee = padShape("vee", 60, 400);
     const t = setup({
-      shapes: [vcc, vee, bondShape("b1", vcc, [-300, 1200]), blockShape("lna", [[300, 300], [900, 300], [900, 700], [300, 700]]), traceShape("l1", [[1000, 1000], [1400, 1000]])],
+      shapes: [
+        vcc,
+        vee,
+        bondShape("b1", vcc, [-300, 1200]),
+        blockShape("lna", [
+          [300, 300],
+          [900, 300],
+          [900, 700],
+          [300, 700],
+        ]),
+        traceShape("l1", [
+          [1000, 1000],
+          [1400, 1000],
+        ]),
+      ],
     });
     // A mirror kept only from onCommit entries, as the persistence layer keeps the server: each
     // change's `before` must be what the mirror holds, and the mirror must end equal to the model.

@@ -62,12 +62,7 @@ function shapeSize(shape: AnyShape): number {
  * the block around it), then nearer, then the one drawn on top; a pad under the pointer before
  * the wire bonds attached to it.
  */
-export function hitsAt(
-  shapes: Iterable<AnyShape>,
-  p: Position,
-  toleranceUm: number,
-  accept: (shape: AnyShape) => boolean = () => true,
-): Hit[] {
+export function hitsAt(shapes: Iterable<AnyShape>, p: Position, toleranceUm: number, accept: (shape: AnyShape) => boolean = () => true): Hit[] {
   const hits: Hit[] = [];
   let order = 0;
   for (const shape of shapes) {
@@ -99,12 +94,7 @@ function padsBeforeTheirBonds(hits: Hit[]): Hit[] {
 }
 
 /** The best shape under the pointer, or null. */
-export function shapeAt(
-  shapes: Iterable<AnyShape>,
-  p: Position,
-  toleranceUm: number,
-  accept?: (shape: AnyShape) => boolean,
-): AnyShape | null {
+export function shapeAt(shapes: Iterable<AnyShape>, p: Position, toleranceUm: number, accept?: (shape: AnyShape) => boolean): AnyShape | null {
   return hitsAt(shapes, p, toleranceUm, accept)[0]?.shape ?? null;
 }
 

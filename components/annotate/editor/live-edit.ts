@@ -44,17 +44,29 @@ export function startLiveEdit(host: LiveEditHost): EditorLiveEdit {
     set(input) {
       if (!open) return;
       const current = host.shapes();
-      remember(current, input.map((s) => s.id));
+      remember(
+        current,
+        input.map((s) => s.id),
+      );
       // The server owns versions: a live shape keeps the version of its starting point, which
       // a server echo during the edit may have moved on (adopt).
       const shapes = input.map((s) => {
         const start = originals.get(s.id);
         return start && start.version !== s.version ? ({ ...s, version: start.version } as AnyShape) : s;
       });
-      let next = applyChanges(current, shapes.map((after) => ({ before: current.get(after.id) ?? null, after })));
+      let next = applyChanges(
+        current,
+        shapes.map((after) => ({ before: current.get(after.id) ?? null, after })),
+      );
       const bonds = followingBonds(next, shapes, host.now());
-      remember(next, bonds.map((b) => b.id));
-      next = applyChanges(next, bonds.map((after) => ({ before: null, after })));
+      remember(
+        next,
+        bonds.map((b) => b.id),
+      );
+      next = applyChanges(
+        next,
+        bonds.map((after) => ({ before: null, after })),
+      );
       host.write(next);
     },
     touches: (id) => originals.has(id),
@@ -71,7 +83,12 @@ export function startLiveEdit(host: LiveEditHost): EditorLiveEdit {
       if (!open) return;
       const current = host.shapes();
       const back = [...originals].map(([id, before]) => ({ before: current.get(id) ?? null, after: before }));
-      host.write(applyChanges(current, back.filter((c) => c.before !== null || c.after !== null)));
+      host.write(
+        applyChanges(
+          current,
+          back.filter((c) => c.before !== null || c.after !== null),
+        ),
+      );
       host.history.bail();
       finish();
     },

@@ -52,7 +52,11 @@ export const SHORTCUTS: readonly { readonly keys: readonly string[]; readonly de
   { keys: ["Ctrl+D", "Cmd+D"], description: "Duplicate the selection" },
   { keys: ["Arrow keys"], description: "Nudge the selection by 1 µm (10 µm with Shift); ↑ is +y" },
   { keys: ["Alt+click"], description: "Add a vertex on an edge, or remove the vertex clicked" },
-  { keys: ["Click again"], description: "At the same spot: select the next shape stacked there (a pad's wire bond, the block around it); Alt+click does the same where it edits no vertex" },
+  {
+    keys: ["Click again"],
+    description:
+      "At the same spot: select the next shape stacked there (a pad's wire bond, the block around it); Alt+click does the same where it edits no vertex",
+  },
   { keys: ["Shift+click"], description: "Add to or remove from the selection" },
   { keys: ["Enter"], description: "Finish the block, trace or ruler being drawn" },
   { keys: ["Escape"], description: "Cancel the drawing or drag in progress; otherwise clear the selection" },

@@ -3,7 +3,21 @@ import type { AnyShape } from "@/lib/markup/types";
 import { labelOf } from "./draw-markup";
 
 const ruler = (label: string): AnyShape =>
-  ({ id: "r", kind: "ruler", geometry: { type: "LineString", coordinates: [[10, 20], [40, 60]] }, properties: { label }, version: 1, createdBy: null, updatedAt: "2025-01-01T00:00:00.000Z" }) as AnyShape;
+  ({
+    id: "r",
+    kind: "ruler",
+    geometry: {
+      type: "LineString",
+      coordinates: [
+        [10, 20],
+        [40, 60],
+      ],
+    },
+    properties: { label },
+    version: 1,
+    createdBy: null,
+    updatedAt: "2025-01-01T00:00:00.000Z",
+  }) as AnyShape;
 
 describe("labelOf on the canvas", () => {
   it("shows a finished ruler's length in the decimals the micrograph's scale resolves", () => {

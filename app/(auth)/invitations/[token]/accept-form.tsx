@@ -12,7 +12,10 @@ export function AcceptForm({ token, needsAccount }: { token: string; needsAccoun
   if (state.ok && state.message) {
     return (
       <p role="status" className="text-sm text-ink-200">
-        {state.message} <Link href="/cases" className="text-kerf-300 underline">Open the cases</Link>
+        {state.message}{" "}
+        <Link href="/cases" className="text-kerf-300 underline">
+          Open the cases
+        </Link>
       </p>
     );
   }
@@ -31,7 +34,13 @@ export function AcceptForm({ token, needsAccount }: { token: string; needsAccoun
           </label>
         </>
       )}
-      <div aria-live="polite">{state.message && <p role="alert" className="text-sm text-danger-400">{state.message}</p>}</div>
+      <div aria-live="polite">
+        {state.message && (
+          <p role="alert" className="text-sm text-danger-400">
+            {state.message}
+          </p>
+        )}
+      </div>
       <button type="submit" disabled={pending} className="rounded-md bg-kerf-500 px-3 py-1.5 text-sm font-medium text-ink-950 hover:bg-kerf-400">
         {needsAccount ? "Join the team" : "Accept the invitation"}
       </button>

@@ -15,7 +15,11 @@ export type AcceptState = { ok: boolean; message?: string };
 export async function acceptInvitationAction(_prev: AcceptState, form: FormData): Promise<AcceptState> {
   const unsafe = formTextProblem(form);
   if (unsafe) return { ok: false, message: `Invalid form: ${unsafe}` };
-  const raw = { token: String(form.get("token") ?? ""), name: form.get("name") ? String(form.get("name")) : undefined, password: form.get("password") ? String(form.get("password")) : undefined };
+  const raw = {
+    token: String(form.get("token") ?? ""),
+    name: form.get("name") ? String(form.get("name")) : undefined,
+    password: form.get("password") ? String(form.get("password")) : undefined,
+  };
   const parsed = acceptInvitationSchema.safeParse(raw);
   if (!parsed.success) return { ok: false, message: parsed.error.issues.map((i) => `${i.path.join(".")}: ${i.message}`).join("; ") };
   let email: string;

@@ -49,7 +49,11 @@ export default async function InvitationPage({ params }: { params: Promise<{ tok
         <InvitationPrompt invitation={{ id: view.id, teamName: view.teamName, role: view.role, inviterName: view.inviterName }} />
       ) : view.accountExists ? (
         <p className="text-sm text-ink-200">
-          An account for this address exists. <Link href="/sign-in" className="text-kerf-300 underline">Sign in</Link> with it and you will be asked to join the team or decline.
+          An account for this address exists.{" "}
+          <Link href="/sign-in" className="text-kerf-300 underline">
+            Sign in
+          </Link>{" "}
+          with it and you will be asked to join the team or decline.
         </p>
       ) : (
         <AcceptForm token={token} needsAccount />

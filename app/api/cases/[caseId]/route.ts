@@ -9,9 +9,7 @@ const params = z.object({ caseId: uuidSchema });
 
 export const GET = apiRoute({ params }, ({ db, actor, params }) => getCase(db, actor, params.caseId));
 
-export const PATCH = apiRoute({ params, body: casePatchSchema }, ({ db, actor, params, body }) =>
-  updateCase(db, actor, params.caseId, body),
-);
+export const PATCH = apiRoute({ params, body: casePatchSchema }, ({ db, actor, params, body }) => updateCase(db, actor, params.caseId, body));
 
 export const DELETE = apiRoute({ params }, async ({ db, actor, params }) => {
   const { dieIds } = await deleteCase(db, actor, params.caseId);

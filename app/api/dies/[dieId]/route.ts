@@ -9,9 +9,7 @@ const params = z.object({ dieId: uuidSchema });
 
 export const GET = apiRoute({ params }, ({ db, actor, params }) => getDie(db, actor, params.dieId));
 
-export const PATCH = apiRoute({ params, body: diePatchSchema }, ({ db, actor, params, body }) =>
-  updateDie(db, actor, params.dieId, body),
-);
+export const PATCH = apiRoute({ params, body: diePatchSchema }, ({ db, actor, params, body }) => updateDie(db, actor, params.dieId, body));
 
 export const DELETE = apiRoute({ params }, async ({ db, actor, params }) => {
   await deleteDie(db, actor, params.dieId);

@@ -10,9 +10,7 @@ const params = z.object({ micrographId: uuidSchema });
 
 export const GET = apiRoute({ params }, ({ db, actor, params }) => getMicrograph(db, actor, params.micrographId));
 
-export const PATCH = apiRoute({ params, body: micrographPatchSchema }, ({ db, actor, params, body }) =>
-  updateMicrograph(db, actor, params.micrographId, body),
-);
+export const PATCH = apiRoute({ params, body: micrographPatchSchema }, ({ db, actor, params, body }) => updateMicrograph(db, actor, params.micrographId, body));
 
 /** Deletes the micrograph and then its files: original, pyramid, preview, thumbnail. */
 export const DELETE = apiRoute({ params }, async ({ db, actor, params }) => {

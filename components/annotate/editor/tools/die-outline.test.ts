@@ -36,7 +36,18 @@ describe("die outline tool", () => {
     t.drag([3, 4], [2397, 1597]);
     expect(t.state().confirmation).toEqual({
       kind: "die_outline",
-      geometry: { type: "Polygon", coordinates: [[[3, 4], [2397, 4], [2397, 1597], [3, 1597], [3, 4]]] },
+      geometry: {
+        type: "Polygon",
+        coordinates: [
+          [
+            [3, 4],
+            [2397, 4],
+            [2397, 1597],
+            [3, 1597],
+            [3, 4],
+          ],
+        ],
+      },
       replaces: false,
     });
     expect(t.state().toolPreview?.type).toBe("shape");
@@ -55,7 +66,14 @@ describe("die outline tool", () => {
 
   it("offers the host's undo step once its own history is used up (restoring the die frame)", () => {
     let restored = 0;
-    const editor = createEditor({ shapes: [outlineShape("outline")], canEdit: true, newId: () => "n1", now: () => TIME, userId: "analyst", undoBeyondHistory: () => restored++ });
+    const editor = createEditor({
+      shapes: [outlineShape("outline")],
+      canEdit: true,
+      newId: () => "n1",
+      now: () => TIME,
+      userId: "analyst",
+      undoBeyondHistory: () => restored++,
+    });
     // Reloaded after a re-framing: nothing in the history, yet Undo is offered.
     expect(editor.getState().canUndo).toBe(true);
     editor.nudge(10, 0);
@@ -68,7 +86,14 @@ describe("die outline tool", () => {
     expect(editor.getState().canUndo).toBe(false);
     editor.undo();
     expect(restored).toBe(1);
-    const readOnly = createEditor({ shapes: [padShape("p", 0, 0)], canEdit: false, newId: () => "n", now: () => TIME, userId: null, undoBeyondHistory: () => restored++ });
+    const readOnly = createEditor({
+      shapes: [padShape("p", 0, 0)],
+      canEdit: false,
+      newId: () => "n",
+      now: () => TIME,
+      userId: null,
+      undoBeyondHistory: () => restored++,
+    });
     expect(readOnly.getState().canUndo).toBe(false);
   });
 });

@@ -9,7 +9,11 @@ describe("trace tool", () => {
     t.click(300, 100);
     t.doubleClick(300, 250);
     const [trace] = t.ofKind("trace");
-    expect(trace.geometry.coordinates).toEqual([[100, 100], [300, 100], [300, 250]]);
+    expect(trace.geometry.coordinates).toEqual([
+      [100, 100],
+      [300, 100],
+      [300, 250],
+    ]);
     expect(trace.properties).toEqual({ widthUm: 5 });
     expect(t.selected()).toEqual([trace.id]);
     expect(t.commits).toHaveLength(1);
@@ -23,7 +27,10 @@ describe("trace tool", () => {
     expect(t.ofKind("trace")).toEqual([]);
     t.click(100, 400);
     t.key("Enter");
-    expect(t.ofKind("trace")[0].geometry.coordinates).toEqual([[100, 100], [100, 400]]);
+    expect(t.ofKind("trace")[0].geometry.coordinates).toEqual([
+      [100, 100],
+      [100, 400],
+    ]);
   });
 });
 
@@ -41,7 +48,10 @@ describe("ruler tool", () => {
     expect(t.state().toolPreview).toMatchObject({ lengthUm: 90 });
     t.key("Enter");
     const [ruler] = t.ofKind("ruler");
-    expect(ruler.geometry.coordinates).toEqual([[0, 0], [30, 40]]);
+    expect(ruler.geometry.coordinates).toEqual([
+      [0, 0],
+      [30, 40],
+    ]);
     expect(ruler.properties).toEqual({});
   });
 
@@ -50,9 +60,18 @@ describe("ruler tool", () => {
     t.editor.setTool("ruler");
     t.drag([0, 0], [300, 400]);
     // Hand-worked 3-4-5 triangle scaled by 100: 500 µm.
-    expect(t.state().toolPreview).toMatchObject({ points: [[0, 0], [300, 400]], lengthUm: 500 });
+    expect(t.state().toolPreview).toMatchObject({
+      points: [
+        [0, 0],
+        [300, 400],
+      ],
+      lengthUm: 500,
+    });
     t.doubleClick(300, 400);
-    expect(t.ofKind("ruler")[0].geometry.coordinates).toEqual([[0, 0], [300, 400]]);
+    expect(t.ofKind("ruler")[0].geometry.coordinates).toEqual([
+      [0, 0],
+      [300, 400],
+    ]);
   });
 });
 
@@ -63,7 +82,13 @@ describe("symmetry axis tool", () => {
     t.click(0, 800);
     t.click(2400, 800);
     const [axis] = t.ofKind("symmetry_axis");
-    expect(axis.geometry).toEqual({ type: "LineString", coordinates: [[0, 800], [2400, 800]] });
+    expect(axis.geometry).toEqual({
+      type: "LineString",
+      coordinates: [
+        [0, 800],
+        [2400, 800],
+      ],
+    });
     expect(axis.properties).toEqual({ name: "Axis 1" });
   });
 
@@ -105,6 +130,9 @@ describe("escape while drawing", () => {
     expect(t.ofKind("trace")).toEqual([]);
     expect(t.state().canRedo).toBe(true);
     t.editor.redo();
-    expect(t.ofKind("trace")[0].geometry.coordinates).toEqual([[0, 0], [0, 100]]);
+    expect(t.ofKind("trace")[0].geometry.coordinates).toEqual([
+      [0, 0],
+      [0, 100],
+    ]);
   });
 });

@@ -9,7 +9,13 @@ describe("wire bond tool", () => {
     t.drag([70, 810], [-300, 800]);
     const [bond] = t.ofKind("wire_bond");
     // Hand-worked: the pad spans 20…100 × 760…840, so its centre is (60, 800).
-    expect(bond.geometry).toEqual({ type: "LineString", coordinates: [[60, 800], [-300, 800]] });
+    expect(bond.geometry).toEqual({
+      type: "LineString",
+      coordinates: [
+        [60, 800],
+        [-300, 800],
+      ],
+    });
     expect(bond.properties).toEqual({ diameterUm: 25, padId: "vcc" });
     expect(t.selected()).toEqual([bond.id]);
     expect(t.state().activeTool).toBe("select");
@@ -30,7 +36,10 @@ describe("wire bond tool", () => {
     const t = setup({ shapes: [pad, bond] });
     t.drag([60, 820], [160, 720]);
     // Hand-worked: the pad moved by (+100, −100), so its centre is (160, 700).
-    expect(t.shape("b1")?.geometry.coordinates).toEqual([[160, 700], [-300, 800]]);
+    expect(t.shape("b1")?.geometry.coordinates).toEqual([
+      [160, 700],
+      [-300, 800],
+    ]);
     expect(t.commits).toHaveLength(1);
     expect(t.commits[0].map((c) => c.after?.id).sort()).toEqual(["b1", "vcc"]);
     t.editor.undo();
@@ -61,7 +70,10 @@ describe("wire bond tool", () => {
     t.click(-200, 800);
     expect(t.selected()).toEqual(["b1"]);
     t.drag([-200, 800], [-200, 900]);
-    expect(t.shape("b1")?.geometry.coordinates).toEqual([[60, 800], [-300, 900]]);
+    expect(t.shape("b1")?.geometry.coordinates).toEqual([
+      [60, 800],
+      [-300, 900],
+    ]);
   });
 
   it("moves its foot to another pad only with a message, one undo step putting it back", () => {

@@ -8,6 +8,4 @@ const params = z.object({ caseId: uuidSchema });
 
 export const GET = apiRoute({ params }, ({ db, actor, params }) => listDies(db, actor, params.caseId));
 
-export const POST = apiRoute({ params, body: dieInputSchema }, async ({ db, actor, params, body }) =>
-  created(await createDie(db, actor, params.caseId, body)),
-);
+export const POST = apiRoute({ params, body: dieInputSchema }, async ({ db, actor, params, body }) => created(await createDie(db, actor, params.caseId, body)));

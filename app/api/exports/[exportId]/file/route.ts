@@ -13,9 +13,13 @@ const params = z.object({ exportId: uuidSchema });
 /** The rendered PNG, streamed, named case-die-micrograph-date.png (409 while not done). */
 export const GET = apiRoute({ params }, async ({ db, actor, params }) => {
   const { row } = await loadExport(db, actor, params.exportId);
-  if (row.status !== "done") throw new ConflictError(row.status === "failed" ? `This export failed: ${row.error ?? "no reason given"}` : "This export is still being rendered.");
+  if (row.status !== "done")
+    throw new ConflictError(row.status === "failed" ? `This export failed: ${row.error ?? "no reason given"}` : "This export is still being rendered.");
   const file = exportFilePath(row.dieId, row.id);
-  const size = await fs.promises.stat(file).then((s) => s.size).catch(() => null);
+  const size = await fs.promises
+    .stat(file)
+    .then((s) => s.size)
+    .catch(() => null);
   if (size === null) throw new NotFoundError("That export's file");
   return new Response(Readable.toWeb(fs.createReadStream(file)) as ReadableStream, {
     headers: {

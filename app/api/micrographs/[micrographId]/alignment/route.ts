@@ -10,6 +10,4 @@ const params = z.object({ micrographId: uuidSchema });
 export const GET = apiRoute({ params }, ({ db, actor, params }) => getAlignment(db, actor, params.micrographId));
 
 /** Solves the control points and stores the transform (owner/analyst); 400 with the solver's reason. */
-export const PUT = apiRoute({ params, body: alignmentBodySchema }, ({ db, actor, params, body }) =>
-  saveAlignment(db, actor, params.micrographId, body),
-);
+export const PUT = apiRoute({ params, body: alignmentBodySchema }, ({ db, actor, params, body }) => saveAlignment(db, actor, params.micrographId, body));

@@ -61,7 +61,14 @@ export function selectIdle(ctx: EditorContext): ToolState {
       // unselected shape lies on top of it (a pad inside a selected block).
       const selection = ctx.selection();
       const onSelection = hits.some((h) => selection.has(h.shape.id));
-      ctx.transition(pointingShape(ctx, hits.map((h) => h.shape), onSelection, e));
+      ctx.transition(
+        pointingShape(
+          ctx,
+          hits.map((h) => h.shape),
+          onSelection,
+          e,
+        ),
+      );
     },
   };
 }

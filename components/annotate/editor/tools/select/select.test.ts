@@ -1,10 +1,23 @@
 import { describe, expect, it } from "vitest";
 import { blockShape, outlineShape, padShape, polygonOf, setup, traceShape } from "../../editor-test-kit";
 
-const lnaBlock = blockShape("lna", [[200, 200], [800, 200], [800, 600], [200, 600]]);
+const lnaBlock = blockShape("lna", [
+  [200, 200],
+  [800, 200],
+  [800, 600],
+  [200, 600],
+]);
 const vb1 = padShape("vb1", 400, 400);
 const vb2 = padShape("vb2", 1400, 400);
-const spiral = traceShape("spiral", [[1000, 1000], [1200, 1000], [1200, 1200]], 10);
+const spiral = traceShape(
+  "spiral",
+  [
+    [1000, 1000],
+    [1200, 1000],
+    [1200, 1200],
+  ],
+  10,
+);
 
 describe("select tool: clicking", () => {
   it("selects the smaller of two shapes under the pointer", () => {

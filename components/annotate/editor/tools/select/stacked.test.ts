@@ -6,7 +6,16 @@ import { blockShape, bondShape, outlineShape, padShape, setup } from "../../edit
 const vcc = padShape("vcc", 60, 800);
 const vee = padShape("vee", 60, 680);
 const bond = bondShape("b1", vcc, [-300, 800]);
-const block = blockShape("io", [[0, 600], [200, 600], [200, 900], [0, 900]], "Input");
+const block = blockShape(
+  "io",
+  [
+    [0, 600],
+    [200, 600],
+    [200, 900],
+    [0, 900],
+  ],
+  "Input",
+);
 
 describe("select tool: shapes stacked under the pointer", () => {
   it("selects the pad, not its bond's foot, on a click at the pad's centre", () => {
@@ -22,8 +31,21 @@ describe("select tool: shapes stacked under the pointer", () => {
     const t = setup({ shapes: [vcc, vee, bond, block] });
     t.drag([60, 800], [60, 690]);
     // Hand-worked: the pad moved by (0, −110) to centre (60, 690), overlapping VEE's centre row.
-    expect(t.shape("vcc")?.geometry).toMatchObject({ coordinates: [[[20, 650], [100, 650], [100, 730], [20, 730], [20, 650]]] });
-    expect(t.shape("b1")?.geometry.coordinates).toEqual([[60, 690], [-300, 800]]);
+    expect(t.shape("vcc")?.geometry).toMatchObject({
+      coordinates: [
+        [
+          [20, 650],
+          [100, 650],
+          [100, 730],
+          [20, 730],
+          [20, 650],
+        ],
+      ],
+    });
+    expect(t.shape("b1")?.geometry.coordinates).toEqual([
+      [60, 690],
+      [-300, 800],
+    ]);
     expect(t.shape("b1")?.properties.padId).toBe("vcc");
     expect(t.state().notice).toBeNull();
   });

@@ -7,6 +7,4 @@ import { alignmentBodySchema } from "@/lib/validation/alignment";
 const params = z.object({ micrographId: uuidSchema });
 
 /** Dry run of PUT …/alignment: the same answer, nothing stored. */
-export const POST = apiRoute({ params, body: alignmentBodySchema }, ({ db, actor, params, body }) =>
-  previewAlignment(db, actor, params.micrographId, body),
-);
+export const POST = apiRoute({ params, body: alignmentBodySchema }, ({ db, actor, params, body }) => previewAlignment(db, actor, params.micrographId, body));

@@ -20,7 +20,7 @@ export default defineConfig({
         resolve: { alias },
         test: {
           name: "unit",
-          include: ["lib/**/*.test.ts", "db/**/*.test.ts", "server/**/*.test.ts", "components/**/*.test.ts"],
+          include: ["lib/**/*.test.ts", "db/**/*.test.ts", "server/**/*.test.ts", "components/**/*.test.ts", "tests/lint/**/*.test.ts"],
           environment: "node",
           testTimeout: 60_000,
         },

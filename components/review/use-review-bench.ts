@@ -85,13 +85,24 @@ export function useReviewBench(
   useEffect(() => {
     const id = linked.current;
     if (!id || !api || !transform || !state || !list.some((t) => t.id === id)) return;
-    // Let the viewer settle on its first view before flying; cleared if the user chooses first.
-    const timer = setTimeout(() => {
-      if (linked.current !== id) return;
-      linked.current = null;
-      show(id);
-    }, 300);
-    return () => clearTimeout(timer);
+    const viewer = api.viewer;
+    let timer: ReturnType<typeof setTimeout> | undefined;
+    // Fly only once the image is open: OpenSeadragon sets its home view when it opens the
+    // first image, which would undo an earlier flight (seen on a busy machine, where opening
+    // took longer than any fixed wait). Cleared if the user chooses first.
+    const fly = () => {
+      timer = setTimeout(() => {
+        if (linked.current !== id) return;
+        linked.current = null;
+        show(id);
+      }, 50);
+    };
+    if (viewer.world.getItemCount() > 0) fly();
+    else viewer.addOnceHandler("open", fly);
+    return () => {
+      clearTimeout(timer);
+      viewer.removeHandler("open", fly);
+    };
   }, [api, transform, state, list, show]);
 
   return { threads, list, selectedId, select, drawer, linkedAtStart: linkedThreadId !== null };

@@ -1,4 +1,4 @@
-import { expect, type Page } from "@playwright/test";
+import { expect, type Browser, type BrowserContext, type Page } from "@playwright/test";
 
 const PASSWORD = "fjordlight-demo";
 
@@ -28,4 +28,18 @@ export async function waitForStillView(page: Page, timeout = 30_000) {
     await page.waitForTimeout(300);
     expect(await idle()).toBe(true);
   }).toPass({ timeout, intervals: [100, 200, 300] });
+}
+
+/**
+ * Closes the browser contexts a test opened for other people (`browser.newContext()`), which
+ * Playwright leaves open for the rest of the worker: each is a live app page that keeps polling,
+ * and a dozen of them slow every later test. Use as `test.afterEach(closeExtraContexts)`.
+ */
+export async function closeExtraContexts({ browser, context }: { browser: Browser; context: BrowserContext }) {
+  await Promise.all(
+    browser
+      .contexts()
+      .filter((c) => c !== context)
+      .map((c) => c.close()),
+  );
 }

@@ -5,6 +5,11 @@ import path from "node:path";
 import { signInAs, waitForStillView } from "./helpers";
 import { demoMicrographOptions, renderDemoMicrograph } from "../../server/images/demo-die";
 
+// Each repetition of the suite on one server (--repeat-each) uploads a micrograph of its own.
+const uploadLabel = () => `E2E upload 6000 px, run ${test.info().repeatEachIndex + 1}`;
+const uploadedItem = (page: import("@playwright/test").Page) =>
+  page.getByRole("list", { name: "Micrographs" }).getByRole("button", { name: new RegExp(`${uploadLabel()}\\b`) });
+
 // The analyst uploads a rendered demo micrograph through the form, watches the upload and
 // tiling progress, opens it, zooms, and the scale bar keeps a round length that matches the zoom.
 test("the analyst uploads a micrograph, sees both progress bars, zooms, and the scale bar is right", async ({ page }) => {
@@ -25,7 +30,7 @@ test("the analyst uploads a micrograph, sees both progress bars, zooms, and the 
   await page.getByRole("button", { name: "Upload micrograph" }).click();
   const dialog = page.getByRole("dialog", { name: "Upload a micrograph" });
   await dialog.getByLabel(/Micrograph file/).setInputFiles(file);
-  await dialog.getByLabel("Label").fill("E2E upload 6000 px");
+  await dialog.getByLabel("Label").fill(uploadLabel());
   await dialog.getByLabel("Objective magnification").fill("10");
   await dialog.getByLabel("Numerical aperture").fill("0.3");
   // 0.5 µm/px: this rendering is 6000 px wide, half the size of the seeded ones.
@@ -35,7 +40,7 @@ test("the analyst uploads a micrograph, sees both progress bars, zooms, and the 
   await expect(dialog).toBeHidden({ timeout: 60_000 });
   await cdp.send("Network.emulateNetworkConditions", { offline: false, latency: 0, downloadThroughput: -1, uploadThroughput: -1 });
 
-  const item = page.getByRole("list", { name: "Micrographs" }).getByRole("button", { name: /E2E upload 6000 px/ });
+  const item = uploadedItem(page);
   await expect(item.getByRole("progressbar", { name: /Tiling progress/ })).toBeVisible();
   await expect(item.getByText("Ready")).toBeVisible({ timeout: 90_000 });
   await item.click();
@@ -86,7 +91,7 @@ test("the analyst recalibrates a micrograph from two clicks and a known length; 
   await page.getByRole("link", { name: "NV-24R receiver teardown" }).click();
   await page.getByRole("link", { name: "NV-24R die A" }).click();
   await page.getByRole("tab", { name: "Die & micrographs" }).click();
-  const item = page.getByRole("list", { name: "Micrographs" }).getByRole("button", { name: /E2E upload 6000 px/ });
+  const item = uploadedItem(page);
   await item.click();
   const viewer = page.getByRole("application", { name: "Micrograph viewer" });
   await expect(viewer).toBeVisible();

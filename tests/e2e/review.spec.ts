@@ -1,5 +1,5 @@
 import { expect, test, type Browser, type Page } from "@playwright/test";
-import { signInAs, waitForStillView } from "./helpers";
+import { closeExtraContexts, signInAs, waitForStillView } from "./helpers";
 import { NV24R_LAYOUT, padByLabel } from "../../lib/demo-die/layout";
 import { demoMicrographOptions } from "../../server/images/demo-die";
 import { placeDie, pxPerUmForWidth } from "../../lib/demo-die/placement";
@@ -47,6 +47,8 @@ async function readMail(owner: Page, subject: RegExp, to: string): Promise<strin
 }
 
 test.describe.serial("review of the demo die", () => {
+  test.afterEach(closeExtraContexts);
+
   test("thread with a mention, mail, deep link, reply, resolve, submit and approve", async ({ browser }) => {
     // Four signed-in people and the first tiling of the demo micrographs share two cores.
     test.setTimeout(180_000);
@@ -121,17 +123,32 @@ test.describe.serial("review of the demo die", () => {
     await reviewer.getByRole("button", { name: "Resolve thread" }).click();
     await expect(reviewer.getByText(/Resolved by Demo Reviewer/)).toBeVisible();
 
-    // Analyst submits, reviewer approves.
+    // Back to the list: the review status is there again.
     await analyst.getByRole("button", { name: "← All threads" }).click();
+    await expect(analyst.getByRole("region", { name: "Review status" }).getByLabel("Message")).toBeVisible();
+
+    // Analyst submits, reviewer approves — on a die of this run's own, since an approved die
+    // stays approved and a repeated run (--repeat-each) on the same server must start afresh.
+    const caseId = await analyst.evaluate(async (id) => ((await (await fetch(`/api/dies/${id}`)).json()) as { caseId: string }).caseId, dieId);
+    const freshId = await analyst.evaluate(
+      async ({ caseId, name }) => {
+        const r = await fetch(`/api/cases/${caseId}/dies`, { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify({ name }) });
+        return ((await r.json()) as { id: string }).id;
+      },
+      { caseId, name: `NV-24R die for review ${Date.now()}` },
+    );
+    await analyst.goto(`/dies/${freshId}`);
+    await analyst.getByRole("tab", { name: "Review" }).click();
     await analyst.getByRole("region", { name: "Review status" }).getByLabel("Message").fill("Pad map complete.");
     await analyst.getByRole("button", { name: "Submit for review" }).click();
     await expect(analyst.getByRole("region", { name: "Review status" }).getByText("In review").first()).toBeVisible();
-    await reviewer.reload();
+    await reviewer.goto(`/dies/${freshId}`);
     await reviewer.getByRole("tab", { name: "Review" }).click();
-    await reviewer.getByRole("button", { name: "← All threads" }).click();
     await reviewer.getByRole("region", { name: "Review status" }).getByLabel("Message").fill("Checked against the bond diagram.");
     await reviewer.getByRole("button", { name: "Approve" }).click();
     await expect(reviewer.getByRole("list", { name: "Review history" }).getByText("Approved")).toBeVisible();
+    // Leave the demo case as it was for the tests after this one.
+    expect(await analyst.evaluate(async (id) => (await fetch(`/api/dies/${id}`, { method: "DELETE" })).status, freshId)).toBe(204);
   });
 
   test("the owner invites a new reviewer, who joins through the mailed link and comments", async ({ browser }) => {

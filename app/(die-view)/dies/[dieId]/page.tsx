@@ -1,6 +1,6 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
-import { DieBench } from "@/components/bench/die-bench";
+import { DieBench } from "@/components/die-view/die-bench";
 import { loadPage } from "@/server/http/page";
 import { getDie } from "@/server/access/dies";
 import { uuidSchema } from "@/lib/validation/common";

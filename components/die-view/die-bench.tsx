@@ -5,6 +5,7 @@ import { InboxLink } from "@/components/account/inbox-link";
 import { useRouter } from "next/navigation";
 import { useMemo, useState } from "react";
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
+import { queryKeys } from "@/lib/client/query-keys";
 import type { DieDto } from "@/lib/dto/dies";
 import { apiFetch } from "@/lib/client/api";
 import { can } from "@/lib/auth/permissions";
@@ -57,7 +58,7 @@ export function DieBench({ initial, userId, linkedThreadId = null }: { initial: 
   // Aligning or comparing replaces the single view; markup then edits on the top micrograph.
   const [work, setWork] = useWorkModeInUrl();
   const compareTop = work.kind === "compare" ? (list.find((m) => m.id === work.topId) ?? null) : null;
-  const die = useQuery({ queryKey: ["die", initial.id], queryFn: () => apiFetch<DieDto>(`/api/dies/${initial.id}`), initialData: initial }).data;
+  const die = useQuery({ queryKey: queryKeys.die(initial.id), queryFn: () => apiFetch<DieDto>(`/api/dies/${initial.id}`), initialData: initial }).data;
   const editable = can(die.yourRole, "edit");
   const [viewerApi, setApi] = useState<ViewerApi | null>(null);
   // A viewer destroyed by a change of work area (single view ↔ alignment or comparison) until
@@ -77,7 +78,7 @@ export function DieBench({ initial, userId, linkedThreadId = null }: { initial: 
   useUnsavedGuard(!!state?.drawing || save.status === "saving");
   const update = useMutation({
     mutationFn: (body: unknown) => apiFetch<DieDto>(`/api/dies/${die.id}`, { method: "PATCH", body }),
-    onSuccess: (d) => qc.setQueryData(["die", die.id], d),
+    onSuccess: (d) => qc.setQueryData(queryKeys.die(die.id), d),
   });
   return (
     <>
@@ -116,7 +117,7 @@ export function DieBench({ initial, userId, linkedThreadId = null }: { initial: 
               work={work}
               items={list}
               onWork={setWork}
-              onAligned={() => qc.invalidateQueries({ queryKey: ["micrographs", die.id] })}
+              onAligned={() => qc.invalidateQueries({ queryKey: queryKeys.micrographs(die.id) })}
               onTopViewer={setApi}
               overlay={(a, t) =>
                 editor && state ? (
@@ -270,7 +271,7 @@ export function DieBench({ initial, userId, linkedThreadId = null }: { initial: 
                             editable
                               ? async (id) => {
                                   await apiFetch(`/api/micrographs/${id}/retry`, { method: "POST" });
-                                  await qc.invalidateQueries({ queryKey: ["micrographs", die.id] });
+                                  await qc.invalidateQueries({ queryKey: queryKeys.micrographs(die.id) });
                                 }
                               : undefined
                           }
@@ -292,7 +293,7 @@ export function DieBench({ initial, userId, linkedThreadId = null }: { initial: 
           dieId={die.id}
           onCancel={() => setDialog(null)}
           onUploaded={async (m) => {
-            await qc.invalidateQueries({ queryKey: ["micrographs", die.id] });
+            await qc.invalidateQueries({ queryKey: queryKeys.micrographs(die.id) });
             setSelectedId(m.id);
             setDialog(null);
           }}
@@ -317,8 +318,8 @@ export function DieBench({ initial, userId, linkedThreadId = null }: { initial: 
         onClose={() => setDialog(null)}
         onConfirm={async () => {
           await apiFetch(`/api/dies/${die.id}`, { method: "DELETE" });
-          await qc.invalidateQueries({ queryKey: ["dies", die.caseId] });
-          await qc.invalidateQueries({ queryKey: ["cases"] });
+          await qc.invalidateQueries({ queryKey: queryKeys.dies(die.caseId) });
+          await qc.invalidateQueries({ queryKey: queryKeys.cases() });
           router.push(`/cases/${die.caseId}`);
         }}
       />

@@ -2,15 +2,14 @@
 
 import Link from "next/link";
 import { useQuery } from "@tanstack/react-query";
+import { queryKeys } from "@/lib/client/query-keys";
 import { apiFetch } from "@/lib/client/api";
 import type { InboxItemDto } from "@/lib/dto/inbox";
-
-export const INBOX_QUERY_KEY = ["me", "inbox"] as const;
 
 /** Reads the caller's inbox; shared by the top bar's count and the inbox page. */
 export function useInbox(initial?: InboxItemDto[]) {
   return useQuery({
-    queryKey: INBOX_QUERY_KEY,
+    queryKey: queryKeys.inbox(),
     queryFn: () => apiFetch<{ items: InboxItemDto[] }>("/api/me/inbox").then((r) => r.items),
     initialData: initial,
     // New mentions show up without a reload; a hidden tab does not poll.

@@ -4,7 +4,8 @@ import { useState } from "react";
 import { useQueryClient } from "@tanstack/react-query";
 import { apiFetch } from "@/lib/client/api";
 import type { InboxItemDto } from "@/lib/dto/inbox";
-import { INBOX_QUERY_KEY, useInbox } from "./inbox-link";
+import { useInbox } from "./inbox-link";
+import { queryKeys } from "@/lib/client/query-keys";
 
 const KIND_LABELS: Record<InboxItemDto["kind"], string> = {
   mention: "Mention",
@@ -29,7 +30,7 @@ export function InboxView({ initial }: { initial: InboxItemDto[] }) {
     if (item.readAt) return;
     try {
       const read = await apiFetch<InboxItemDto>(`/api/me/inbox/${item.id}/read`, { method: "POST" });
-      queryClient.setQueryData<InboxItemDto[]>(INBOX_QUERY_KEY, (old) => old?.map((i) => (i.id === read.id ? read : i)));
+      queryClient.setQueryData<InboxItemDto[]>(queryKeys.inbox(), (old) => old?.map((i) => (i.id === read.id ? read : i)));
       setError(null);
     } catch (e) {
       setError(e instanceof Error ? e.message : String(e));

@@ -2,6 +2,7 @@
 
 import { useCallback, useEffect, useMemo, useState } from "react";
 import { useQuery } from "@tanstack/react-query";
+import { queryKeys } from "@/lib/client/query-keys";
 import { applyAffine, invertAffine } from "@/lib/geometry/affine";
 import { boundingBox } from "@/lib/geometry/measure";
 import type { Affine2x3 } from "@/lib/geometry/types";
@@ -12,6 +13,7 @@ import { apiFetch } from "@/lib/client/api";
 import type { ViewerApi } from "@/components/viewer";
 import type { Editor, EditorState } from "./editor/types";
 import { isTypingTarget } from "@/components/viewer/viewer-keys";
+import { useThreadList } from "@/components/review/use-threads";
 
 /** Shared state of the markup workspace: visibility, labels, picking (select + fly to). */
 export function useMarkupWorkspace(
@@ -25,10 +27,7 @@ export function useMarkupWorkspace(
   const [hiddenKinds, setHidden] = useState<ReadonlySet<MarkupKind>>(new Set());
   const [labels, setLabels] = useState(true);
   const [hiddenReview, setHiddenReview] = useState<ReadonlySet<ShapeReviewState>>(new Set());
-  const threads = useQuery({
-    queryKey: ["threads", dieId],
-    queryFn: () => apiFetch<{ shapeId: string | null; status: "open" | "resolved" }[]>(`/api/dies/${dieId}/threads`),
-  });
+  const threads = useThreadList(dieId);
   const states = useMemo(() => reviewStates(threads.data ?? []), [threads.data]);
   const isHidden = useCallback((s: AnyShape) => hiddenReview.size > 0 && hiddenReview.has(states.get(s.id) ?? "none"), [hiddenReview, states]);
   const toggleReview = useCallback((r: ShapeReviewState) => {
@@ -39,7 +38,7 @@ export function useMarkupWorkspace(
       return next;
     });
   }, []);
-  const members = useQuery({ queryKey: ["members", teamId], queryFn: () => apiFetch<MemberDto[]>(`/api/teams/${teamId}/members`) });
+  const members = useQuery({ queryKey: queryKeys.members(teamId), queryFn: () => apiFetch<MemberDto[]>(`/api/teams/${teamId}/members`) });
   const authors = useMemo(() => Object.fromEntries((members.data ?? []).map((m) => [m.userId, m.name])), [members.data]);
 
   const toggleKind = useCallback((k: MarkupKind) => {

@@ -2,6 +2,7 @@
 
 import { useMemo } from "react";
 import { useQuery } from "@tanstack/react-query";
+import { queryKeys } from "@/lib/client/query-keys";
 import type { ColumnDef } from "@tanstack/react-table";
 import type { PadRow, PadTable } from "@/lib/pads/types";
 import { apiFetch } from "@/lib/client/api";
@@ -24,7 +25,11 @@ export function PadTablePanel({
   umPerPx?: number | null;
 }) {
   const num = useMemo(() => (v: number | null) => (v === null ? "—" : formatUm(v, umPerPx)), [umPerPx]);
-  const pads = useQuery({ queryKey: ["pads", dieId], queryFn: () => apiFetch<PadTable & { outlineSource: string }>(`/api/dies/${dieId}/pads`), retry: false });
+  const pads = useQuery({
+    queryKey: queryKeys.pads(dieId),
+    queryFn: () => apiFetch<PadTable & { outlineSource: string }>(`/api/dies/${dieId}/pads`),
+    retry: false,
+  });
   const columns = useMemo<ColumnDef<PadRow, unknown>[]>(
     () => [
       { accessorKey: "number", header: "#" },

@@ -2,6 +2,7 @@
 
 import { useEffect, useRef, useState, useSyncExternalStore } from "react";
 import { useQueryClient } from "@tanstack/react-query";
+import { queryKeys } from "@/lib/client/query-keys";
 import type { AnyShape } from "@/lib/markup/types";
 import { apiFetch } from "@/lib/client/api";
 import { createEditor } from "./editor/editor";
@@ -40,9 +41,9 @@ export function useMarkupEditor(dieId: string, canEdit: boolean, userId: string 
     let unsubscribe = () => {};
     const reloadFrame = async () => {
       await Promise.all([
-        qc.invalidateQueries({ queryKey: ["micrographs", dieId] }),
-        qc.invalidateQueries({ queryKey: ["die", dieId] }),
-        qc.invalidateQueries({ queryKey: ["pads", dieId] }),
+        qc.invalidateQueries({ queryKey: queryKeys.micrographs(dieId) }),
+        qc.invalidateQueries({ queryKey: queryKeys.die(dieId) }),
+        qc.invalidateQueries({ queryKey: queryKeys.pads(dieId) }),
       ]);
       setGeneration((g) => g + 1);
     };
@@ -81,7 +82,7 @@ export function useMarkupEditor(dieId: string, canEdit: boolean, userId: string 
               const { saved } = await persistEntry(dieId, entry, versions);
               for (const s of saved) ed.applyServerShape(s);
               setSave({ status: "saved" });
-              void qc.invalidateQueries({ queryKey: ["pads", dieId] });
+              void qc.invalidateQueries({ queryKey: queryKeys.pads(dieId) });
               // A die outline re-frames the die on the server (origin, size): reload what moved.
               if (reframe) {
                 frameUndo.current = reframe;

@@ -2,6 +2,7 @@
 
 import { useState } from "react";
 import { useQueryClient } from "@tanstack/react-query";
+import { queryKeys } from "@/lib/client/query-keys";
 import type { MicrographDto } from "@/lib/dto/micrographs";
 import { apiFetch } from "@/lib/client/api";
 import { Button } from "@/components/ui/button";
@@ -23,7 +24,7 @@ export function MicrographsManager({ dieId, items, editable, onWork }: Props) {
   const [pick, setPick] = useState<{ top?: string; bottom?: string }>({});
   const top = pick.top ?? aligned[0]?.id;
   const bottom = pick.bottom ?? aligned.find((m) => m.id !== top)?.id;
-  const refresh = () => qc.invalidateQueries({ queryKey: ["micrographs", dieId] });
+  const refresh = () => qc.invalidateQueries({ queryKey: queryKeys.micrographs(dieId) });
   const run = async (f: () => Promise<unknown>) => {
     setError(null);
     try {

@@ -3,6 +3,7 @@
 import { useEffect, useState } from "react";
 import { useSearchParams } from "next/navigation";
 import { useQuery } from "@tanstack/react-query";
+import { queryKeys } from "@/lib/client/query-keys";
 import type { AlignmentDto } from "@/lib/dto/alignment";
 import { apiFetch } from "@/lib/client/api";
 import { applyAffine, invertAffine } from "@/lib/geometry/affine";
@@ -21,7 +22,7 @@ export type Solve = { transform: Affine2x3; residualsUm: number[]; rmsUm: number
  * each pair come from the aligned micrograph's transform.
  */
 export function useAlignmentSession(movingId: string, fixedToDie: Affine2x3) {
-  const stored = useQuery({ queryKey: ["alignment", movingId], queryFn: () => apiFetch<AlignmentDto>(`/api/micrographs/${movingId}/alignment`) });
+  const stored = useQuery({ queryKey: queryKeys.alignment(movingId), queryFn: () => apiFetch<AlignmentDto>(`/api/micrographs/${movingId}/alignment`) });
   // A session kept in the URL (reload, Back then Forward) wins over the stored control points.
   const params = useSearchParams();
   const [fromUrl] = useState(() => sessionFromParams(new URLSearchParams(params.toString())));

@@ -2,6 +2,7 @@
 
 import { useMemo, useState } from "react";
 import { useQuery } from "@tanstack/react-query";
+import { queryKeys } from "@/lib/client/query-keys";
 import type { DieDto } from "@/lib/dto/dies";
 import type { PadTable } from "@/lib/pads/types";
 import type { AnyShape } from "@/lib/markup/types";
@@ -115,7 +116,7 @@ export function DieSummaryPanel({
   umPerPx?: number | null;
 }) {
   const pads = useQuery({
-    queryKey: ["pads", die.id],
+    queryKey: queryKeys.pads(die.id),
     queryFn: () => apiFetch<PadTable & { outlineSource: string }>(`/api/dies/${die.id}/pads`),
     retry: false,
   });

@@ -1,6 +1,7 @@
 "use client";
 
 import { useInfiniteQuery } from "@tanstack/react-query";
+import { queryKeys } from "@/lib/client/query-keys";
 import { apiFetch } from "@/lib/client/api";
 import { Button } from "@/components/ui/button";
 import type { ActivityItem } from "@/lib/dto/activity";
@@ -25,7 +26,7 @@ const WORDS: Record<string, string> = {
 /** The die's activity from the audit trail, newest first, a page at a time. */
 export function ActivityList({ dieId }: { dieId: string }) {
   const q = useInfiniteQuery({
-    queryKey: ["activity", dieId],
+    queryKey: queryKeys.activity(dieId),
     queryFn: ({ pageParam }) =>
       apiFetch<{ items: ActivityItem[]; nextBefore: string | null }>(
         `/api/dies/${dieId}/activity?limit=20${pageParam ? `&before=${encodeURIComponent(pageParam)}` : ""}`,

@@ -2,6 +2,7 @@
 
 import { useState } from "react";
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
+import { queryKeys } from "@/lib/client/query-keys";
 import { apiFetch } from "@/lib/client/api";
 import { ROLES, ROLE_LABELS, type TeamRole } from "@/lib/auth/permissions";
 import { Button } from "@/components/ui/button";
@@ -14,9 +15,13 @@ export function InvitationsSection({ teamId }: { teamId: string }) {
   const [email, setEmail] = useState("");
   const [role, setRole] = useState<TeamRole>("reviewer");
   const [message, setMessage] = useState<string | null>(null);
-  const key = ["invitations", teamId];
+  const key = queryKeys.invitations(teamId);
   const pending = useQuery({ queryKey: key, queryFn: () => apiFetch<InvitationDto[]>(`/api/teams/${teamId}/invitations`) });
-  const outbox = useQuery({ queryKey: ["outbox", teamId], queryFn: () => apiFetch<OutboxItemDto[]>(`/api/teams/${teamId}/outbox`), refetchInterval: 10_000 });
+  const outbox = useQuery({
+    queryKey: queryKeys.outbox(teamId),
+    queryFn: () => apiFetch<OutboxItemDto[]>(`/api/teams/${teamId}/outbox`),
+    refetchInterval: 10_000,
+  });
   const invite = useMutation({
     mutationFn: () => apiFetch<InvitationDto>(`/api/teams/${teamId}/invitations`, { method: "POST", body: { email, role } }),
     onSuccess: (inv) => {

@@ -2,6 +2,7 @@
 
 import { useState } from "react";
 import { useQuery } from "@tanstack/react-query";
+import { queryKeys } from "@/lib/client/query-keys";
 import { apiFetch } from "@/lib/client/api";
 import type { MailboxEntry, StoredMessage } from "@/lib/dto/mailbox";
 import type { OutboxItemDto } from "@/lib/dto/outbox";
@@ -11,7 +12,7 @@ import { CommentBody } from "./comment-body";
 export function MailboxView({ messages, problems }: { messages: MailboxEntry[]; problems: OutboxItemDto[] }) {
   const [openId, setOpenId] = useState<string | null>(null);
   const [showHtml, setShowHtml] = useState(false);
-  const open = useQuery({ queryKey: ["mail", openId], queryFn: () => apiFetch<StoredMessage>(`/api/mailbox/${openId}`), enabled: !!openId });
+  const open = useQuery({ queryKey: queryKeys.mail(openId), queryFn: () => apiFetch<StoredMessage>(`/api/mailbox/${openId}`), enabled: !!openId });
   return (
     <div className="flex flex-col gap-4">
       <h1 className="text-xl font-semibold">Mailbox</h1>

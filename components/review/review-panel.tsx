@@ -2,6 +2,7 @@
 
 import { useMemo, useState } from "react";
 import { useQuery } from "@tanstack/react-query";
+import { queryKeys } from "@/lib/client/query-keys";
 import { apiFetch } from "@/lib/client/api";
 import { can } from "@/lib/auth/permissions";
 import { boundingBox } from "@/lib/geometry/measure";
@@ -57,7 +58,7 @@ export function ReviewPanel({
 }) {
   const [filter, setFilter] = useState<Filter>("all");
   const [starting, setStarting] = useState<null | "shape" | "region">(null);
-  const members = useQuery({ queryKey: ["members", die.teamId], queryFn: () => apiFetch<MemberDto[]>(`/api/teams/${die.teamId}/members`) }).data ?? [];
+  const members = useQuery({ queryKey: queryKeys.members(die.teamId), queryFn: () => apiFetch<MemberDto[]>(`/api/teams/${die.teamId}/members`) }).data ?? [];
   const canComment = can(die.yourRole, "comment");
   const selection = [...(state?.selection ?? [])];
   const list = review.list;

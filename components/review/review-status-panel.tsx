@@ -2,6 +2,7 @@
 
 import { useState } from "react";
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
+import { queryKeys } from "@/lib/client/query-keys";
 import { apiFetch } from "@/lib/client/api";
 import { can } from "@/lib/auth/permissions";
 import { Button } from "@/components/ui/button";
@@ -17,13 +18,13 @@ export function ReviewStatusPanel({ die, userId }: { die: DieDto; userId: string
   const qc = useQueryClient();
   const [message, setMessage] = useState("");
   const [error, setError] = useState<string | null>(null);
-  const history = useQuery({ queryKey: ["review", die.id], queryFn: () => apiFetch<ReviewEventDto[]>(`/api/dies/${die.id}/review`) });
+  const history = useQuery({ queryKey: queryKeys.review(die.id), queryFn: () => apiFetch<ReviewEventDto[]>(`/api/dies/${die.id}/review`) });
   const act = useMutation({
     mutationFn: (action: ReviewAction) => apiFetch<DieDto>(`/api/dies/${die.id}/review`, { method: "POST", body: { action, message } }),
     onSuccess: (d) => {
-      qc.setQueryData(["die", die.id], d);
-      void qc.invalidateQueries({ queryKey: ["review", die.id] });
-      void qc.invalidateQueries({ queryKey: ["activity", die.id] });
+      qc.setQueryData(queryKeys.die(die.id), d);
+      void qc.invalidateQueries({ queryKey: queryKeys.review(die.id) });
+      void qc.invalidateQueries({ queryKey: queryKeys.activity(die.id) });
       setMessage("");
       setError(null);
     },

@@ -1,17 +1,22 @@
 "use client";
 
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
+import { queryKeys } from "@/lib/client/query-keys";
 import { apiFetch } from "@/lib/client/api";
 import type { ThreadDto } from "@/lib/dto/threads";
+
+/** The die's threads: the one owner of `queryKeys.threads`, read by the review panel and by the markup's review states. */
+export function useThreadList(dieId: string) {
+  return useQuery({ queryKey: queryKeys.threads(dieId), queryFn: () => apiFetch<ThreadDto[]>(`/api/dies/${dieId}/threads`) });
+}
 
 /** The die's threads and the mutations on them; every change refreshes the list. */
 export function useThreads(dieId: string) {
   const qc = useQueryClient();
-  const key = ["threads", dieId];
-  const threads = useQuery({ queryKey: key, queryFn: () => apiFetch<ThreadDto[]>(`/api/dies/${dieId}/threads`) });
+  const threads = useThreadList(dieId);
   const refresh = () => {
-    void qc.invalidateQueries({ queryKey: key });
-    void qc.invalidateQueries({ queryKey: ["activity", dieId] });
+    void qc.invalidateQueries({ queryKey: queryKeys.threads(dieId) });
+    void qc.invalidateQueries({ queryKey: queryKeys.activity(dieId) });
   };
   const start = useMutation({
     mutationFn: (body: { shapeId: string; body: string } | { region: unknown; body: string }) =>

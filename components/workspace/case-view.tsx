@@ -4,6 +4,7 @@ import Link from "next/link";
 import { useRouter } from "next/navigation";
 import { useMemo, useState } from "react";
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
+import { queryKeys } from "@/lib/client/query-keys";
 import type { ColumnDef } from "@tanstack/react-table";
 import type { CaseDto } from "@/lib/dto/cases";
 import type { DieDto } from "@/lib/dto/dies";
@@ -31,16 +32,16 @@ export function CaseView({ initial }: { initial: CaseDto }) {
   const router = useRouter();
   const qc = useQueryClient();
   const [dialog, setDialog] = useState<null | "edit" | "delete" | "new-die">(null);
-  const c = useQuery({ queryKey: ["case", initial.id], queryFn: () => apiFetch<CaseDto>(`/api/cases/${initial.id}`), initialData: initial }).data;
-  const dies = useQuery({ queryKey: ["dies", initial.id], queryFn: () => apiFetch<DieDto[]>(`/api/cases/${initial.id}/dies`) });
+  const c = useQuery({ queryKey: queryKeys.case(initial.id), queryFn: () => apiFetch<CaseDto>(`/api/cases/${initial.id}`), initialData: initial }).data;
+  const dies = useQuery({ queryKey: queryKeys.dies(initial.id), queryFn: () => apiFetch<DieDto[]>(`/api/cases/${initial.id}/dies`) });
   const editable = can(c.yourRole, "edit");
   const update = useMutation({
     mutationFn: (body: unknown) => apiFetch<CaseDto>(`/api/cases/${c.id}`, { method: "PATCH", body }),
-    onSuccess: (data) => qc.setQueryData(["case", c.id], data),
+    onSuccess: (data) => qc.setQueryData(queryKeys.case(c.id), data),
   });
   const createDie = useMutation({
     mutationFn: (body: unknown) => apiFetch<DieDto>(`/api/cases/${c.id}/dies`, { method: "POST", body }),
-    onSuccess: () => qc.invalidateQueries({ queryKey: ["dies", c.id] }),
+    onSuccess: () => qc.invalidateQueries({ queryKey: queryKeys.dies(c.id) }),
   });
   const columns = useMemo<ColumnDef<DieDto, unknown>[]>(
     () => [
@@ -146,7 +147,7 @@ export function CaseView({ initial }: { initial: CaseDto }) {
         onClose={() => setDialog(null)}
         onConfirm={async () => {
           await apiFetch(`/api/cases/${c.id}`, { method: "DELETE" });
-          await qc.invalidateQueries({ queryKey: ["cases"] });
+          await qc.invalidateQueries({ queryKey: queryKeys.cases() });
           router.push("/cases");
         }}
       />

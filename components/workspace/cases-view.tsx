@@ -4,6 +4,7 @@ import Link from "next/link";
 import { useRouter } from "next/navigation";
 import { useMemo, useState } from "react";
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
+import { queryKeys } from "@/lib/client/query-keys";
 import type { ColumnDef } from "@tanstack/react-table";
 import type { CaseDto } from "@/lib/dto/cases";
 import { apiFetch } from "@/lib/client/api";
@@ -18,10 +19,10 @@ export function CasesView({ editableTeams }: { editableTeams: { id: string; name
   const router = useRouter();
   const [creating, setCreating] = useState(false);
   const [teamId, setTeamId] = useState(editableTeams[0]?.id ?? "");
-  const cases = useQuery({ queryKey: ["cases"], queryFn: () => apiFetch<CaseDto[]>("/api/cases") });
+  const cases = useQuery({ queryKey: queryKeys.cases(), queryFn: () => apiFetch<CaseDto[]>("/api/cases") });
   const create = useMutation({
     mutationFn: (body: unknown) => apiFetch<CaseDto>(`/api/teams/${teamId}/cases`, { method: "POST", body }),
-    onSuccess: () => qc.invalidateQueries({ queryKey: ["cases"] }),
+    onSuccess: () => qc.invalidateQueries({ queryKey: queryKeys.cases() }),
   });
   const columns = useMemo<ColumnDef<CaseDto, unknown>[]>(
     () => [

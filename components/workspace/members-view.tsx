@@ -2,6 +2,7 @@
 
 import { useMemo, useState } from "react";
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
+import { queryKeys } from "@/lib/client/query-keys";
 import type { ColumnDef } from "@tanstack/react-table";
 import type { MemberDto } from "@/lib/dto/teams";
 import { apiFetch } from "@/lib/client/api";
@@ -17,13 +18,13 @@ export function MembersView({ team, myUserId }: { team: { id: string; name: stri
   const manage = can(team.yourRole, "manage_team");
   const [removing, setRemoving] = useState<MemberDto | null>(null);
   const [error, setError] = useState<string | null>(null);
-  const members = useQuery({ queryKey: ["members", team.id], queryFn: () => apiFetch<MemberDto[]>(`/api/teams/${team.id}/members`) });
+  const members = useQuery({ queryKey: queryKeys.members(team.id), queryFn: () => apiFetch<MemberDto[]>(`/api/teams/${team.id}/members`) });
   const changeRole = useMutation({
     mutationFn: ({ userId, role }: { userId: string; role: TeamRole }) =>
       apiFetch<MemberDto>(`/api/teams/${team.id}/members/${userId}`, { method: "PATCH", body: { role } }),
     onMutate: () => setError(null),
     onError: (e) => setError(e.message),
-    onSettled: () => qc.invalidateQueries({ queryKey: ["members", team.id] }),
+    onSettled: () => qc.invalidateQueries({ queryKey: queryKeys.members(team.id) }),
   });
   const columns = useMemo<ColumnDef<MemberDto, unknown>[]>(
     () => [
@@ -85,7 +86,7 @@ export function MembersView({ team, myUserId }: { team: { id: string; name: stri
         onClose={() => setRemoving(null)}
         onConfirm={async () => {
           await apiFetch(`/api/teams/${team.id}/members/${removing!.userId}`, { method: "DELETE" });
-          await qc.invalidateQueries({ queryKey: ["members", team.id] });
+          await qc.invalidateQueries({ queryKey: queryKeys.members(team.id) });
         }}
       />
     </section>

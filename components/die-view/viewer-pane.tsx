@@ -2,6 +2,7 @@
 
 import { useState } from "react";
 import { useQueryClient } from "@tanstack/react-query";
+import { queryKeys } from "@/lib/client/query-keys";
 import type { MicrographDto } from "@/lib/dto/micrographs";
 import { apiFetch } from "@/lib/client/api";
 import { CalibrationTool, MicrographViewer, type MicrographSource, type ViewerApi } from "@/components/viewer";
@@ -71,7 +72,7 @@ export function ViewerPane({
               setError(null);
               try {
                 await apiFetch(`/api/micrographs/${micrograph.id}`, { method: "PATCH", body: { calibration: c } });
-                await qc.invalidateQueries({ queryKey: ["micrographs", micrograph.dieId] });
+                await qc.invalidateQueries({ queryKey: queryKeys.micrographs(micrograph.dieId) });
                 setCalibrating(false);
               } catch (e) {
                 setError((e as Error).message);

@@ -1,9 +1,7 @@
 import type { Metadata } from "next";
-import { notFound } from "next/navigation";
-import { DieBench } from "@/components/bench/die-bench";
-import { loadPage } from "@/server/http/page";
-import { getDie } from "@/server/access/dies";
+import { DieWorkspace } from "@/components/die-view/die-workspace";
 import { uuidSchema } from "@/lib/validation/common";
+import { loadDie } from "./load-die";
 
 export const metadata: Metadata = { title: "Die" };
 
@@ -12,7 +10,6 @@ export default async function DiePage({ params, searchParams }: { params: Promis
   // Read on the server so the first render (open thread, Review tab) matches on both sides.
   const thread = (await searchParams).thread;
   const linkedThreadId = typeof thread === "string" && uuidSchema.safeParse(thread).success ? thread : null;
-  if (!uuidSchema.safeParse(dieId).success) notFound();
-  const { die, userId } = await loadPage(async ({ db, actor }) => ({ die: await getDie(db, actor, dieId), userId: actor.userId }));
-  return <DieBench initial={die} userId={userId} linkedThreadId={linkedThreadId} />;
+  const { die, userId } = await loadDie(dieId);
+  return <DieWorkspace initial={die} userId={userId} linkedThreadId={linkedThreadId} />;
 }

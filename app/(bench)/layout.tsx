@@ -1,4 +1,0 @@
-/** The full-screen bench: viewer and markup get the whole window, with their own chrome. */
-export default function BenchLayout({ children }: { children: React.ReactNode }) {
-  return <div className="flex h-screen flex-col overflow-hidden bg-ink-950">{children}</div>;
-}

@@ -1,0 +1,29 @@
+"use client";
+
+import { Inspector } from "@/components/annotate/inspector";
+import { Legend } from "@/components/annotate/legend";
+import { useDieWorkspace } from "../die-workspace-context";
+
+/** The selected shapes' fields, the legend with its visibility switches, and the labels switch. */
+export function InspectTab() {
+  const { editor, state, selected, editable, dieSize, umPerPx, markup } = useDieWorkspace();
+  return (
+    <div className="flex flex-col gap-5">
+      {editor && state ? (
+        <Inspector editor={editor} selected={selected} canEdit={editable} die={dieSize} umPerPx={umPerPx} />
+      ) : (
+        <p className="text-sm text-ink-400">Loading markup…</p>
+      )}
+      <Legend
+        hidden={markup.hiddenKinds}
+        onToggle={markup.toggleKind}
+        counts={markup.counts}
+        hiddenReview={markup.hiddenReview}
+        onToggleReview={markup.toggleReview}
+      />
+      <label className="flex items-center gap-2 text-xs text-ink-300">
+        <input type="checkbox" checked={markup.labels} onChange={(e) => markup.setLabels(e.target.checked)} className="accent-kerf-500" /> Show labels
+      </label>
+    </div>
+  );
+}

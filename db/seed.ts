@@ -58,17 +58,15 @@ export async function seedDemo(db: Database): Promise<boolean> {
       .insert(dies)
       .values({ ...DEMO.die, caseId: c.id, analystId: ids.analyst, createdBy: ids.analyst })
       .returning();
-    await tx
-      .insert(auditEvents)
-      .values({
-        teamId: team.id,
-        actorId: ids.analyst,
-        action: "die.created",
-        entityType: "die",
-        entityId: d.id,
-        dieId: d.id,
-        after: JSON.parse(JSON.stringify(d)),
-      });
+    await tx.insert(auditEvents).values({
+      teamId: team.id,
+      actorId: ids.analyst,
+      action: "die.created",
+      entityType: "die",
+      entityId: d.id,
+      dieId: d.id,
+      after: JSON.parse(JSON.stringify(d)),
+    });
   });
   return true;
 }

@@ -1,4 +1,9 @@
-/** Grey bars shaped like a page's heading and rows, shown while a route's server data loads. */
+/**
+ * Grey bars shaped like a page's heading and rows, shown while a route's server data loads.
+ * Only for pages that never answer 404 (the case list, inbox, account, settings): a loading
+ * boundary makes Next stream the page, so the 200 status is sent before a page's notFound()
+ * could set 404, and an outsider opening a case, team or the mailbox would get a 200.
+ */
 export function PageSkeleton() {
   return (
     <div className="space-y-4" aria-busy="true">

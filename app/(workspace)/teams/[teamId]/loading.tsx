@@ -1,3 +1,0 @@
-import { PageSkeleton } from "@/components/ui/page-skeleton";
-
-export default PageSkeleton;

@@ -3,8 +3,9 @@
 import { useEffect, useMemo, useRef, useState } from "react";
 import { Layer, Shape, Stage } from "react-konva";
 import type Konva from "konva";
-import { applyAffine, invertAffine } from "@/lib/geometry/affine";
+import { applyAffine } from "@/lib/geometry/affine";
 import { boundingBox } from "@/lib/geometry/measure";
+import { viewBoxUm } from "@/lib/geometry/view-box";
 import type { Affine2x3 } from "@/lib/geometry/types";
 import type { AnyShape, MarkupKind } from "@/lib/markup/types";
 import type { ViewerApi } from "@/components/viewer";
@@ -97,11 +98,8 @@ export function MarkupOverlay({ api, editor, state, imageToDie, hiddenKinds, lab
 
   const ready = () => screenPxPerUm(matrix.current) > 1e-12;
   const visibleUm = (): [number, number, number, number] => {
-    const inv = invertAffine(matrix.current);
-    const corners = [applyAffine(inv, 0, 0), applyAffine(inv, size.width, 0), applyAffine(inv, 0, size.height), applyAffine(inv, size.width, size.height)];
-    const xs = corners.map((c) => c[0]);
-    const ys = corners.map((c) => c[1]);
-    return [Math.min(...xs), Math.min(...ys), Math.max(...xs), Math.max(...ys)];
+    const b = viewBoxUm(size, api.screenToImage, imageToDie);
+    return [b.minX, b.minY, b.maxX, b.maxY];
   };
 
   const toInput = (e: React.PointerEvent | React.MouseEvent): PointerInput => {

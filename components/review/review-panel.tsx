@@ -6,6 +6,7 @@ import { queryKeys } from "@/lib/client/query-keys";
 import { apiFetch } from "@/lib/client/api";
 import { can } from "@/lib/auth/permissions";
 import { boundingBox } from "@/lib/geometry/measure";
+import { viewBoxUm } from "@/lib/geometry/view-box";
 import { Button } from "@/components/ui/button";
 import type { DieDto } from "@/lib/dto/dies";
 import type { MemberDto } from "@/lib/dto/teams";
@@ -16,7 +17,7 @@ import { ReplyBox } from "./reply-box";
 import { ThreadView } from "./thread-view";
 import { ReviewStatusPanel } from "./review-status-panel";
 import { ActivityList } from "./activity-list";
-import { viewBoxUm, type ReviewBench } from "./use-review-bench";
+import type { ReviewBench } from "./use-review-bench";
 
 type Filter = "all" | "open" | "resolved" | "mine" | "mentions";
 const FILTERS: { id: Filter; label: string }[] = [
@@ -98,7 +99,9 @@ export function ReviewPanel({
         maxY: Math.max(...boxes.map((b) => b.maxY)),
       };
     }
-    return api && transform ? viewBoxUm(api, transform) : null;
+    if (!api || !transform) return null;
+    const el = api.viewer.element;
+    return viewBoxUm({ width: el.clientWidth, height: el.clientHeight }, api.screenToImage, transform);
   };
 
   const startThread = async (body: string) => {

@@ -21,24 +21,6 @@ function flyToDieBox(api: ViewerApi, transform: Affine2x3, b: BoundingBox) {
   api.flyToImageRect(x0 - pad, y0 - pad, w + 2 * pad, h + 2 * pad);
 }
 
-/** The die area in view, in die µm (for a thread on a region when nothing is selected). */
-export function viewBoxUm(api: ViewerApi, transform: Affine2x3): BoundingBox {
-  const el = api.viewer.element as HTMLElement;
-  const corners = [
-    [0, 0],
-    [el.clientWidth, el.clientHeight],
-  ].map(([x, y]) => {
-    const img = api.screenToImage(x, y);
-    return applyAffine(transform, img.x, img.y);
-  });
-  return {
-    minX: Math.min(corners[0][0], corners[1][0]),
-    minY: Math.min(corners[0][1], corners[1][1]),
-    maxX: Math.max(corners[0][0], corners[1][0]),
-    maxY: Math.max(corners[0][1], corners[1][1]),
-  };
-}
-
 /**
  * Review state of the die bench: the threads, which one is open, its pins on the canvas, and
  * selecting a thread (flies to its anchor and selects its shape when the shape still exists).

@@ -1,19 +1,4 @@
-import { applyAffine } from "@/lib/geometry/affine";
-import type { Affine2x3 } from "@/lib/geometry/types";
 import type { DieRegion } from "./render-plan";
-
-/**
- * The die rectangle (lower-left corner, width, height) that covers the given image-pixel
- * corners once mapped through the micrograph's image → die transform.
- */
-export function dieRegionOfImageCorners(transform: Affine2x3, corners: readonly { x: number; y: number }[]): DieRegion {
-  const pts = corners.map((c) => applyAffine(transform, c.x, c.y));
-  const xs = pts.map((p) => p[0]);
-  const ys = pts.map((p) => p[1]);
-  const x = Math.min(...xs);
-  const y = Math.min(...ys);
-  return { x, y, width: Math.max(...xs) - x, height: Math.max(...ys) - y };
-}
 
 /** What the die's markup covers in die µm (wire bonds run past the die edge to the package). */
 export type ExtentUm = { readonly minX: number; readonly minY: number; readonly maxX: number; readonly maxY: number };

@@ -1,0 +1,3 @@
+import { PageSkeleton } from "@/components/ui/page-skeleton";
+
+export default PageSkeleton;

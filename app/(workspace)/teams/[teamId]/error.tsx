@@ -1,0 +1,3 @@
+"use client";
+
+export { RouteError as default } from "@/components/ui/route-error";

@@ -1,0 +1,29 @@
+import { applyAffine } from "./affine";
+import type { BoundingBox } from "./measure";
+import type { Affine2x3 } from "./types";
+
+/** A viewer's screen px → image px mapping at its current view. */
+export type ScreenToImage = (x: number, y: number) => { x: number; y: number };
+
+/**
+ * What a viewer shows, as a box in die µm: the four corners of the viewer element (CSS px,
+ * top-left origin) are taken through the screen → image mapping and the micrograph's
+ * image → die transform, and the box is their bounding box. All four are needed: once the
+ * micrograph is turned against the die frame by an angle that is not a multiple of 90° (or the
+ * viewer itself is turned), two opposite corners no longer span the other two.
+ */
+export function viewBoxUm(size: { readonly width: number; readonly height: number }, screenToImage: ScreenToImage, imageToDie: Affine2x3): BoundingBox {
+  const { width: w, height: h } = size;
+  const corners = [
+    [0, 0],
+    [w, 0],
+    [w, h],
+    [0, h],
+  ].map(([x, y]) => {
+    const img = screenToImage(x, y);
+    return applyAffine(imageToDie, img.x, img.y);
+  });
+  const xs = corners.map((c) => c[0]);
+  const ys = corners.map((c) => c[1]);
+  return { minX: Math.min(...xs), minY: Math.min(...ys), maxX: Math.max(...xs), maxY: Math.max(...ys) };
+}

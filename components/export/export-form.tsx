@@ -13,6 +13,7 @@ import { Button } from "@/components/ui/button";
 import { ExportPreview } from "./export-preview";
 import { FIELD_CLASS, MarkupFields, RegionFields, SizeFields } from "./export-fields";
 import { exportErrorText, exportedMicrograph, exportFormDefaults, exportRequestBody, exportResolver, type ExportFormValues } from "./export-request";
+import { queryKeys } from "@/lib/client/query-keys";
 
 type Props = { die: DieDto; usable: readonly MicrographDto[]; api: ViewerApi | null; shownId?: string; onStarted: (e: ExportDto) => void };
 
@@ -36,7 +37,7 @@ export function ExportForm({ die, usable, api, shownId, onStarted }: Props) {
     onSuccess: (e) => {
       setError("");
       onStarted(e);
-      void qc.invalidateQueries({ queryKey: ["exports", die.id] });
+      void qc.invalidateQueries({ queryKey: queryKeys.exports(die.id) });
     },
     onError: (e) => setError(e.message),
   });

@@ -11,13 +11,14 @@ import { ExportForm } from "./export-form";
 import { ExportStatus } from "./export-status";
 import { RecentExports, TableDownloads } from "./export-downloads";
 import { ImportGeojson } from "./import-geojson";
+import { queryKeys } from "@/lib/client/query-keys";
 
 /** The Export tab: annotated PNG form with progress, recent exports, table downloads, GeoJSON import. */
 export function ExportPanel({ die, micrographs, api, shownId }: { die: DieDto; micrographs: MicrographDto[]; api: ViewerApi | null; shownId?: string }) {
   const usable = micrographs.filter((m) => m.transform && m.status !== "failed");
   const [activeId, setActiveId] = useState<string | null>(null);
   const list = useQuery({
-    queryKey: ["exports", die.id],
+    queryKey: queryKeys.exports(die.id),
     queryFn: () => apiFetch<ExportDto[]>(`/api/dies/${die.id}/exports`),
     refetchInterval: (q) => (q.state.data?.some((e) => e.status === "queued" || e.status === "running") ? 700 : false),
   });

@@ -4,6 +4,7 @@ import { useEffect, useState } from "react";
 import { useQuery } from "@tanstack/react-query";
 import { apiFetch } from "@/lib/client/api";
 import type { ExportPreviewDto } from "@/lib/dto/export-preview";
+import { queryKeys } from "@/lib/client/query-keys";
 
 /** The last value after it has stopped changing for `ms`. */
 function useSettled<T>(value: T, ms: number): T {
@@ -19,7 +20,7 @@ function useSettled<T>(value: T, ms: number): T {
 export function ExportPreview({ dieId, formKey, body, onRefresh }: { dieId: string; formKey: string; body: () => unknown; onRefresh: () => void }) {
   const key = useSettled(formKey, 400);
   const preview = useQuery({
-    queryKey: ["export-preview", dieId, key],
+    queryKey: queryKeys.exportPreview(dieId, key),
     queryFn: () => apiFetch<ExportPreviewDto>(`/api/dies/${dieId}/exports/preview`, { method: "POST", body: body() }),
     retry: false,
     staleTime: Infinity,

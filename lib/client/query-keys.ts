@@ -18,6 +18,8 @@ export const queryKeys = {
   /** The die's audit trail, an infinite query. */
   activity: (dieId: string) => ["activity", dieId] as const,
   exports: (dieId: string) => ["exports", dieId] as const,
+  /** The small rendering of one export request (the request's JSON is part of the key). */
+  exportPreview: (dieId: string, request: string) => ["export-preview", dieId, request] as const,
   alignment: (movingMicrographId: string) => ["alignment", movingMicrographId] as const,
   members: (teamId: string) => ["members", teamId] as const,
   invitations: (teamId: string) => ["invitations", teamId] as const,

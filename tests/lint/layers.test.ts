@@ -50,10 +50,7 @@ describe("one-way layers", { timeout: 120_000 }, () => {
 
   it("lets each layer import the ones below it", async () => {
     expect(
-      await layerErrors(
-        "server",
-        'import { users } from "@/db/schema";\nimport { AppError } from "@/lib/errors";\nexport const x = [users, AppError];\n',
-      ),
+      await layerErrors("server", 'import { users } from "@/db/schema";\nimport { AppError } from "@/lib/errors";\nexport const x = [users, AppError];\n'),
     ).toEqual([]);
     expect(await layerErrors("components/ui", 'import type { DieDto } from "@/lib/dto/dies";\nexport type X = DieDto;\n')).toEqual([]);
     expect(await layerErrors("db", 'import { ROLES } from "@/lib/dto/stored-values";\nexport const x = ROLES;\n')).toEqual([]);

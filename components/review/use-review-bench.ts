@@ -1,7 +1,7 @@
 "use client";
 
 import { useCallback, useEffect, useMemo, useRef, useState } from "react";
-import { applyAffine, invertAffine } from "@/lib/geometry/affine";
+import { imageBoxOfDieBox } from "@/lib/geometry/view-box";
 import { boundingBox, type BoundingBox } from "@/lib/geometry/measure";
 import type { Affine2x3 } from "@/lib/geometry/types";
 import type { ViewerApi } from "@/components/viewer";
@@ -11,14 +11,11 @@ import { useThreads } from "./use-threads";
 
 /** Animates the viewer to a die-µm box with room around it. */
 function flyToDieBox(api: ViewerApi, transform: Affine2x3, b: BoundingBox) {
-  const inv = invertAffine(transform);
-  const p = [applyAffine(inv, b.minX, b.minY), applyAffine(inv, b.maxX, b.maxY)];
-  const x0 = Math.min(p[0][0], p[1][0]);
-  const y0 = Math.min(p[0][1], p[1][1]);
-  const w = Math.abs(p[1][0] - p[0][0]);
-  const h = Math.abs(p[1][1] - p[0][1]);
+  const img = imageBoxOfDieBox(b, transform);
+  const w = img.maxX - img.minX;
+  const h = img.maxY - img.minY;
   const pad = Math.max(w, h, 40) * 2;
-  api.flyToImageRect(x0 - pad, y0 - pad, w + 2 * pad, h + 2 * pad);
+  api.flyToImageRect(img.minX - pad, img.minY - pad, w + 2 * pad, h + 2 * pad);
 }
 
 /**

@@ -2,7 +2,7 @@ import { describe, expect, it } from "vitest";
 import { applyAffine } from "./affine";
 import type { BoundingBox } from "./measure";
 import type { Affine2x3 } from "./types";
-import { viewBoxUm, type ScreenToImage } from "./view-box";
+import { imageBoxOfDieBox, viewBoxUm, type ScreenToImage } from "./view-box";
 
 /** The box the review bench used to take: only the top-left and bottom-right screen corners. */
 function twoCornerBox(size: { width: number; height: number }, screenToImage: ScreenToImage, t: Affine2x3): BoundingBox {
@@ -73,5 +73,23 @@ describe("viewBoxUm", () => {
     expectBox(viewBoxUm(size, zoomedOut, swapped), truth);
     // Under a quarter turn or a mirror opposite corners still span the box, so the old way agreed here.
     expectBox(twoCornerBox(size, zoomedOut, swapped), truth);
+  });
+});
+
+describe("imageBoxOfDieBox", () => {
+  it("holds all four corners of a die box on a micrograph turned 30° (corners rotated by hand)", () => {
+    // image → die: rotate by 30° about the origin, 1 µm/px. The inverse turns die points by −30°.
+    const c = Math.cos(Math.PI / 6);
+    const s = Math.sin(Math.PI / 6);
+    const t: [[number, number, number], [number, number, number]] = [
+      [c, -s, 0],
+      [s, c, 0],
+    ];
+    // The die square (0,0)–(100,100) turned by −30°: (0,0), (86.60,−50), (136.60,36.60), (50,86.60).
+    const b = imageBoxOfDieBox({ minX: 0, minY: 0, maxX: 100, maxY: 100 }, t);
+    expect(b.minX).toBeCloseTo(0, 6);
+    expect(b.maxX).toBeCloseTo(136.6025, 3);
+    expect(b.minY).toBeCloseTo(-50, 6);
+    expect(b.maxY).toBeCloseTo(86.6025, 3);
   });
 });

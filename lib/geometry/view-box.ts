@@ -1,4 +1,4 @@
-import { applyAffine } from "./affine";
+import { applyAffine, invertAffine } from "./affine";
 import type { BoundingBox } from "./measure";
 import type { Affine2x3 } from "./types";
 
@@ -23,6 +23,24 @@ export function viewBoxUm(size: { readonly width: number; readonly height: numbe
     const img = screenToImage(x, y);
     return applyAffine(imageToDie, img.x, img.y);
   });
+  const xs = corners.map((c) => c[0]);
+  const ys = corners.map((c) => c[1]);
+  return { minX: Math.min(...xs), minY: Math.min(...ys), maxX: Math.max(...xs), maxY: Math.max(...ys) };
+}
+
+/**
+ * The image-px box that holds a die-µm box: its four corners through the inverse of the
+ * image → die transform. As above, two corners are not enough once the micrograph is turned
+ * by an angle that is not a multiple of 90°.
+ */
+export function imageBoxOfDieBox(b: BoundingBox, imageToDie: Affine2x3): BoundingBox {
+  const toImage = invertAffine(imageToDie);
+  const corners = [
+    [b.minX, b.minY],
+    [b.maxX, b.minY],
+    [b.maxX, b.maxY],
+    [b.minX, b.maxY],
+  ].map(([x, y]) => applyAffine(toImage, x, y));
   const xs = corners.map((c) => c[0]);
   const ys = corners.map((c) => c[1]);
   return { minX: Math.min(...xs), minY: Math.min(...ys), maxX: Math.max(...xs), maxY: Math.max(...ys) };

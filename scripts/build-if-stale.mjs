@@ -9,6 +9,7 @@ const SOURCES = [
   "app",
   "components",
   "lib",
+  "server",
   "db",
   "auth.ts",
   "auth.config.ts",

@@ -11,6 +11,9 @@ import { applyAffine } from "../../lib/geometry/affine";
 const opts = demoMicrographOptions("bright_field");
 const placement = placeDie(NV24R_LAYOUT, { pxPerUm: pxPerUmForWidth(NV24R_LAYOUT, opts.widthPx!, 300), marginUm: 300 });
 const PAD = padByLabel(NV24R_LAYOUT, "VB3");
+// Texts of this repetition (--repeat-each keeps the server): earlier repetitions' comments stay
+// on the demo die and in its activity, so each repetition writes and looks for its own.
+const run = () => `run ${test.info().repeatEachIndex + 1}`;
 
 async function openDemoDie(page: Page) {
   await page.getByRole("link", { name: "NV-24R receiver teardown" }).click();
@@ -116,12 +119,13 @@ test.describe.serial("review of the demo die", () => {
       // CPU-bound process and other servers beside) took longer than 15 s after the page load.
     }).toPass({ timeout: 45_000 });
 
-    await analyst.getByLabel("Reply").fill("Probed only, not bonded; label fixed.");
+    const reply = `Probed only, not bonded; label fixed (${run()}).`;
+    await analyst.getByLabel("Reply").fill(reply);
     await analyst.getByRole("button", { name: "Reply", exact: true }).click();
-    await expect(analyst.getByText("Probed only, not bonded; label fixed.")).toBeVisible();
+    await expect(analyst.getByText(reply, { exact: true })).toBeVisible();
 
     await reviewer.goto(link);
-    await expect(reviewer.getByText("Probed only, not bonded; label fixed.")).toBeVisible();
+    await expect(reviewer.getByText(reply, { exact: true })).toBeVisible();
     await reviewer.getByRole("button", { name: "Resolve thread" }).click();
     await expect(reviewer.getByText(/Resolved by Demo Reviewer/)).toBeVisible();
 
@@ -174,9 +178,11 @@ test.describe.serial("review of the demo die", () => {
     await openDemoDie(newcomer);
     await newcomer.getByRole("tab", { name: "Review" }).click();
     await newcomer.getByRole("button", { name: "Start thread on a region" }).click();
-    await newcomer.getByLabel("First comment on the area in view").fill("First look from the new reviewer.");
+    const firstLook = `First look from the new reviewer (${run()}).`;
+    await newcomer.getByLabel("First comment on the area in view").fill(firstLook);
     await newcomer.getByRole("button", { name: "Start thread" }).click();
-    await expect(newcomer.getByText("First look from the new reviewer.")).toBeVisible();
+    await expect(newcomer.getByRole("heading", { name: /Thread \d+ on a region/ })).toBeVisible();
+    await expect(newcomer.getByText(firstLook, { exact: true })).toBeVisible();
 
     // The link works once.
     const again = await (await browser.newContext()).newPage();

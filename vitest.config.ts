@@ -23,6 +23,8 @@ export default defineConfig({
           include: ["lib/**/*.test.ts", "db/**/*.test.ts", "server/**/*.test.ts", "components/**/*.test.ts", "tests/lint/**/*.test.ts"],
           environment: "node",
           testTimeout: 60_000,
+          // Fixtures built in beforeAll (images for the tiler) take over 10 s on a loaded machine.
+          hookTimeout: 120_000,
         },
       },
       {

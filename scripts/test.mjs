@@ -40,7 +40,15 @@ async function step(...tiers) {
 function vitestCounts(file) {
   try {
     const j = JSON.parse(fs.readFileSync(file, "utf8"));
-    return { passed: j.numPassedTests ?? 0, failed: j.numFailedTests ?? 0, skipped: (j.numPendingTests ?? 0) + (j.numTodoTests ?? 0) };
+    // A file whose hook or import failed has no failed test, only a failed suite: count it too.
+    const failedSuitesWithoutFailedTests = (j.testResults ?? []).filter(
+      (r) => r.status === "failed" && !(r.assertionResults ?? []).some((a) => a.status === "failed"),
+    ).length;
+    return {
+      passed: j.numPassedTests ?? 0,
+      failed: (j.numFailedTests ?? 0) + failedSuitesWithoutFailedTests,
+      skipped: (j.numPendingTests ?? 0) + (j.numTodoTests ?? 0),
+    };
   } catch {
     return { passed: 0, failed: 1, skipped: 0 };
   }
@@ -79,13 +87,12 @@ const done = [];
 done.push(...(await step(TIERS.lint, TIERS.types, TIERS.build)));
 done.push(...(await step(TIERS.pglite, TIERS.postgres, TIERS.e2e)));
 
-// A failed lint, type check or build counts as one failure each; the test tiers count their tests.
-const counts = [
-  ...done.slice(0, 3).map((d) => (d.ok ? null : { passed: 0, failed: 1, skipped: 0 })),
-  vitestCounts(vitestJson),
-  vitestCounts(pgJson),
-  playwrightCounts(e2eJson),
-].filter(Boolean);
+// A failed lint, type check or build counts as one failure each; the test tiers count their tests,
+// and a test tier that exited with an error its counts do not show still counts as one failure.
+const tierCounts = [vitestCounts(vitestJson), vitestCounts(pgJson), playwrightCounts(e2eJson)].map((c, i) =>
+  done[3 + i].ok || c.failed > 0 ? c : { ...c, failed: 1 },
+);
+const counts = [...done.slice(0, 3).map((d) => (d.ok ? null : { passed: 0, failed: 1, skipped: 0 })), ...tierCounts].filter(Boolean);
 const total = counts.reduce((a, r) => ({ passed: a.passed + r.passed, failed: a.failed + r.failed, skipped: a.skipped + r.skipped }), {
   passed: 0,
   failed: 0,

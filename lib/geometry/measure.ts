@@ -90,7 +90,7 @@ export function polygonCentroid(polygon: PolygonGeometry): Position {
 }
 
 /** Bounding box of a list of positions; throws on an empty list. */
-function boundingBoxOf(positions: readonly Position[]): BoundingBox {
+export function boundingBoxOf(positions: readonly Position[]): BoundingBox {
   if (positions.length === 0) throw new RangeError("no positions");
   let minX = Infinity;
   let minY = Infinity;

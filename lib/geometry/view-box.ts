@@ -1,5 +1,5 @@
 import { applyAffine, invertAffine } from "./affine";
-import type { BoundingBox } from "./measure";
+import { boundingBoxOf, type BoundingBox } from "./measure";
 import type { Affine2x3 } from "./types";
 
 /** A viewer's screen px → image px mapping at its current view. */
@@ -23,9 +23,7 @@ export function viewBoxUm(size: { readonly width: number; readonly height: numbe
     const img = screenToImage(x, y);
     return applyAffine(imageToDie, img.x, img.y);
   });
-  const xs = corners.map((c) => c[0]);
-  const ys = corners.map((c) => c[1]);
-  return { minX: Math.min(...xs), minY: Math.min(...ys), maxX: Math.max(...xs), maxY: Math.max(...ys) };
+  return boundingBoxOf(corners);
 }
 
 /**
@@ -41,7 +39,5 @@ export function imageBoxOfDieBox(b: BoundingBox, imageToDie: Affine2x3): Boundin
     [b.maxX, b.maxY],
     [b.minX, b.maxY],
   ].map(([x, y]) => applyAffine(toImage, x, y));
-  const xs = corners.map((c) => c[0]);
-  const ys = corners.map((c) => c[1]);
-  return { minX: Math.min(...xs), minY: Math.min(...ys), maxX: Math.max(...xs), maxY: Math.max(...ys) };
+  return boundingBoxOf(corners);
 }

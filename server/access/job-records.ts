@@ -24,14 +24,13 @@ type TilingChange =
  * micrograph no longer exists (deleted while tiling).
  */
 export async function setTilingState(db: Db, micrographId: string, change: TilingChange): Promise<MicrographRow | null> {
-  const values =
-    "status" in change && change.status === "tiling"
+  const values = !("status" in change)
+    ? change
+    : change.status === "tiling"
       ? { status: "tiling" as const, progress: 0, error: null }
-      : "status" in change && change.status === "ready"
+      : change.status === "ready"
         ? { status: "ready" as const, progress: 100, updatedAt: new Date() }
-        : "status" in change
-          ? { status: "failed" as const, error: change.error, updatedAt: new Date() }
-          : change;
+        : { status: "failed" as const, error: change.error, updatedAt: new Date() };
   const [row] = await db.update(micrographs).set(values).where(eq(micrographs.id, micrographId)).returning();
   return row ?? null;
 }

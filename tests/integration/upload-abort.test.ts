@@ -26,7 +26,10 @@ async function until(what: string, ok: () => boolean, ms: number): Promise<numbe
 }
 
 describe("dropped uploads", () => {
-  it("deletes the part file within a second of the client dropping the connection", async () => {
+  // Without the abort signal the part file stayed until the socket timed out (minutes). A quiet
+  // machine deletes it in tens of milliseconds; 5 s leaves room for a loaded CI machine (1 s
+  // failed once at load average ~12 on 2 cores) while still telling "at once" from "at timeout".
+  it("deletes the part file within seconds of the client dropping the connection", async () => {
     const { dieId } = await freshCase(world.clients.owner, world.teamId);
     const dataDir = inject("dataDir");
     const before = new Set(parts(dataDir));
@@ -53,8 +56,9 @@ describe("dropped uploads", () => {
     const mine = () => parts(dataDir).filter((n) => !before.has(n));
     await until("the part file to appear", () => mine().length === 1, 10_000);
     req.destroy();
-    const took = await until("the part file to be deleted", () => mine().length === 0, 1_000);
-    expect(took).toBeLessThan(1_000);
+    const took = await until("the part file to be deleted", () => mine().length === 0, 5_000);
+    console.info(`[upload abort] part file deleted ${took} ms after the client dropped the connection`);
+    expect(took).toBeLessThan(5_000);
     expect((await world.clients.analyst.get<unknown[]>(`/api/dies/${dieId}/micrographs`)).body).toEqual([]);
   });
 

@@ -40,7 +40,9 @@ export async function startServer(opts: { dataDir?: string; env?: Record<string,
   const dataDir = opts.dataDir ?? tempDataDir();
   const port = await freePort();
   const env = serverEnv({ ...process.env, KERFLINE_DATA_DIR: dataDir, PORT: String(port), ...opts.env });
-  const proc = spawn(process.execPath, [path.join(ROOT, "node_modules/next/dist/bin/next"), "start", "-p", String(port)], {
+  // A long keep-alive on the server side: with Node's 5 s default, a loaded test process could
+  // reuse a socket the server had just closed and get ECONNRESET (seen on 100 parallel sign-ins).
+  const proc = spawn(process.execPath, [path.join(ROOT, "node_modules/next/dist/bin/next"), "start", "-p", String(port), "--keepAliveTimeout", "65000"], {
     cwd: ROOT,
     env,
     stdio: ["ignore", "pipe", "pipe"],

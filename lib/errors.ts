@@ -42,3 +42,9 @@ export class PayloadTooLargeError extends AppError {
     super(413, message);
   }
 }
+/** 423 Locked (RFC 4918 §11.3): the die's markup is fixed while checked or signed off. */
+export class LockedError extends AppError {
+  constructor(message: string, extra: Record<string, unknown> = {}) {
+    super(423, message, extra);
+  }
+}

@@ -21,6 +21,9 @@ export async function startServer(): Promise<void> {
       const requeued = await requeueOrphanedJobs(opened.db);
       if (requeued) console.log(`[kerfline] picked up ${requeued} job(s) left running by an earlier stop`);
     }
+    const { freezeUnfrozenSignOffs } = await import("./access/revisions");
+    const frozen = await freezeUnfrozenSignOffs(opened.db);
+    if (frozen) console.log(`[kerfline] froze the signed-off revision of ${frozen} die(s) signed off before revisions existed`);
     const { sweepIncoming } = await import("./files/upload");
     const { incomingDir } = await import("./files/storage-paths");
     const swept = await sweepIncoming(incomingDir(), opened.kind === "pglite" ? 0 : 3600_000);

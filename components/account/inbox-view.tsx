@@ -10,8 +10,8 @@ import { queryKeys } from "@/lib/client/query-keys";
 const KIND_LABELS: Record<InboxItemDto["kind"], string> = {
   mention: "Mention",
   comment: "Reply",
-  review_submitted: "Review requested",
-  review_decision: "Review decision",
+  review_submitted: "Sent to checker",
+  review_decision: "Check result",
 };
 
 /** Where an item leads: the exact thread on the die bench, or the die for review events. */

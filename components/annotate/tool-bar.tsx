@@ -35,9 +35,14 @@ function SaveIndicator({ save }: { save: SaveState }) {
   );
 }
 
-/** The markup tools across the top of the work area, with undo/redo, the save state and help. */
-export function ToolBar({ editor, state, save }: { editor: Editor; state: EditorState; save: SaveState }) {
-  const tools = (state.canEdit ? Object.keys(TOOL_LABELS) : ["select", "pan"]) as ToolId[];
+/**
+ * The markup tools across the top of the work area, with undo/redo, the save state and help.
+ * While the die's markup is fixed (with the checker, signed off) the drawing tools stay in view,
+ * disabled, with the reason beside them.
+ */
+export function ToolBar({ editor, state, save, lockReason }: { editor: Editor; state: EditorState; save: SaveState; lockReason: string | null }) {
+  const tools = (state.canEdit || lockReason ? Object.keys(TOOL_LABELS) : ["select", "pan"]) as ToolId[];
+  const off = (t: ToolId) => !state.canEdit && t !== "select" && t !== "pan";
   return (
     <div role="toolbar" aria-label="Markup tools" className="flex flex-wrap items-center gap-1 border-b border-ink-800 bg-ink-900 px-3 py-1.5">
       {tools.map((t) => {
@@ -47,9 +52,10 @@ export function ToolBar({ editor, state, save }: { editor: Editor; state: Editor
             key={t}
             type="button"
             aria-pressed={state.activeTool === t}
-            title={`${TOOL_LABELS[t]} (${KEY_OF[t]})`}
+            disabled={off(t)}
+            title={off(t) && lockReason ? lockReason : `${TOOL_LABELS[t]} (${KEY_OF[t]})`}
             onClick={() => editor.setTool(t)}
-            className={`flex items-center gap-1.5 rounded px-2 py-1 text-xs ${state.activeTool === t ? "bg-ink-700 text-ink-100" : "text-ink-300 hover:bg-ink-800"}`}
+            className={`flex items-center gap-1.5 rounded px-2 py-1 text-xs disabled:cursor-not-allowed disabled:opacity-40 ${state.activeTool === t ? "bg-ink-700 text-ink-100" : "text-ink-300 hover:bg-ink-800"}`}
           >
             {colour && <span aria-hidden="true" className="h-2 w-2 rounded-full" style={{ background: colour }} />}
             {TOOL_LABELS[t]}
@@ -77,6 +83,11 @@ export function ToolBar({ editor, state, save }: { editor: Editor; state: Editor
             Redo
           </button>
         </>
+      )}
+      {lockReason && (
+        <p role="status" data-testid="markup-lock" className="ml-2 text-xs text-warn-300">
+          {lockReason}
+        </p>
       )}
       <span className="ml-auto flex items-center gap-3">
         {state.canEdit && <SaveIndicator save={save} />}

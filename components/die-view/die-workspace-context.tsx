@@ -15,6 +15,7 @@ import { useReviewBench, type ReviewBench } from "@/components/review/use-review
 import { useSymmetryView, type SymmetryView } from "@/components/layout-reading/use-symmetry-view";
 import { useWorkModeInUrl } from "@/components/compare/use-work-mode-url";
 import type { WorkMode } from "@/components/compare/work-mode";
+import { lockReason, markupLocked } from "@/lib/review/review-status";
 import { useDie } from "./use-die";
 import { useMicrographs } from "./use-micrographs";
 
@@ -22,8 +23,12 @@ import { useMicrographs } from "./use-micrographs";
 export type DieWorkspace = {
   die: DieDto;
   userId: string;
-  /** The caller may change the die, its micrographs and its markup. */
+  /** The caller's role may change the die, its micrographs and its markup. */
   editable: boolean;
+  /** The caller may change the markup now: the role allows it and the die is not with the checker or signed off. */
+  markupEditable: boolean;
+  /** Why the markup is fixed for someone who could otherwise edit it, else null. */
+  markupLock: string | null;
   dieSize: { widthUm: number | null; heightUm: number | null };
   /** The reference micrograph's scale: µm shown to people get the decimals it resolves. */
   umPerPx: number | null;
@@ -88,12 +93,14 @@ export function DieWorkspaceProvider({
   const compareTop = work.kind === "compare" ? (list.find((m) => m.id === work.topId) ?? null) : null;
   const die = useDie(initial);
   const editable = can(die.yourRole, "edit");
+  const markupLock = editable && markupLocked(die.reviewStatus) ? lockReason(die.reviewStatus) : null;
+  const markupEditable = editable && !markupLock;
   const [viewerApi, setApi] = useState<ViewerApi | null>(null);
   // A viewer destroyed by a change of work area (single view ↔ alignment or comparison) until
   // the new one reports: never hand it on (OpenSeadragon clears its element on destroy).
   const api = viewerApi?.viewer.element ? viewerApi : null;
   const dieSize = useMemo(() => ({ widthUm: die.widthUm, heightUm: die.heightUm }), [die.widthUm, die.heightUm]);
-  const { editor, save, loadError } = useMarkupEditor(die.id, editable, userId, dieSize);
+  const { editor, save, loadError } = useMarkupEditor(die.id, markupEditable, userId, dieSize);
   const umPerPx = (list.find((m) => m.isReference) ?? shown)?.scaleUmPerPx ?? null;
   const state = useEditorState(editor);
   const shownTransform = shown?.transform ?? null;
@@ -106,6 +113,8 @@ export function DieWorkspaceProvider({
     die,
     userId,
     editable,
+    markupEditable,
+    markupLock,
     dieSize,
     umPerPx,
     micrographs,

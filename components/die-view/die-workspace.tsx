@@ -24,13 +24,13 @@ export function DieWorkspace({ initial, userId, linkedThreadId = null }: { initi
 }
 
 function WorkspaceBody() {
-  const { editor, state, save, dieSize, umPerPx } = useDieWorkspace();
+  const { editor, state, save, dieSize, umPerPx, markupLock } = useDieWorkspace();
   const panel = useSidePanelWidth();
   // A shape half drawn, or markup edits still being saved, would be lost by a reload: ask first.
   useUnsavedGuard(!!state?.drawing || save.status === "saving");
   return (
     <>
-      {editor && state && <ToolBar editor={editor} state={state} save={save} />}
+      {editor && state && <ToolBar editor={editor} state={state} save={save} lockReason={markupLock} />}
       <div className="flex min-h-0 flex-1">
         <WorkArea />
         <PanelResizer width={panel.width} onResize={panel.resize} />

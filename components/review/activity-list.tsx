@@ -18,9 +18,11 @@ const WORDS: Record<string, string> = {
   "comment.created": "commented",
   "comment.edited": "edited a comment",
   "comment.deleted": "deleted a comment",
-  "review.submit": "submitted the die for review",
-  "review.approve": "approved the die",
-  "review.request_changes": "requested changes",
+  "review.send": "sent the die to the checker",
+  "review.withdraw": "withdrew the die from the checker",
+  "review.sign_off": "signed off the die",
+  "review.return": "returned the die with remarks",
+  "revision.opened": "opened a new revision",
 };
 
 /** The die's activity from the audit trail, newest first, a page at a time. */

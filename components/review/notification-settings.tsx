@@ -7,8 +7,8 @@ import type { NotificationPrefs } from "@/lib/dto/notification-prefs";
 const LABELS: Record<keyof NotificationPrefs, string> = {
   comment: "A new comment on a thread I am in",
   mention: "Someone mentions me",
-  review_submitted: "A die is submitted for review (owners and reviewers)",
-  review_decision: "A decision on a die I analysed",
+  review_submitted: "A die is sent to the checker (owners and reviewers)",
+  review_decision: "A die I analysed is signed off, returned or withdrawn",
 };
 
 /** Which notification mails the user receives; each box saves at once. */

@@ -46,6 +46,8 @@ export const dies = pgTable(
     /** The engineer who reads the die; never its approver. */
     analystId: uuid("analyst_id").references(() => users.id, { onDelete: "set null" }),
     reviewStatus: reviewStatusEnum("review_status").notNull().default("draft"),
+    /** The revision being drawn or checked (1 at first); earlier ones are in die_revisions. */
+    revision: integer("revision").notNull().default(1),
     createdBy: uuid("created_by").references(() => users.id, { onDelete: "set null" }),
     createdAt: createdAt(),
     updatedAt: updatedAt(),

@@ -65,7 +65,7 @@ export const commentMentions = pgTable(
 
 export const reviewActionEnum = pgEnum("review_action", REVIEW_ACTIONS);
 
-/** The die's review history: every submit and decision with its message. */
+/** The die's check history: every move with its message and the revision it moved. */
 export const reviewEvents = pgTable(
   "review_events",
   {
@@ -78,6 +78,9 @@ export const reviewEvents = pgTable(
     fromStatus: reviewStatusEnum("from_status").notNull(),
     toStatus: reviewStatusEnum("to_status").notNull(),
     message: text("message").notNull().default(""),
+    revision: integer("revision").notNull().default(1),
+    /** A sign-off made while remarks were open: the message says why. */
+    overrideOpenRemarks: boolean("override_open_remarks").notNull().default(false),
     at: timestamp("at", { withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [index("review_events_die_idx").on(t.dieId, t.at)],

@@ -11,7 +11,7 @@ export const ACTIONS = ["read", "edit", "comment", "decide", "export", "manage_t
  * - read: see cases, dies, micrographs, markup, threads
  * - edit: create case/die, upload, edit markup, align
  * - comment: comment, reply, resolve
- * - decide: approve / request changes
+ * - decide: sign off / return with remarks
  * - export: annotated PNG, tables, report
  * - manage_team: invite, change roles, remove members
  */

@@ -15,6 +15,8 @@ export const queryKeys = {
   /** `ThreadDto[]`, owned by `useThreadList` (components/review/use-threads.ts). */
   threads: (dieId: string) => ["threads", dieId] as const,
   review: (dieId: string) => ["review", dieId] as const,
+  /** `RevisionDto[]`, owned by `RevisionList` (components/review/revision-list.tsx). */
+  revisions: (dieId: string) => ["revisions", dieId] as const,
   /** The die's audit trail, an infinite query. */
   activity: (dieId: string) => ["activity", dieId] as const,
   exports: (dieId: string) => ["exports", dieId] as const,

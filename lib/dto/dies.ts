@@ -14,6 +14,8 @@ export type DieDto = {
   analystId: string | null;
   analystName: string | null;
   reviewStatus: ReviewStatus;
+  /** The revision being drawn, checked or (when signed off) the last one frozen. */
+  revision: number;
   yourRole: TeamRole;
   createdAt: string;
   updatedAt: string;

@@ -7,6 +7,10 @@ export type ReviewEventDto = {
   fromStatus: ReviewStatus;
   toStatus: ReviewStatus;
   message: string;
+  /** The revision the move applied to. */
+  revision: number;
+  /** A sign-off over open remarks: the message says why. */
+  overrideOpenRemarks: boolean;
   actorId: string | null;
   actorName: string | null;
   at: string;

@@ -6,9 +6,13 @@ export { ILLUMINATIONS };
 export type Illumination = (typeof ILLUMINATIONS)[number];
 export { MARKUP_KINDS } from "@/lib/markup/types";
 
-export const REVIEW_STATUSES = ["draft", "in_review", "approved", "changes_requested"] as const;
+/**
+ * A die's check, in the words of engineering drawing checks (drawn → checked → signed off):
+ * being drawn, with the checker, signed off, or returned with remarks.
+ */
+export const REVIEW_STATUSES = ["draft", "with_checker", "signed_off", "returned"] as const;
 export type ReviewStatus = (typeof REVIEW_STATUSES)[number];
-export const REVIEW_ACTIONS = ["submit", "approve", "request_changes"] as const;
+export const REVIEW_ACTIONS = ["send", "withdraw", "sign_off", "return"] as const;
 export type ReviewAction = (typeof REVIEW_ACTIONS)[number];
 
 /** A micrograph's pyramid: waiting for a worker, being built, servable, or given up. */

@@ -12,7 +12,8 @@ export type TitleBlock = {
   readonly umPerPx: number;
   readonly date: string;
   readonly author: string;
-  readonly reviewStatus: string;
+  /** The revision and its sign-off, as `revisionStatement` words it. */
+  readonly revision: string;
 };
 
 const FOOTER_BACKGROUND = "#15191d";
@@ -38,7 +39,8 @@ function titleLines(t: TitleBlock, maxChars: number): string[] {
   const lines = [
     `${clip(t.caseTitle, 60)} · ${clip(t.dieName, 40)}`,
     `${clip(t.micrograph, 50)} (${t.illumination}) · ${formatScale(t.umPerPx)}`,
-    `${t.date} · exported by ${clip(t.author, 40)} · review: ${t.reviewStatus}`,
+    `${t.date} · exported by ${clip(t.author, 40)}`,
+    t.revision,
   ];
   return lines.map((l) => clip(l, maxChars));
 }

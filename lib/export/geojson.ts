@@ -1,5 +1,6 @@
 import type { Geometry } from "@/lib/geometry/types";
 import { MARKUP_SCHEMA_VERSION, type AnyShape, type MarkupKind } from "@/lib/markup/types";
+import type { RevisionStamp } from "@/lib/dto/revisions";
 
 /**
  * Markup as a GeoJSON FeatureCollection (RFC 7946). Coordinates are planar die-frame µm, not
@@ -15,6 +16,8 @@ type GeoJsonFrameInfo = {
   readonly frame: typeof GEOJSON_FRAME;
   readonly schemaVersion: number;
   readonly die?: { readonly name: string; readonly widthUm: number | null; readonly heightUm: number | null };
+  /** Which revision of the markup this is, and whether (by whom, when) it is signed off. */
+  readonly revision?: RevisionStamp;
 };
 
 export type MarkupFeature = {
@@ -38,10 +41,12 @@ export function shapeToFeature(shape: AnyShape): MarkupFeature {
 /**
  * Every shape of a die as one FeatureCollection, in the order given.
  * @param die the die's name and size, written into the `kerfline` member for the reader
+ * @param revision the revision the shapes belong to, written there too
  */
 export function markupToFeatureCollection(
   shapes: readonly AnyShape[],
   die?: { readonly name: string; readonly widthUm: number | null; readonly heightUm: number | null },
+  revision?: RevisionStamp,
 ): MarkupFeatureCollection {
   return {
     type: "FeatureCollection",
@@ -50,6 +55,7 @@ export function markupToFeatureCollection(
       frame: GEOJSON_FRAME,
       schemaVersion: MARKUP_SCHEMA_VERSION,
       ...(die ? { die: { name: die.name, widthUm: die.widthUm, heightUm: die.heightUm } } : {}),
+      ...(revision ? { revision } : {}),
     },
     features: shapes.map(shapeToFeature),
   };

@@ -13,6 +13,7 @@ export type ReportData = {
     readonly heightUm: number | null;
     readonly analyst: string;
     readonly reviewStatus: string;
+    readonly revision: string;
     readonly notes: string;
   };
   readonly overview: { readonly png: Uint8Array; readonly caption: string } | null;
@@ -171,26 +172,27 @@ function estimatesSection(w: PdfWriter, estimates: ReportData["estimates"]) {
 function reviewSection(w: PdfWriter, d: ReportData) {
   w.facts(
     [
-      ["Review status", d.die.reviewStatus],
+      ["Check status", d.die.reviewStatus],
+      ["Revision", d.die.revision],
       ["Analyst", d.die.analyst],
     ],
     9.5,
     110,
   );
   w.text("History", 11, { bold: true });
-  if (d.reviewHistory.length === 0) w.text("The die has not been submitted for review yet.", 9);
+  if (d.reviewHistory.length === 0) w.text("The die has not been sent to the checker yet.", 9);
   for (const h of d.reviewHistory) {
     w.text(`${h.at} · ${h.who} · ${h.action} (${h.from} to ${h.to})`, 9, { bold: true, gap: 1 });
     if (h.message) w.text(h.message, 9, { indent: 12, gap: 5 });
     else w.y -= 4;
   }
   w.y -= 4;
-  w.text("Threads", 11, { bold: true });
-  if (d.threads.length === 0) w.text("No review threads.", 9);
+  w.text("Remarks", 11, { bold: true });
+  if (d.threads.length === 0) w.text("No remarks.", 9);
   for (const t of d.threads) {
     w.ensure(40);
     const resolved = t.resolved ? `; ${t.resolved}` : "";
-    w.text(`Thread ${t.number} · ${t.status} · raised by ${t.author} on ${t.createdAt} · ${t.on}${resolved}`, 9.5, { bold: true, gap: 2 });
+    w.text(`Remark ${t.number} · ${t.status} · raised by ${t.author} on ${t.createdAt} · ${t.on}${resolved}`, 9.5, { bold: true, gap: 2 });
     for (const m of t.messages) {
       w.ensure(26); // the author line stays with the message's first line
       w.text(`${m.author}, ${m.at}${m.edited ? " (edited)" : ""}`, 8, { indent: 12, grey: true, gap: 0 });
@@ -213,7 +215,8 @@ function cover(w: PdfWriter, d: ReportData) {
       ["Die", d.die.name],
       ["Die size", d.die.widthUm && d.die.heightUm ? `${um(d.die.widthUm)} × ${um(d.die.heightUm)} µm` : "not recorded"],
       ["Analyst", d.die.analyst],
-      ["Review status", d.die.reviewStatus],
+      ["Check status", d.die.reviewStatus],
+      ["Revision", d.die.revision],
       ["Notes", d.die.notes],
       ["Generated", `${d.generatedAt} by ${d.generatedBy}`],
     ],

@@ -6,11 +6,11 @@ describe("inbox text", () => {
     expect(inboxText({ kind: "mention", author: "Demo Owner", dieName: "NV-2 die A", body: "please check\n\nthe  pad ring" })).toBe(
       "Demo Owner mentioned you on NV-2 die A: please check the pad ring",
     );
-    expect(inboxText({ kind: "review", action: "request_changes", author: "Demo Reviewer", dieName: "NV-2 die A", message: "" })).toBe(
-      "Demo Reviewer asked for changes on NV-2 die A",
+    expect(inboxText({ kind: "review", action: "return", author: "Demo Reviewer", dieName: "NV-2 die A", message: "" })).toBe(
+      "Demo Reviewer returned NV-2 die A with remarks",
     );
-    expect(inboxText({ kind: "review", action: "submit", author: "Demo Analyst", dieName: "D", message: "ready" })).toBe(
-      "Demo Analyst submitted D for review: ready",
+    expect(inboxText({ kind: "review", action: "send", author: "Demo Analyst", dieName: "D", message: "ready" })).toBe(
+      "Demo Analyst sent D to the checker: ready",
     );
   });
 

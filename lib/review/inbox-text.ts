@@ -1,4 +1,5 @@
 // The one-line text of an inbox item: who did what on which die, and the start of what they wrote.
+import { actionPhrase, type ReviewAction } from "./review-status";
 
 /** Longest excerpt of a comment or review message kept in an inbox item, in characters. */
 const INBOX_EXCERPT_CHARS = 160;
@@ -15,14 +16,12 @@ export function excerpt(text: string, max = INBOX_EXCERPT_CHARS): string {
 
 export type InboxEvent =
   | { kind: "mention" | "comment"; author: string; dieName: string; body: string }
-  | { kind: "review"; action: "submit" | "approve" | "request_changes"; author: string; dieName: string; message: string };
+  | { kind: "review"; action: ReviewAction; author: string; dieName: string; message: string };
 
 /** The text shown for an event in the inbox. */
 export function inboxText(e: InboxEvent): string {
   if (e.kind !== "review") return `${e.author} ${e.kind === "mention" ? "mentioned you on" : "replied on"} ${e.dieName}: ${excerpt(e.body)}`;
-  const what = { submit: `submitted ${e.dieName} for review`, approve: `approved ${e.dieName}`, request_changes: `asked for changes on ${e.dieName}` }[
-    e.action
-  ];
+  const what = actionPhrase(e.action, e.dieName);
   const said = excerpt(e.message);
   return said ? `${e.author} ${what}: ${said}` : `${e.author} ${what}`;
 }

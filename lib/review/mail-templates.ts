@@ -1,4 +1,5 @@
 import { commentHtml, escapeHtml } from "./format";
+import { actionPhrase, type ReviewAction } from "./review-status";
 
 /** One message as the outbox stores it. */
 export type MailContent = { readonly subject: string; readonly text: string; readonly html: string };
@@ -33,16 +34,10 @@ export function commentMail(p: { kind: "comment" | "mention"; author: string; di
   };
 }
 
-/** A die submitted for review, or a review decision, with the message and a link to the die. */
-export function reviewMail(p: {
-  action: "submit" | "approve" | "request_changes";
-  actor: string;
-  dieName: string;
-  message: string;
-  link: string;
-}): MailContent {
-  const what = { submit: "submitted for review", approve: "approved", request_changes: "sent back for changes" }[p.action];
-  const heading = `${p.actor} ${p.action === "submit" ? "submitted" : p.action === "approve" ? "approved" : "requested changes on"} ${p.dieName}`;
+/** A die sent to the checker, withdrawn, signed off or returned, with the message and a link to the die. */
+export function reviewMail(p: { action: ReviewAction; actor: string; dieName: string; message: string; link: string }): MailContent {
+  const what = { send: "sent to the checker", withdraw: "withdrawn from the checker", sign_off: "signed off", return: "returned with remarks" }[p.action];
+  const heading = `${p.actor} ${actionPhrase(p.action, p.dieName)}`;
   const message = p.message.trim() ? `\n\n${quote(p.message)}` : "";
   return {
     subject: `[Kerfline] ${p.dieName} ${what}`,

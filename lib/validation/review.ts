@@ -2,6 +2,7 @@ import { z } from "zod";
 import { uuidSchema } from "./common";
 import { roleSchema } from "./teams";
 import { anyGeometrySchema } from "./markup";
+import { REVIEW_ACTIONS } from "@/lib/dto/stored-values";
 
 /** Longest comment or review message accepted. */
 const MAX_COMMENT_CHARS = 10_000;
@@ -23,9 +24,12 @@ export type NewThreadInput = z.infer<typeof newThreadSchema>;
 export const commentSchema = z.strictObject({ body });
 
 export const reviewActionSchema = z.strictObject({
-  action: z.enum(["submit", "approve", "request_changes"], "must be one of submit, approve, request_changes"),
+  action: z.enum(REVIEW_ACTIONS, `must be one of ${REVIEW_ACTIONS.join(", ")}`),
   message: z.string({ error: "must be text" }).max(MAX_COMMENT_CHARS, `must be at most ${MAX_COMMENT_CHARS} characters`).default(""),
+  /** Sign off although remarks are still open: needs a message, which the history keeps. */
+  overrideOpenRemarks: z.boolean({ error: "must be true or false" }).optional(),
 });
+export type ReviewActionInput = z.infer<typeof reviewActionSchema>;
 
 export const invitationSchema = z.strictObject({
   email: z.string().trim().toLowerCase().pipe(z.email("must be an e-mail address")).pipe(z.string().max(320)),

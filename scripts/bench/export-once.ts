@@ -73,7 +73,7 @@ const title = {
   umPerPx: planned.plan.umPerPx,
   date: "2025-01-01",
   author: "bench",
-  reviewStatus: "draft",
+  revision: "Revision 1 · draft, not signed off",
 };
 const t0 = performance.now();
 const info = await renderAnnotatedPngFile(

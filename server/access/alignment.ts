@@ -2,6 +2,7 @@ import "server-only";
 import { eq } from "drizzle-orm";
 import { micrographs, type MicrographRow } from "@/db/schema";
 import { type Actor, type Db } from "./context";
+import { assertMarkupOpen } from "./markup-lock";
 import { loadMicrograph } from "./micrographs";
 import { recordAudit } from "./audit";
 import { BadRequestError } from "@/lib/errors";
@@ -80,6 +81,9 @@ export async function previewAlignment(db: Db, actor: Actor, id: string, body: A
 export async function saveAlignment(db: Db, actor: Actor, id: string, body: AlignmentBody) {
   return db.transaction(async (tx) => {
     const { row, die } = await loadMicrograph(tx, actor, id, "edit");
+    // The reference's placement is the die frame the markup is read in; other photos may be
+    // aligned while the die is checked (the checker often adds one to compare).
+    if (row.isReference) await assertMarkupOpen(tx, row.dieId);
     const r = solve(row, body);
     const [after] = await tx
       .update(micrographs)

@@ -36,7 +36,7 @@ function forbiddenMessage(role: TeamRole, action: TeamAction): string {
     read: "view this",
     edit: "create or change cases, dies, micrographs or markup",
     comment: "comment",
-    decide: "approve dies or request changes",
+    decide: "sign off dies or return them with remarks",
     export: "export",
     manage_team: "manage team members",
   };

@@ -2,6 +2,7 @@ import "server-only";
 import { and, eq, sql } from "drizzle-orm";
 import { dies, markup, micrographs, threads, type MarkupRow } from "@/db/schema";
 import type { Actor, Db } from "./context";
+import { assertMarkupOpen } from "./markup-lock";
 import { recordAudit } from "./audit";
 import { loadDie } from "./dies";
 import { BadRequestError } from "@/lib/errors";
@@ -112,6 +113,7 @@ export async function restoreDieFrame(db: Db, actor: Actor, dieId: string, input
   }
   return db.transaction(async (tx) => {
     const { row: die, teamId } = await loadDie(tx, actor, dieId, "edit");
+    await assertMarkupOpen(tx, dieId);
     const gone = await tx
       .delete(markup)
       .where(and(eq(markup.dieId, dieId), eq(markup.kind, "die_outline")))

@@ -22,6 +22,7 @@ function toDto(row: DieRow, c: { title: string; teamId: string }, analystName: s
     analystId: row.analystId,
     analystName,
     reviewStatus: row.reviewStatus,
+    revision: row.revision,
     yourRole: role,
     createdAt: row.createdAt.toISOString(),
     updatedAt: row.updatedAt.toISOString(),

@@ -10,6 +10,10 @@ import type { ThreadMark } from "@/lib/export/markup-svg";
 import type { TitleBlock } from "@/lib/export/footer-svg";
 import { ILLUMINATION_LABELS } from "@/lib/validation/micrographs";
 import { withShownPadStates } from "@/lib/markup/pad-state";
+import { revisionStatement } from "@/lib/review/revision-text";
+import type { RevisionStamp } from "@/lib/dto/revisions";
+import type { ReviewStatus } from "@/lib/dto/stored-values";
+import { revisionStamp } from "./revisions";
 
 /** Everything an export of one die needs, read after the caller was authorized. */
 export type DieSources = {
@@ -18,7 +22,9 @@ export type DieSources = {
     name: string;
     widthUm: number | null;
     heightUm: number | null;
-    reviewStatus: string;
+    reviewStatus: ReviewStatus;
+    /** The revision the markup belongs to and its sign-off. */
+    revision: RevisionStamp;
     notes: string;
     analystName: string | null;
     extentUm: ExtentUm | null;
@@ -57,6 +63,7 @@ export async function loadDieSources(db: Db, dieId: string): Promise<DieSources 
       widthUm: d.widthUm,
       heightUm: d.heightUm,
       reviewStatus: d.reviewStatus,
+      revision: await revisionStamp(db, d),
       notes: d.notes,
       analystName: found.analystName,
       extentUm: markupExtent(shapes),
@@ -134,7 +141,7 @@ export function titleBlockFor(src: DieSources, m: MicrographRow, umPerPx: number
     umPerPx,
     date: date.toISOString().slice(0, 10),
     author,
-    reviewStatus: src.die.reviewStatus.replace(/_/g, " "),
+    revision: revisionStatement(src.die.revision),
   };
 }
 

@@ -6,6 +6,7 @@ import { loadDie, loadDieOf } from "./dies";
 import type { DieDto } from "@/lib/dto/dies";
 import { recordAudit, snapshot } from "./audit";
 import { reframeToOutline } from "./die-frame";
+import { assertMarkupOpen } from "./markup-lock";
 import type { PolygonGeometry } from "@/lib/geometry/types";
 import { BadRequestError, ConflictError, NotFoundError } from "@/lib/errors";
 import { dieBounds } from "@/lib/markup/die-bounds";
@@ -132,6 +133,7 @@ export async function createMarkup(db: Db, actor: Actor, dieId: string, shapes: 
   try {
     return await db.transaction(async (tx) => {
       const { row: die, teamId } = await loadDie(tx, actor, dieId, "edit");
+      await assertMarkupOpen(tx, dieId);
       const outside = checkInsideDie(
         shapes.map((s) => s.geometry),
         dieBounds(die),
@@ -206,6 +208,7 @@ async function conflict(db: Db, id: string, action: string): Promise<never> {
 export async function updateMarkup(db: Db, actor: Actor, id: string, patch: MarkupPatch): Promise<AnyShape> {
   return db.transaction(async (tx) => {
     const { row, die } = await loadShape(tx, actor, id, "edit");
+    await assertMarkupOpen(tx, row.dieId);
     if (row.version !== patch.version) return conflict(tx, id, "change");
     const parsed = parseShapeOfKind(row.kind, patch.geometry ?? row.geometry, patch.properties ?? row.properties);
     if (!parsed.ok) throw refuse(parsed.failure);
@@ -239,6 +242,7 @@ export async function updateMarkup(db: Db, actor: Actor, id: string, patch: Mark
 export async function deleteMarkup(db: Db, actor: Actor, id: string, version?: number): Promise<void> {
   await db.transaction(async (tx) => {
     const { row, die } = await loadShape(tx, actor, id, "edit");
+    await assertMarkupOpen(tx, row.dieId);
     const where = version === undefined ? eq(markup.id, id) : and(eq(markup.id, id), eq(markup.version, version));
     const [gone] = await tx.delete(markup).where(where).returning();
     if (!gone) return conflict(tx, id, "deletion");

@@ -2,6 +2,7 @@ import "server-only";
 import { eq } from "drizzle-orm";
 import { micrographs } from "@/db/schema";
 import { type Actor, type Db } from "./context";
+import { assertMarkupOpen } from "./markup-lock";
 import { loadDie } from "./dies";
 import { listMicrographs, loadMicrograph } from "./micrographs";
 import type { MicrographDto } from "@/lib/dto/micrographs";
@@ -16,6 +17,7 @@ import { BadRequestError } from "@/lib/errors";
 export async function setReference(db: Db, actor: Actor, id: string): Promise<MicrographDto> {
   await db.transaction(async (tx) => {
     const { row, die } = await loadMicrograph(tx, actor, id, "edit");
+    await assertMarkupOpen(tx, row.dieId);
     if (!row.transform) throw new BadRequestError("Align this micrograph to the die frame before making it the reference.");
     if (row.isReference) return;
     const old = (await tx.select({ id: micrographs.id, isReference: micrographs.isReference }).from(micrographs).where(eq(micrographs.dieId, row.dieId))).find(

@@ -2,6 +2,7 @@ import "server-only";
 import { and, asc, eq, sql } from "drizzle-orm";
 import { jobs, micrographs, type MicrographRow } from "@/db/schema";
 import { type Actor, type Db } from "./context";
+import { assertMarkupOpen } from "./markup-lock";
 import { loadDie, loadDieOf } from "./dies";
 import { recordAudit } from "./audit";
 import { BadRequestError, ConflictError } from "@/lib/errors";
@@ -120,6 +121,8 @@ export async function updateMicrograph(db: Db, actor: Actor, id: string, patch: 
       changes.calibration = patch.calibration;
     }
     if (scale !== undefined) {
+      // A new scale on the reference re-places the die frame the markup is read in.
+      if (row.isReference) await assertMarkupOpen(tx, row.dieId);
       changes.scaleUmPerPx = scale;
       if (row.isReference && row.height) changes.transform = frameFromScale(scale, row.height) as Transform;
     }
@@ -141,6 +144,7 @@ export async function updateMicrograph(db: Db, actor: Actor, id: string, patch: 
 export async function deleteMicrograph(db: Db, actor: Actor, id: string): Promise<MicrographRow> {
   return db.transaction(async (tx) => {
     const { row, die } = await loadMicrograph(tx, actor, id, "edit");
+    if (row.isReference) await assertMarkupOpen(tx, row.dieId);
     await tx.delete(jobs).where(and(eq(jobs.subjectId, id), eq(jobs.kind, "tile")));
     await tx.delete(micrographs).where(eq(micrographs.id, id));
     if (row.isReference) {

@@ -13,6 +13,8 @@ import type { ReportData } from "@/lib/export/report-pdf";
 import { ILLUMINATION_LABELS } from "@/lib/validation/micrographs";
 import { savedEstimatesOf, summariseSavedEstimate } from "@/lib/layout-reading/saved-estimates";
 import type { AnyShape } from "@/lib/markup/types";
+import { REVIEW_STATUS_LABELS } from "@/lib/review/review-status";
+import { revisionStatement } from "@/lib/review/revision-text";
 
 const day = (d: Date) => d.toISOString().slice(0, 16).replace("T", " ");
 
@@ -127,7 +129,8 @@ export async function loadReport(db: Db, actor: Actor, dieId: string, renderOver
       widthUm: src.die.widthUm,
       heightUm: src.die.heightUm,
       analyst: src.die.analystName ?? "—",
-      reviewStatus: src.die.reviewStatus.replace(/_/g, " "),
+      reviewStatus: REVIEW_STATUS_LABELS[src.die.reviewStatus],
+      revision: revisionStatement(src.die.revision),
       notes: src.die.notes,
     },
     overview: await renderOverview(src, ms, me),

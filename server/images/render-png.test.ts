@@ -69,7 +69,7 @@ const title = {
   umPerPx: 1,
   date: "2025-01-02",
   author: "Ada",
-  reviewStatus: "draft",
+  revision: "Revision 1 · draft, not signed off",
 };
 
 function plan(req: Parameters<typeof planRender>[2]): RenderPlan {

@@ -163,6 +163,7 @@ function exportTextChunks(title: TitleBlock, umPerPx: number): Record<string, st
     Software: "Kerfline",
     "Creation Time": title.date,
     Author: title.author,
+    Revision: title.revision,
   };
 }
 

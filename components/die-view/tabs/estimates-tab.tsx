@@ -5,7 +5,7 @@ import { useDieWorkspace } from "../die-workspace-context";
 
 /** Estimates on the selected shapes. */
 export function EstimatesTab() {
-  const { editor, state, selected, editable } = useDieWorkspace();
+  const { editor, state, selected, markupEditable } = useDieWorkspace();
   if (!editor || !state) return null;
-  return <EstimatesPanel selected={selected} editor={editor} canEdit={editable} />;
+  return <EstimatesPanel selected={selected} editor={editor} canEdit={markupEditable} />;
 }

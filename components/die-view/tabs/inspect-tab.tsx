@@ -6,11 +6,11 @@ import { useDieWorkspace } from "../die-workspace-context";
 
 /** The selected shapes' fields, the legend with its visibility switches, and the labels switch. */
 export function InspectTab() {
-  const { editor, state, selected, editable, dieSize, umPerPx, markup } = useDieWorkspace();
+  const { editor, state, selected, markupEditable, dieSize, umPerPx, markup } = useDieWorkspace();
   return (
     <div className="flex flex-col gap-5">
       {editor && state ? (
-        <Inspector editor={editor} selected={selected} canEdit={editable} die={dieSize} umPerPx={umPerPx} />
+        <Inspector editor={editor} selected={selected} canEdit={markupEditable} die={dieSize} umPerPx={umPerPx} />
       ) : (
         <p className="text-sm text-ink-400">Loading markup…</p>
       )}

@@ -5,7 +5,7 @@ import { useDieWorkspace } from "../die-workspace-context";
 
 /** Every shape of the die in one table, with its author. */
 export function MarkupTab() {
-  const { die, editor, state, markup, editable, umPerPx } = useDieWorkspace();
+  const { die, editor, state, markup, markupEditable, umPerPx } = useDieWorkspace();
   if (!editor || !state) return null;
   return (
     <MarkupTablePanel
@@ -13,7 +13,7 @@ export function MarkupTab() {
       shapes={state.shapeList}
       authors={markup.authors}
       editor={editor}
-      canEdit={editable}
+      canEdit={markupEditable}
       onPick={markup.pick}
       umPerPx={umPerPx}
     />

@@ -1,5 +1,7 @@
 import { z } from "zod";
 import { apiRoute } from "@/server/http/route";
+import { revisionStamp } from "@/server/access/revisions";
+import { revisionFileTag } from "@/lib/review/revision-text";
 import { listMarkup, markupAuthors } from "@/server/access/markup";
 import { uuidSchema } from "@/lib/validation/common";
 import { markupTableCsv, markupTableRows } from "@/lib/markup/markup-table";
@@ -17,7 +19,7 @@ export const GET = apiRoute({ params }, async ({ db, actor, params }) => {
   return new Response(markupTableCsv(rows, scale === null ? undefined : umDecimals(scale)), {
     headers: {
       "Content-Type": "text/csv; charset=utf-8",
-      "Content-Disposition": attachmentDisposition(`${die.name} markup.csv`),
+      "Content-Disposition": attachmentDisposition(`${die.name} ${revisionFileTag(await revisionStamp(db, die))} markup.csv`),
       "Cache-Control": "private, no-store",
     },
   });

@@ -1,5 +1,7 @@
 import { z } from "zod";
 import { apiRoute } from "@/server/http/route";
+import { revisionStamp } from "@/server/access/revisions";
+import { revisionFileTag } from "@/lib/review/revision-text";
 import { BadRequestError, ConflictError } from "@/lib/errors";
 import { listMarkup } from "@/server/access/markup";
 import { uuidSchema } from "@/lib/validation/common";
@@ -26,7 +28,7 @@ export const GET = apiRoute({ params, query: padTableQuerySchema }, async ({ db,
   return new Response(padTableCsv(r.table, scale === null ? {} : { decimals: umDecimals(scale) }), {
     headers: {
       "Content-Type": "text/csv; charset=utf-8",
-      "Content-Disposition": attachmentDisposition(`${die.name} pad table.csv`),
+      "Content-Disposition": attachmentDisposition(`${die.name} ${revisionFileTag(await revisionStamp(db, die))} pad table.csv`),
       "Cache-Control": "private, no-store",
     },
   });

@@ -114,7 +114,7 @@ function sections(d: ReportData): Section[] {
             ),
     },
     { title: "Saved estimates", draw: (w) => estimatesSection(w, d.estimates) },
-    { title: "Review", draw: (w) => reviewSection(w, d) },
+    { title: "Check and remarks", draw: (w) => reviewSection(w, d) },
     {
       title: "Micrographs",
       draw: (w) =>

@@ -2,6 +2,7 @@ import "server-only";
 import { loadDie } from "./dies";
 import { createMarkup } from "./markup";
 import { type Actor, type Db } from "./context";
+import { assertMarkupOpen } from "./markup-lock";
 import { BadRequestError } from "@/lib/errors";
 import { dieBounds } from "@/lib/markup/die-bounds";
 import { parseMarkupImport } from "@/lib/export/geojson-import";
@@ -24,6 +25,8 @@ export type ImportResult = {
  */
 export async function importMarkup(db: Db, actor: Actor, dieId: string, body: unknown, dryRun: boolean): Promise<ImportResult> {
   const { row } = await loadDie(db, actor, dieId, "edit");
+  // A fixed die says so before any word about the file (createMarkup checks again, in its transaction).
+  if (!dryRun) await assertMarkupOpen(db, dieId);
   const parsed = parseMarkupImport(body, dieBounds(row));
   if (!parsed.ok) throw new BadRequestError(parsed.failure.message, parsed.failure.issues);
   const { shapes, counts, unlinkedWireBonds } = parsed.value;

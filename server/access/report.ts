@@ -13,8 +13,16 @@ import type { ReportData } from "@/lib/export/report-pdf";
 import { ILLUMINATION_LABELS } from "@/lib/validation/micrographs";
 import { savedEstimatesOf, summariseSavedEstimate } from "@/lib/layout-reading/saved-estimates";
 import type { AnyShape } from "@/lib/markup/types";
-import { REVIEW_STATUS_LABELS } from "@/lib/review/review-status";
+import { REVIEW_STATUS_LABELS, type ReviewAction } from "@/lib/review/review-status";
 import { revisionStatement } from "@/lib/review/revision-text";
+
+/** The history line's verb for each check move. */
+const CHECK_MOVES: Record<ReviewAction, string> = {
+  send: "sent to the checker",
+  withdraw: "withdrawn",
+  sign_off: "signed off",
+  return: "returned with remarks",
+};
 
 const day = (d: Date) => d.toISOString().slice(0, 16).replace("T", " ");
 
@@ -58,18 +66,18 @@ async function reviewParts(db: Db, dieId: string, shapes: readonly AnyShape[]): 
     reviewHistory: events.map((e) => ({
       at: day(e.at),
       who: who(e.actorId),
-      action: e.action.replace(/_/g, " "),
-      from: e.fromStatus.replace(/_/g, " "),
-      to: e.toStatus.replace(/_/g, " "),
+      action: `${CHECK_MOVES[e.action]}${e.overrideOpenRemarks ? " over open remarks" : ""}, revision ${e.revision}`,
+      from: REVIEW_STATUS_LABELS[e.fromStatus].toLowerCase(),
+      to: REVIEW_STATUS_LABELS[e.toStatus].toLowerCase(),
       message: e.message,
     })),
     threads: ts.map((t, i) => ({
       number: i + 1,
-      status: t.status,
+      status: t.status === "resolved" ? "closed" : "open",
       author: who(t.createdBy),
       createdAt: day(t.createdAt),
       on: shapeName(shapes, t.shapeId),
-      resolved: t.status === "resolved" ? `resolved by ${who(t.resolvedBy)}${t.resolvedAt ? ` on ${day(t.resolvedAt)}` : ""}` : null,
+      resolved: t.status === "resolved" ? `closed by ${who(t.resolvedBy)}${t.resolvedAt ? ` on ${day(t.resolvedAt)}` : ""}` : null,
       messages: cs
         .filter((c) => c.threadId === t.id)
         .map((c) => ({ author: who(c.authorId), at: day(c.createdAt), body: c.body, edited: c.editedAt !== null })),

@@ -73,7 +73,7 @@ describe("die bodies and ids", () => {
     { name: "a width given as a string", body: { name: "d", widthUm: "2400" }, status: 400, message: /widthUm/ },
     { name: "an absurd height", body: { name: "d", heightUm: 1e12 }, status: 400, message: /heightUm/ },
     { name: "a missing name", body: { widthUm: 10 }, status: 400, message: /name/ },
-    { name: "an unknown field", body: { name: "d", reviewStatus: "approved" }, status: 400, message: /reviewStatus|nrecognized/ },
+    { name: "an unknown field", body: { name: "d", reviewStatus: "signed_off" }, status: 400, message: /reviewStatus|nrecognized/ },
   ];
   for (const c of DIE_BODIES) {
     it(`answers ${c.status} for ${c.name} and writes no row`, async () => {

@@ -85,7 +85,7 @@ beforeAll(async () => {
     },
   ];
   expect((await world.clients.analyst.request("POST", `/api/dies/${dieId}/markup`, shapes)).status).toBe(201);
-  // Review: one open thread, one resolved, and the die submitted for review.
+  // Check: one open remark, one closed, and the die sent to the checker.
   const open = await world.clients.reviewer.request<{ id: string }>("POST", `/api/dies/${dieId}/threads`, {
     region: rect(400, 400, 50, 50),
     body: "Is the bandgap trimmed? Ω ± 5 %",
@@ -98,7 +98,7 @@ beforeAll(async () => {
   expect((await world.clients.analyst.request("POST", `/api/threads/${open.body.id}/comments`, { body: REPLY })).status).toBe(201);
   expect((await world.clients.reviewer.request("POST", `/api/dies/${dieId}/threads`, { region: rect(600, 300, 50, 50), body: LONG_REMARK })).status).toBe(201);
   expect((await world.clients.reviewer.request("POST", `/api/threads/${closed.body.id}/resolve`, {})).status).toBe(200);
-  expect((await world.clients.analyst.request("POST", `/api/dies/${dieId}/review`, { action: "submit", message: "ready for a look" })).status).toBe(200);
+  expect((await world.clients.analyst.request("POST", `/api/dies/${dieId}/review`, { action: "send", message: "ready for a look" })).status).toBe(200);
 });
 
 async function fetchPdf(who: Who) {
@@ -147,7 +147,15 @@ describe("PDF die report", () => {
     } finally {
       rmSync(dir, { recursive: true, force: true });
     }
-    const flat = text.split(/\s+/).filter(Boolean).join(" ");
+    // pdftotext puts each page's running footer between the lines a page break splits; drop
+    // those footers so a remark that runs over to the next page reads as one text.
+    const flat = text
+      .split("\n")
+      .filter((line) => !/ · page \d+ of \d+$/.test(line.trim()))
+      .join("\n")
+      .split(/\s+/)
+      .filter(Boolean)
+      .join(" ");
     for (const m of [LONG_REMARK, REPLY, "Is the bandgap trimmed? Ω ± 5 %", "Pad pitch checked", "ready for a look"]) expect(flat).toContain(m);
     expect(text).not.toContain("…");
     // The reply under its author and full date and time.
@@ -184,7 +192,8 @@ describe("PDF die report", () => {
     expect(all).toContain("ready for a look");
     expect(all).toContain("Is the bandgap trimmed? Ω ± 5 %");
     expect(all).toContain("Pad pitch checked");
-    expect(all).toMatch(/resolved/);
+    expect(all).toMatch(/closed by/);
+    expect(all).toContain("Revision 1 · with checker, not signed off");
     expect(all).toMatch(/[µμ]m/); // pdfjs reports MICRO SIGN as its compatibility form, GREEK MU
   });
 

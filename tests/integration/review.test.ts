@@ -148,75 +148,13 @@ describe("comment bodies", () => {
   });
 });
 
-describe("POST /api/dies/{dieId}/review", () => {
-  for (const who of EVERYONE) {
-    const submit = who === "anonymous" ? 401 : who === "outsider" ? 404 : ["owner", "analyst"].includes(who) ? 200 : 403;
-    it(`answers submit ${submit} for ${who} on a draft`, async () => {
-      const { dieId } = await freshCase(world.clients.owner, world.teamId);
-      const res = await world.clients[who].request("POST", `/api/dies/${dieId}/review`, { action: "submit", message: "ready" });
-      expect(res.status).toBe(submit);
-      const die = (await world.clients.owner.get<{ reviewStatus: string }>(`/api/dies/${dieId}`)).body;
-      expect(die.reviewStatus).toBe(submit === 200 ? "in_review" : "draft");
-    });
-  }
-
-  for (const who of EVERYONE) {
-    // The die is made by the analyst (its analyst): the owner and the reviewer may decide.
-    const approve = who === "anonymous" ? 401 : who === "outsider" ? 404 : ["owner", "reviewer"].includes(who) ? 200 : 403;
-    it(`answers approve ${approve} for ${who} on a die in review`, async () => {
-      const { caseId } = await freshCase(world.clients.owner, world.teamId);
-      const d = await world.clients.analyst.request<{ id: string }>("POST", `/api/cases/${caseId}/dies`, {
-        name: "analyst's die",
-        widthUm: 1000,
-        heightUm: 800,
-      });
-      expect((await world.clients.analyst.request("POST", `/api/dies/${d.body.id}/review`, { action: "submit", message: "" })).status).toBe(200);
-      const res = await world.clients[who].request("POST", `/api/dies/${d.body.id}/review`, { action: "approve", message: "looks right" });
-      expect(res.status).toBe(approve);
-      const die = (await world.clients.owner.get<{ reviewStatus: string }>(`/api/dies/${d.body.id}`)).body;
-      expect(die.reviewStatus).toBe(approve === 200 ? "approved" : "in_review");
-    });
-  }
-
-  it("never lets the die's analyst decide, even as an owner", async () => {
-    const { dieId } = await freshCase(world.clients.owner, world.teamId); // the owner made it: its analyst
-    await world.clients.owner.request("POST", `/api/dies/${dieId}/review`, { action: "submit", message: "" });
-    for (const action of ["approve", "request_changes"]) {
-      const res = await world.clients.owner.request<{ error: string }>("POST", `/api/dies/${dieId}/review`, { action, message: "" });
-      expect(res.status).toBe(403);
-      expect(res.body.error).toMatch(/analyst/);
-    }
-  });
-
-  it("follows draft → in review → changes requested → in review → approved, keeping the history", async () => {
-    const { dieId } = await freshCase(world.clients.owner, world.teamId);
-    const step = (c: ApiClient, action: string, message = "") =>
-      c.request<{ reviewStatus: string; error: string }>("POST", `/api/dies/${dieId}/review`, { action, message });
-    expect((await step(world.clients.reviewer, "approve")).status).toBe(409);
-    expect((await step(world.clients.owner, "submit", "first pass")).body.reviewStatus).toBe("in_review");
-    expect((await step(world.clients.owner, "submit")).status).toBe(409);
-    expect((await step(world.clients.reviewer, "request_changes", "label VB2")).body.reviewStatus).toBe("changes_requested");
-    expect((await step(world.clients.owner, "submit", "labelled")).body.reviewStatus).toBe("in_review");
-    expect((await step(world.clients.reviewer, "approve", "ok")).body.reviewStatus).toBe("approved");
-    expect((await step(world.clients.reviewer, "request_changes")).status).toBe(409);
-    const history = (await world.clients.viewer.get<{ action: string; message: string; toStatus: string }[]>(`/api/dies/${dieId}/review`)).body;
-    expect(history.map((h) => h.action)).toEqual(["approve", "submit", "request_changes", "submit"]);
-    expect(history[2].message).toBe("label VB2");
-  });
-
-  it("refuses an unknown action with 400", async () => {
-    const { dieId } = await freshCase(world.clients.owner, world.teamId);
-    expect((await world.clients.owner.request("POST", `/api/dies/${dieId}/review`, { action: "publish" })).status).toBe(400);
-  });
-});
-
 describe("GET /api/dies/{dieId}/activity", () => {
   it("lists markup, comments, resolves and review steps newest first, page by page", async () => {
     const { dieId } = await freshCase(world.clients.owner, world.teamId);
     await addPad(world.clients.owner, dieId);
     const t = await newThread(dieId);
     await world.clients.reviewer.request("POST", `/api/threads/${t.id}/resolve`);
-    await world.clients.owner.request("POST", `/api/dies/${dieId}/review`, { action: "submit", message: "go" });
+    await world.clients.owner.request("POST", `/api/dies/${dieId}/review`, { action: "send", message: "go" });
     type Page = { items: { id: string; action: string }[]; nextBefore: string | null };
     const seen: string[] = [];
     let before: string | null = null;
@@ -228,7 +166,7 @@ describe("GET /api/dies/{dieId}/activity", () => {
       before = page.body.nextBefore;
     } while (before);
     // A thread and its first comment are written in one transaction and share its time.
-    expect(seen.slice(0, 2)).toEqual(["review.submit", "thread.resolved"]);
+    expect(seen.slice(0, 2)).toEqual(["review.send", "thread.resolved"]);
     expect(seen.slice(2, 4).sort()).toEqual(["comment.created", "thread.created"]);
     expect(seen.slice(4)).toEqual(["markup.created", "die.created"]);
     expect((await world.clients.outsider.get(`/api/dies/${dieId}/activity`)).status).toBe(404);

@@ -3,11 +3,13 @@ export * from "./people";
 export * from "./dies";
 export * from "./review";
 export * from "./work";
+export * from "./sample";
 export * from "./relations";
 
 import type { auditEvents, exports, jobs } from "./work";
 import type { cases, dies, markup, micrographs, reviewStatusEnum } from "./dies";
 import type { comments, inboxItems, outbox, reviewEvents, threads } from "./review";
+import type { caseSamples, custodyEvents } from "./sample";
 import type { invitations, memberships, roleEnum, teams, users } from "./people";
 
 export type User = typeof users.$inferSelect;
@@ -28,3 +30,5 @@ export type OutboxRow = typeof outbox.$inferSelect;
 export type ExportRow = typeof exports.$inferSelect;
 export type MarkupRow = typeof markup.$inferSelect;
 export type InboxItemRow = typeof inboxItems.$inferSelect;
+export type CaseSampleRow = typeof caseSamples.$inferSelect;
+export type CustodyEventRow = typeof custodyEvents.$inferSelect;

@@ -1,5 +1,6 @@
 import { describe, expect, it } from "vitest";
-import { CAUTIONS, DEFER_TO_LAB, HAZARDS, METHOD_LABELS, PROBING_CAUTION, cautionFor, cautionsForMethods } from "./cautions";
+import { CAUTIONS, DEFER_TO_LAB, HAZARDS, PROBING_CAUTION, cautionFor, cautionsForMethods } from "./cautions";
+import { METHOD_LABELS } from "@/lib/sample/labels";
 import { PREPARATION_METHODS } from "@/lib/dto/stored-values";
 
 describe("sample preparation cautions", () => {

@@ -68,19 +68,6 @@ export const METHOD_HAZARD: Readonly<Record<PreparationMethod, Hazard>> = {
   other: "general",
 };
 
-/** Plain labels for the method select, the record and the report. */
-export const METHOD_LABELS: Readonly<Record<PreparationMethod, string>> = {
-  acid_decap: "Acid decapsulation",
-  laser_decap: "Laser decapsulation",
-  plasma_etch: "Plasma etching",
-  mechanical_polish: "Mechanical polishing",
-  delid: "Lid removal",
-  delayer_wet: "Wet delayering",
-  delayer_rie: "Reactive-ion delayering",
-  cross_section: "Cross-sectioning",
-  other: "Other",
-};
-
 /** The caution to show beside a step with this method. */
 export function cautionFor(method: PreparationMethod): Caution {
   return CAUTIONS[METHOD_HAZARD[method]];

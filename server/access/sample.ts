@@ -1,6 +1,6 @@
 import "server-only";
 import { asc, eq } from "drizzle-orm";
-import { caseSamples, custodyEvents, users, type CaseSampleRow, type CustodyEventRow } from "@/db/schema";
+import { caseSamples, custodyEvents, dies, users, type CaseSampleRow, type CustodyEventRow } from "@/db/schema";
 import { type Actor, type Db } from "./context";
 import { loadCase } from "./cases";
 import { recordAudit } from "./audit";
@@ -82,4 +82,15 @@ export async function appendCustody(db: Db, actor: Actor, caseId: string, input:
     await recordAudit(tx, actor, { teamId: c.teamId, action: "custody.appended", entityType: "custody_event", entityId: row.id, after: row });
     return custodyDto(row);
   });
+}
+
+/**
+ * The sample record and custody log of the case a die belongs to, for the die report. No
+ * authorization here: the report's loader has checked the caller's right on the die.
+ */
+export async function sampleOfDie(db: Db, dieId: string): Promise<{ record: SampleRecordDto; custody: CustodyEventDto[] }> {
+  const [die] = await db.select({ caseId: dies.caseId }).from(dies).where(eq(dies.id, dieId));
+  if (!die) return { record: recordDto(undefined), custody: [] };
+  const rows = await db.select().from(custodyEvents).where(eq(custodyEvents.caseId, die.caseId)).orderBy(asc(custodyEvents.at), asc(custodyEvents.seq));
+  return { record: recordDto(await readRecord(db, die.caseId)), custody: rows.map(custodyDto) };
 }

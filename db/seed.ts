@@ -29,7 +29,12 @@ export const DEMO = {
       "Differential layout, mirror-symmetric about a horizontal axis: LNA, mixer, IF buffer. " +
       "Opened by acid decapsulation in the wet lab: see the sample record.",
   },
-  die: { name: "NV-24R die A", widthUm: 2400, heightUm: 1600, notes: "Die about 2.40 mm × 1.60 mm, 22 bond pads. Mask id NVK-R24-C printed on the die." },
+  die: {
+    name: "NV-24R die A",
+    widthUm: 2400,
+    heightUm: 1600,
+    notes: "Die about 2.40 mm × 1.60 mm, 22 bond pads. Marks on the die: NORDVIK, NV-24R, mask id NVK-M4417B, date code 2318.",
+  },
 } as const;
 
 /** Seeds the demo scenario when the database has no users yet. Returns whether it seeded. */

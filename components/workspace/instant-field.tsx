@@ -46,7 +46,7 @@ export function InstantField<T extends FieldValues>({
         onBlur={field.onBlur}
         aria-invalid={!!error}
         aria-describedby={error ? `${id}-error` : undefined}
-        className="w-full rounded-md border border-ink-700 bg-ink-900 px-2.5 py-1.5 text-sm text-ink-100 focus:border-kerf-500 focus:outline-none aria-[invalid=true]:border-danger-500"
+        className="w-full rounded-md border border-ink-700 bg-ink-900 px-2.5 py-1.5 text-sm text-ink-100 [color-scheme:dark] focus:border-kerf-500 focus:outline-none aria-[invalid=true]:border-danger-500"
       />
       {error && (
         <p id={`${id}-error`} role="alert" className="text-xs text-danger-400">

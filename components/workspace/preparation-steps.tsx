@@ -29,15 +29,8 @@ export function PreparationSteps({ control, register, errors, editable }: Props)
           const method = methods?.[i]?.method ?? f.method;
           return (
             <li key={f.id} className="grid gap-3 rounded-md border border-ink-800 bg-ink-950/40 p-3 lg:grid-cols-[1fr_20rem]">
-              <fieldset className="flex flex-col gap-2" aria-label={`Step ${i + 1}`}>
-                <div className="flex items-center justify-between">
-                  <legend className="text-xs font-semibold uppercase tracking-wide text-ink-400">Step {i + 1}</legend>
-                  {editable && (
-                    <Button variant="ghost" onClick={() => remove(i)} aria-label={`Remove step ${i + 1}`}>
-                      Remove step
-                    </Button>
-                  )}
-                </div>
+              <fieldset className="flex flex-col gap-2">
+                <legend className="pb-1 text-xs font-semibold uppercase tracking-wide text-ink-400">Step {i + 1}</legend>
                 <div className="flex flex-col gap-1">
                   <label htmlFor={id("method")} className="text-xs font-medium text-ink-300">
                     Method
@@ -61,6 +54,13 @@ export function PreparationSteps({ control, register, errors, editable }: Props)
                   <InstantField control={control} name={`preparation.${i}.performedAt`} id={id("at")} label="Performed at" error={e?.performedAt?.message} />
                 </div>
                 <TextArea id={id("notes")} label="Notes" error={e?.notes?.message} {...register(`preparation.${i}.notes`)} />
+                {editable && (
+                  <div className="flex justify-end">
+                    <Button variant="ghost" onClick={() => remove(i)} aria-label={`Remove step ${i + 1}`}>
+                      Remove step
+                    </Button>
+                  </div>
+                )}
               </fieldset>
               <CautionNote caution={cautionFor(method)} className="self-start" />
             </li>

@@ -58,11 +58,11 @@ function SampleRecordForm({ caseId, record, editable }: { caseId: string; record
       onSubmit={form.handleSubmit((values) => save.mutate(values))}
     >
       <fieldset disabled={!editable} className="flex flex-col gap-4">
-        <div className="grid gap-3 md:grid-cols-2">
+        <div className="grid gap-3 md:grid-cols-3">
           <InstantField control={control} name="receivedAt" id="sample-received-at" label="Received at" error={e.receivedAt?.message} />
           <TextField id="sample-received-from" label="Received from" error={e.receivedFrom?.message} {...register("receivedFrom")} />
-          <TextField id="sample-condition" label="Condition on receipt" error={e.condition?.message} {...register("condition")} />
           <TextField id="sample-storage" label="Storage location" error={e.storageLocation?.message} {...register("storageLocation")} />
+          <TextField id="sample-condition" label="Condition on receipt" className="md:col-span-3" error={e.condition?.message} {...register("condition")} />
         </div>
         <PreparationSteps control={control} register={register} errors={e} editable={editable} />
       </fieldset>

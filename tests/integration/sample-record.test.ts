@@ -1,5 +1,8 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import path from "node:path";
+import { execFileSync } from "node:child_process";
+import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
+import { tmpdir } from "node:os";
 import { PGlite } from "@electric-sql/pglite";
 import { drizzle } from "drizzle-orm/pglite";
 import { migrate } from "drizzle-orm/pglite/migrator";
@@ -92,6 +95,33 @@ describe("GET|PUT /api/cases/{caseId}/sample", () => {
     expect(rec.preparation[0]).toMatchObject({ method: "acid_decap", performedBy: "Demo Analyst" });
     const log = (await world.clients.viewer.get<CustodyEventDto[]>(custody(demo.id))).body;
     expect(log.slice(0, 4).map((e) => e.action)).toEqual(["received", "stored", "checked_out", "returned"]);
+  });
+});
+
+describe("the die report's sample record", () => {
+  // poppler's pdftotext is an independent reader of what the report's pages draw.
+  it("prints the demo case's preparation, the acid caution and the custody log", async () => {
+    const cases = (await world.clients.viewer.get<{ id: string; title: string }[]>("/api/cases")).body;
+    const demo = cases.find((c) => c.title === "NV-24R receiver teardown")!;
+    const dies = (await world.clients.viewer.get<{ id: string }[]>(`/api/cases/${demo.id}/dies`)).body;
+    const res = await fetch(`${world.clients.viewer.baseUrl}/api/dies/${dies[0].id}/report.pdf`, { headers: { cookie: world.clients.viewer.cookie } });
+    expect(res.status).toBe(200);
+    const dir = mkdtempSync(path.join(tmpdir(), "sample-report-"));
+    try {
+      writeFileSync(path.join(dir, "r.pdf"), Buffer.from(await res.arrayBuffer()));
+      const text = execFileSync("pdftotext", ["-layout", "-enc", "UTF-8", path.join(dir, "r.pdf"), "-"], { encoding: "utf8" }).replace(/\s+/g, " ");
+      for (const want of [
+        "Sample record",
+        "Nordvik Semiconductor field returns desk",
+        "Acid decapsulation and wet etching",
+        "chemical hygiene plan",
+        "Chain of custody",
+        "Checked out",
+      ])
+        expect(text).toContain(want);
+    } finally {
+      rmSync(dir, { recursive: true, force: true });
+    }
   });
 });
 

@@ -56,7 +56,7 @@ export const CAUTIONS: Readonly<Record<Hazard, Caution>> = {
 };
 
 /** Which caution applies to each preparation method. */
-export const METHOD_HAZARD: Readonly<Record<PreparationMethod, Hazard>> = {
+const METHOD_HAZARD: Readonly<Record<PreparationMethod, Hazard>> = {
   acid_decap: "acid",
   delayer_wet: "acid",
   laser_decap: "laser",

@@ -14,7 +14,7 @@ const isoInstant = z
 const notes = z.string().trim().max(4000, "must be at most 4000 characters");
 
 /** One preparation step of the sample record. */
-export const preparationStepSchema = z.strictObject({
+const preparationStepSchema = z.strictObject({
   method: z.enum(PREPARATION_METHODS, { error: `must be one of ${PREPARATION_METHODS.join(", ")}` }),
   chemicals: line(300),
   equipment: line(300),

@@ -38,6 +38,12 @@ async function readRecord(db: Db, caseId: string): Promise<CaseSampleRow | undef
   return (await db.select().from(caseSamples).where(eq(caseSamples.caseId, caseId)))[0];
 }
 
+/** Oldest first by server time; entries of one instant in the order they were made. */
+async function custodyOf(db: Db, caseId: string): Promise<CustodyEventDto[]> {
+  const rows = await db.select().from(custodyEvents).where(eq(custodyEvents.caseId, caseId)).orderBy(asc(custodyEvents.at), asc(custodyEvents.seq));
+  return rows.map(custodyDto);
+}
+
 /** The case's sample record (any member); the empty record when none was saved yet. */
 export async function getSampleRecord(db: Db, actor: Actor, caseId: string): Promise<SampleRecordDto> {
   await loadCase(db, actor, caseId, "read");
@@ -63,8 +69,7 @@ export async function putSampleRecord(db: Db, actor: Actor, caseId: string, inpu
 /** The chain of custody of a case (any member), oldest first by server time. */
 export async function listCustody(db: Db, actor: Actor, caseId: string): Promise<CustodyEventDto[]> {
   await loadCase(db, actor, caseId, "read");
-  const rows = await db.select().from(custodyEvents).where(eq(custodyEvents.caseId, caseId)).orderBy(asc(custodyEvents.at), asc(custodyEvents.seq));
-  return rows.map(custodyDto);
+  return custodyOf(db, caseId);
 }
 
 /**
@@ -91,6 +96,5 @@ export async function appendCustody(db: Db, actor: Actor, caseId: string, input:
 export async function sampleOfDie(db: Db, dieId: string): Promise<{ record: SampleRecordDto; custody: CustodyEventDto[] }> {
   const [die] = await db.select({ caseId: dies.caseId }).from(dies).where(eq(dies.id, dieId));
   if (!die) return { record: recordDto(undefined), custody: [] };
-  const rows = await db.select().from(custodyEvents).where(eq(custodyEvents.caseId, die.caseId)).orderBy(asc(custodyEvents.at), asc(custodyEvents.seq));
-  return { record: recordDto(await readRecord(db, die.caseId)), custody: rows.map(custodyDto) };
+  return { record: recordDto(await readRecord(db, die.caseId)), custody: await custodyOf(db, die.caseId) };
 }

@@ -3,6 +3,7 @@ import { sql } from "drizzle-orm";
 import { auditEvents, cases, dies, memberships, teams, users } from "./schema";
 import type { Database } from "./client";
 import { hashPassword } from "@/lib/auth/password";
+import { seedDemoSample } from "./seed-sample";
 
 /** The password of every demo account (documented in the README). */
 const DEMO_PASSWORD = "fjordlight-demo";
@@ -20,15 +21,20 @@ export const DEMO = {
   outsider: { email: "outsider@elsewhere.test", name: "Demo Outsider" },
   case: {
     title: "NV-24R receiver teardown",
-    partMarking: "NV24R-A1 · 2447 · mask NVK-R24-C",
-    package: "QFN-24, 4 × 4 mm, lid removed",
+    partMarking: "NV24R-A1 · 2447",
+    package: "QFN-24, 4 × 4 mm, moulded",
     sampleId: "FFL-2026-0142",
     notes:
       "Fictional 24 GHz radar receiver front end by the invented maker Nordvik Semiconductor, SiGe BiCMOS. " +
       "Differential layout, mirror-symmetric about a horizontal axis: LNA, mixer, IF buffer. " +
-      "Decapsulated with fuming nitric acid under a fume hood by the wet lab — follow the lab's own safety rules.",
+      "Opened by acid decapsulation in the wet lab: see the sample record.",
   },
-  die: { name: "NV-24R die A", widthUm: 2400, heightUm: 1600, notes: "Die about 2.40 mm × 1.60 mm, 22 bond pads." },
+  die: {
+    name: "NV-24R die A",
+    widthUm: 2400,
+    heightUm: 1600,
+    notes: "Die about 2.40 mm × 1.60 mm, 22 bond pads. Marks on the die: NORDVIK, NV-24R, mask id NVK-M4417B, date code 2318.",
+  },
 } as const;
 
 /** Seeds the demo scenario when the database has no users yet. Returns whether it seeded. */
@@ -54,6 +60,7 @@ export async function seedDemo(db: Database): Promise<boolean> {
       .insert(cases)
       .values({ ...DEMO.case, teamId: team.id, createdBy: ids.analyst })
       .returning();
+    await seedDemoSample(tx, c.id, { id: ids.analyst, name: "Demo Analyst" });
     const [d] = await tx
       .insert(dies)
       .values({ ...DEMO.die, caseId: c.id, analystId: ids.analyst, createdBy: ids.analyst })

@@ -10,6 +10,7 @@ import type { Editor } from "./editor/types";
 import { KIND_STYLE } from "./palette";
 import { useUnsavedGuard } from "@/components/ui/use-unsaved-guard";
 import { formatLength } from "./render/draw-interaction";
+import { ProbingCaution } from "./probing-caution";
 
 type FieldDef = { key: string; label: string; type?: "number" | "text" | "textarea" | "padState" | "side" };
 const FIELDS: Record<AnyShape["kind"], FieldDef[]> = {
@@ -150,6 +151,7 @@ function PadStateField({ shape, editor, readOnly }: { shape: AnyShape; editor: E
         Shown as {shown}
         {byHand ? ", set by hand" : `: ${derived === "bonded" ? "a wire bond is attached" : "no wire bond is attached"}`}.
       </p>
+      {shown === "probed" && <ProbingCaution />}
     </div>
   );
 }

@@ -8,6 +8,7 @@ import type { PadRow, PadTable } from "@/lib/pads/types";
 import { apiFetch } from "@/lib/client/api";
 import { DataTable } from "@/components/ui/data-table";
 import { formatUm } from "@/lib/units/format-um";
+import { ProbingCaution } from "./probing-caution";
 
 /**
  * The pad table: pads numbered counter-clockwise from pad 1 with side, centre, size and pitch;
@@ -78,6 +79,7 @@ export function PadTablePanel({
       {t.summary.probedNotBonded.length > 0 && (
         <p className="text-xs text-ink-300">Probed, not bonded: {t.summary.probedNotBonded.map((p) => p.label || `#${p.number}`).join(", ")}</p>
       )}
+      {t.rows.some((r) => r.state === "probed") && <ProbingCaution />}
       {t.outsideDie.length > 0 && (
         <p role="alert" className="text-xs text-kerf-300" data-testid="pads-outside-die">
           Outside the die outline, not numbered:{" "}

@@ -17,6 +17,8 @@ import { Dialog } from "@/components/ui/dialog";
 import { ReviewBadge } from "@/components/ui/review-badge";
 import { CaseForm } from "./case-form";
 import { DieForm } from "./die-form";
+import { CustodySection } from "./custody-section";
+import { SampleRecordSection } from "./sample-record-section";
 
 function Detail({ label, value }: { label: string; value: string }) {
   return (
@@ -118,6 +120,8 @@ export function CaseView({ initial }: { initial: CaseDto }) {
           />
         )}
       </section>
+      <SampleRecordSection caseId={c.id} editable={editable} />
+      <CustodySection caseId={c.id} editable={editable} />
       <Dialog open={dialog === "edit"} onClose={() => setDialog(null)} title="Edit case">
         <CaseForm
           initial={c}

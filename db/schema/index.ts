@@ -4,12 +4,14 @@ export * from "./dies";
 export * from "./review";
 export * from "./work";
 export * from "./revisions";
+export * from "./sample";
 export * from "./relations";
 
 import type { auditEvents, exports, jobs } from "./work";
 import type { cases, dies, markup, micrographs, reviewStatusEnum } from "./dies";
 import type { comments, inboxItems, outbox, reviewEvents, threads } from "./review";
 import type { dieRevisions } from "./revisions";
+import type { caseSamples, custodyEvents } from "./sample";
 import type { invitations, memberships, roleEnum, teams, users } from "./people";
 
 export type User = typeof users.$inferSelect;
@@ -31,3 +33,5 @@ export type ExportRow = typeof exports.$inferSelect;
 export type MarkupRow = typeof markup.$inferSelect;
 export type InboxItemRow = typeof inboxItems.$inferSelect;
 export type DieRevisionRow = typeof dieRevisions.$inferSelect;
+export type CaseSampleRow = typeof caseSamples.$inferSelect;
+export type CustodyEventRow = typeof custodyEvents.$inferSelect;

@@ -9,6 +9,9 @@ export const queryKeys = {
   case: (caseId: string) => ["case", caseId] as const,
   /** The dies of a case (the case page's table). */
   dies: (caseId: string) => ["dies", caseId] as const,
+  /** `SampleRecordDto` of a case, and its chain of custody (`CustodyEventDto[]`). */
+  sample: (caseId: string) => ["sample", caseId] as const,
+  custody: (caseId: string) => ["custody", caseId] as const,
   die: (dieId: string) => ["die", dieId] as const,
   micrographs: (dieId: string) => ["micrographs", dieId] as const,
   pads: (dieId: string) => ["pads", dieId] as const,

@@ -31,3 +31,21 @@ export type OutboxStatus = (typeof OUTBOX_STATUSES)[number];
 
 export const EXPORT_KINDS = ["annotated_png", "report_pdf"] as const;
 export type ExportKind = (typeof EXPORT_KINDS)[number];
+
+/** How a sample was opened or prepared (a case's sample record). */
+export const PREPARATION_METHODS = [
+  "acid_decap",
+  "laser_decap",
+  "plasma_etch",
+  "mechanical_polish",
+  "delid",
+  "delayer_wet",
+  "delayer_rie",
+  "cross_section",
+  "other",
+] as const;
+export type PreparationMethod = (typeof PREPARATION_METHODS)[number];
+
+/** What happened to a sample in its chain of custody. */
+export const CUSTODY_ACTIONS = ["received", "transferred", "stored", "checked_out", "returned", "destroyed"] as const;
+export type CustodyAction = (typeof CUSTODY_ACTIONS)[number];

@@ -6,6 +6,8 @@ import { join } from "node:path";
 import sharp from "sharp";
 import { buildReportPdf, type ReportData } from "./report-pdf";
 import { wrapText } from "./wrap-text";
+import { reportSampleOf } from "./report-sample";
+import { CAUTIONS } from "@/lib/safety/cautions";
 
 // The report read back by poppler's pdftotext (an independent PDF reader): every review message,
 // reply and saved estimate is there in full, and the layout flows instead of one page a section.
@@ -103,6 +105,47 @@ function data(): ReportData {
         ],
       },
     ],
+    sample: reportSampleOf(
+      {
+        receivedAt: "2026-11-16T09:20:00.000Z",
+        receivedFrom: "Nordvik Semiconductor field returns desk",
+        condition: "Sealed antistatic bag",
+        storageLocation: "Dry cabinet DC-2",
+        preparation: [
+          {
+            method: "acid_decap",
+            chemicals: "Fuming nitric acid",
+            equipment: "Fume hood FH-1",
+            performedBy: "Ana Analyst",
+            performedAt: "2026-11-18T10:00:00.000Z",
+            notes: "",
+          },
+          { method: "delayer_wet", chemicals: "", equipment: "", performedBy: "Ana Analyst", performedAt: null, notes: "Top metal only" },
+        ],
+      },
+      [
+        {
+          id: "e1",
+          action: "received",
+          to: "Fjordlight Failure Lab",
+          location: "Goods-in",
+          note: "Seal intact",
+          actorId: null,
+          actorName: "Ana Analyst",
+          at: "2026-11-16T09:20:00.000Z",
+        },
+        {
+          id: "e2",
+          action: "checked_out",
+          to: "Wet lab",
+          location: "Fume hood FH-1",
+          note: "",
+          actorId: null,
+          actorName: "Ana Analyst",
+          at: "2026-11-18T08:30:00.000Z",
+        },
+      ],
+    ),
     umPerPx: 0.45,
     micrographs: [
       {
@@ -152,6 +195,22 @@ describe("buildReportPdf", () => {
     expect(flat).toContain("Microstrip impedance (Hammerstad & Jensen) — Z0 49.8 Ω (microstrip)");
     expect(flat).toContain("Warnings: w/h outside the fitted range");
     expect(flat).toContain("Source: Hammerstad and Jensen 1980");
+  });
+
+  it("prints the sample record: steps, each caution once for the methods used, and the custody log", async () => {
+    const flat = words(pdfText(await buildReportPdf(data())).text);
+    expect(flat).toContain("Sample record");
+    expect(flat).toContain("Nordvik Semiconductor field returns desk");
+    expect(flat).toContain("Acid decapsulation");
+    expect(flat).toContain("Wet delayering");
+    // Both methods map to the acid caution (issue #15 §3): it is printed once, in full.
+    expect(flat).toContain(words(CAUTIONS.acid.text));
+    expect(flat.split(CAUTIONS.acid.title).length - 1).toBe(1);
+    expect(flat).not.toContain(CAUTIONS.laser.title);
+    expect(flat).toContain("2026-11-16 09:20 Ana Analyst Received");
+    expect(flat).toContain("Ana Analyst 2026-11-18 10:00");
+    expect(flat).toContain("Times are UTC.");
+    expect(flat).toContain("Checked out");
   });
 
   it("flows the sections onto few pages and lists them with their pages on the cover", async () => {

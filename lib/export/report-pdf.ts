@@ -1,6 +1,7 @@
 import { A4, PdfWriter, type Column } from "./pdf-layout";
 import type { PadTable } from "@/lib/pads";
 import { formatUm } from "@/lib/units/format-um";
+import { sampleSection, type ReportSample } from "./report-sample";
 
 /** Everything the die report shows, gathered by the data-access layer. */
 export type ReportData = {
@@ -29,6 +30,8 @@ export type ReportData = {
     readonly message: string;
   }[];
   readonly threads: readonly ReportThread[];
+  /** The case's sample record, preparation cautions and chain of custody. */
+  readonly sample: ReportSample;
   /** Estimates saved on shapes, each with every input and result it holds. */
   readonly estimates: readonly ReportEstimate[];
   /** Scale of the micrograph that defines the die frame: how many decimals lengths get. */
@@ -131,6 +134,7 @@ function sections(d: ReportData): Section[] {
           d.micrographs.map((m) => [`${m.label}${m.reference ? " (reference)" : ""}`, m.illumination, m.size, m.scale, m.objective, m.alignmentRms, m.status]),
         ),
     },
+    { title: "Sample record", draw: (w) => sampleSection(w, d.sample) },
   ];
 }
 

@@ -13,6 +13,8 @@ import type { ReportData } from "@/lib/export/report-pdf";
 import { ILLUMINATION_LABELS } from "@/lib/validation/micrographs";
 import { savedEstimatesOf, summariseSavedEstimate } from "@/lib/layout-reading/saved-estimates";
 import type { AnyShape } from "@/lib/markup/types";
+import { reportSampleOf } from "@/lib/export/report-sample";
+import { sampleOfDie } from "./sample";
 import { REVIEW_STATUS_LABELS, type ReviewAction } from "@/lib/review/review-status";
 import { revisionStatement } from "@/lib/review/revision-text";
 
@@ -113,6 +115,11 @@ function estimatesOf(shapes: readonly AnyShape[]): ReportData["estimates"] {
   );
 }
 
+async function reportSample(db: Db, dieId: string): Promise<ReportData["sample"]> {
+  const { record, custody } = await sampleOfDie(db, dieId);
+  return reportSampleOf(record, custody);
+}
+
 /** Renders the report's whole-die picture from the die's records (the caller owns the pixels). */
 export type OverviewRenderer = (src: DieSources, micrographs: MicrographRow[], author: string) => Promise<ReportData["overview"]>;
 
@@ -154,6 +161,7 @@ export async function loadReport(db: Db, actor: Actor, dieId: string, renderOver
     })),
     ...(await reviewParts(db, dieId, src.shapes)),
     estimates: estimatesOf(src.shapes),
+    sample: await reportSample(db, dieId),
     umPerPx: ms.find((m) => m.isReference)?.scaleUmPerPx ?? null,
     micrographs: ms.map((m) => ({
       label: m.label,

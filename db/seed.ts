@@ -3,6 +3,7 @@ import { sql } from "drizzle-orm";
 import { auditEvents, cases, dies, memberships, teams, users } from "./schema";
 import type { Database } from "./client";
 import { hashPassword } from "@/lib/auth/password";
+import { DEMO_DIE_B, seedDieB } from "./seed-die-b";
 
 /** The password of every demo account (documented in the README). */
 const DEMO_PASSWORD = "fjordlight-demo";
@@ -29,6 +30,8 @@ export const DEMO = {
       "Decapsulated with fuming nitric acid under a fume hood by the wet lab — follow the lab's own safety rules.",
   },
   die: { name: "NV-24R die A", widthUm: 2400, heightUm: 1600, notes: "Die about 2.40 mm × 1.60 mm, 22 bond pads." },
+  /** A second die of the same part, seeded fully marked (db/seed-die-b.ts). */
+  dieB: DEMO_DIE_B,
 } as const;
 
 /** Seeds the demo scenario when the database has no users yet. Returns whether it seeded. */
@@ -67,6 +70,8 @@ export async function seedDemo(db: Database): Promise<boolean> {
       dieId: d.id,
       after: JSON.parse(JSON.stringify(d)),
     });
+    // Die B, read completely; its review history can be added here from the id it returns.
+    await seedDieB(tx, { teamId: team.id, caseId: c.id, analystId: ids.analyst, reviewerId: ids.reviewer, after: d.createdAt });
   });
   return true;
 }

@@ -3,6 +3,7 @@ import { newShapeSchema } from "../validation/markup";
 import { checkInsideDie } from "../markup/markup-input";
 import { dieBounds } from "../markup/die-bounds";
 import { padTableFromMarkup } from "../markup/pad-table-from-markup";
+import { symmetryReport } from "../symmetry";
 import type { AnyShape } from "../markup/types";
 import type { Position } from "../geometry/types";
 import { NV24R_LAYOUT } from "./layout";
@@ -107,6 +108,18 @@ describe("layoutMarkup (NV-24R layout as ground truth)", () => {
     const probed = layout.pads.filter((p) => p.state === "probed").map((p) => p.label);
     expect(result.table.summary.probedNotBonded.map((p) => p.label).sort()).toEqual([...probed].sort());
     expect(result.table.summary.padsPerSide).toEqual({ W: 5, S: 6, E: 5, N: 6 });
+  });
+
+  it("is mirror-symmetric about its axis as the layout is: every pad, block and line paired exactly", () => {
+    const [axis] = ofKind("symmetry_axis");
+    const report = symmetryReport(
+      shapes.filter((s) => s.kind !== "symmetry_axis"),
+      axis.geometry,
+    );
+    expect(report.unmatched).toEqual([]);
+    // By hand from the layout: 22 pads less G2 and G5 on the axis make 10 pairs; LO buffer P/N and
+    // Bias A/B; Peaking line P/N and RF input P/N. On the axis: G2, G5, LNA, Mixer, IF buffer.
+    expect([report.summary.pairCount, report.summary.onAxisCount, report.summary.maxDeviationUm]).toEqual([14, 5, 0]);
   });
 });
 

@@ -16,25 +16,33 @@ import { incomingDir } from "./files/storage-paths";
 const CAPTURES = {
   bright_field: { label: "NV-24R 10x bright field", objectiveMag: "10", numericalAperture: "0.3", cameraPixelPitchUm: "2.5" },
   dark_field: { label: "NV-24R 10x dark field", objectiveMag: "10", numericalAperture: "0.3", cameraPixelPitchUm: "2.451" },
+  // Die B's picture is taken with the camera binned 2 × 2 (5 µm pixels, 0.5 µm/px at 10x): still
+  // finer than half the optics' ≈ 1.1 µm resolution at NA 0.3, and a quarter of the pixels to
+  // render at first start.
+  bright_field_binned: { label: "NV-24R 10x bright field, 2×2 binned", objectiveMag: "10", numericalAperture: "0.3", cameraPixelPitchUm: "5" },
 } as const;
+/** Die B's render width: 2 × 2 binning halves the 12000 px of die A's pictures. */
+const DIE_B_WIDTH_PX = 6000;
 
 /**
  * Renders one demo micrograph and uploads it through the browser's ingest path as `actor`. A
  * bright-field one becomes the die's reference placed with the renderer's ground-truth
  * transform (as if the analyst had marked the die outline).
  */
-async function seedOne(db: Database, actor: { userId: string }, dieId: string, look: Look, options: DemoRenderOptions, fileName: string): Promise<void> {
+async function seedOne(
+  db: Database,
+  actor: { userId: string },
+  dieId: string,
+  options: DemoRenderOptions,
+  capture: (typeof CAPTURES)[keyof typeof CAPTURES],
+  fileName: string,
+): Promise<void> {
+  const look: Look = options.look;
   await fs.mkdir(incomingDir(), { recursive: true });
   const tempPath = path.join(incomingDir(), `${crypto.randomUUID()}.part`);
   const render = await renderDemoMicrograph(tempPath, options);
   const { size } = await fs.stat(tempPath);
-  const m = await ingestMicrograph(
-    db,
-    actor,
-    dieId,
-    { tempPath, bytes: size, format: "jpeg", clientName: fileName },
-    { ...CAPTURES[look], illumination: look },
-  );
+  const m = await ingestMicrograph(db, actor, dieId, { tempPath, bytes: size, format: "jpeg", clientName: fileName }, { ...capture, illumination: look });
   if (look !== "bright_field") return;
   const t = render.imageToDie;
   await db
@@ -63,11 +71,12 @@ export async function seedDemoMicrographs(db: Database): Promise<void> {
   const actor = { userId: analyst.id };
   if (dieA) {
     for (const look of ["bright_field", "dark_field"] as const) {
-      await seedOne(db, actor, dieA.id, look, demoMicrographOptions(look), `nv24r-${look.replace("_", "-")}.jpg`);
+      await seedOne(db, actor, dieA.id, demoMicrographOptions(look), CAPTURES[look], `nv24r-${look.replace("_", "-")}.jpg`);
     }
   }
   if (dieB) {
     const layout = withDateCode(NV24R_LAYOUT, DIE_B_DATE_CODE);
-    await seedOne(db, actor, dieB.id, "bright_field", { ...demoMicrographOptions("bright_field"), layout }, `nv24r-die-b-bright-field.jpg`);
+    const options = { ...demoMicrographOptions("bright_field", DIE_B_WIDTH_PX), layout };
+    await seedOne(db, actor, dieB.id, options, CAPTURES.bright_field_binned, "nv24r-die-b-bright-field.jpg");
   }
 }

@@ -4,6 +4,7 @@ import { auditEvents, cases, dies, memberships, teams, users } from "./schema";
 import type { Database } from "./client";
 import { hashPassword } from "@/lib/auth/password";
 import { seedDemoSample } from "./seed-sample";
+import { DEMO_DIE_B, seedDieB } from "./seed-die-b";
 
 /** The password of every demo account (documented in the README). */
 const DEMO_PASSWORD = "fjordlight-demo";
@@ -35,6 +36,8 @@ export const DEMO = {
     heightUm: 1600,
     notes: "Die about 2.40 mm × 1.60 mm, 22 bond pads. Marks on the die: NORDVIK, NV-24R, mask id NVK-M4417B, date code 2318.",
   },
+  /** A second die of the same part, seeded fully marked (db/seed-die-b.ts). */
+  dieB: DEMO_DIE_B,
 } as const;
 
 /** Seeds the demo scenario when the database has no users yet. Returns whether it seeded. */
@@ -74,6 +77,8 @@ export async function seedDemo(db: Database): Promise<boolean> {
       dieId: d.id,
       after: JSON.parse(JSON.stringify(d)),
     });
+    // Die B, read completely; its review history can be added here from the id it returns.
+    await seedDieB(tx, { teamId: team.id, caseId: c.id, analystId: ids.analyst, reviewerId: ids.reviewer, after: d.createdAt });
   });
   return true;
 }

@@ -43,6 +43,8 @@ export async function startServer(): Promise<void> {
           console.log("[kerfline] rendered and uploaded the demo micrographs (tiling in the background)");
         }
       }
+      const { signOffDemoDieB } = await import("./seed-sign-off");
+      if (await signOffDemoDieB(opened.db)) console.log("[kerfline] signed off the demo's die B as revision 1");
     }
     console.log(`[kerfline] database ready (${opened.kind}), data dir ${env().dataDir}`);
     const { describeLinkOrigin } = await import("./http/origin");

@@ -11,7 +11,7 @@ import { WorkspaceOverlay } from "./workspace-overlay";
 /** The work area: the single view of the shown micrograph, or alignment and comparison, with markup on top. */
 export function WorkArea() {
   const qc = useQueryClient();
-  const { die, list, shown, work, setWork, api, setApi, editable, editor, state, loadError } = useDieWorkspace();
+  const { die, list, shown, work, setWork, api, setApi, editable, markupLock, editor, state, loadError } = useDieWorkspace();
   return (
     <section aria-label="Work area" className="relative min-w-0 flex-1 bg-ink-950">
       {work.kind !== "view" ? (
@@ -26,7 +26,8 @@ export function WorkArea() {
       ) : (
         <ViewerPane
           micrograph={shown}
-          canEdit={editable}
+          // The reference's scale places the die frame: fixed with the markup while checked or signed off.
+          canEdit={editable && !(markupLock && shown?.isReference)}
           onViewer={setApi}
           overlay={api && shown?.transform ? <WorkspaceOverlay api={api} imageToDie={shown.transform} /> : null}
         />

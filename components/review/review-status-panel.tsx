@@ -76,7 +76,7 @@ export function ReviewStatusPanel({ die, userId }: { die: DieDto; userId: string
             {actions.map((a) => (
               <Button
                 key={a}
-                variant={a === "return" ? "danger" : a === "withdraw" ? "ghost" : "primary"}
+                variant={a === "return" ? "danger" : a === "withdraw" ? "secondary" : "primary"}
                 disabled={act.isPending}
                 onClick={() => act.mutate(a)}
               >

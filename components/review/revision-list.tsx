@@ -48,7 +48,7 @@ export function RevisionList({ die }: { die: DieDto }) {
         ))}
       </ol>
       {die.reviewStatus === "signed_off" && can(die.yourRole, "edit") && (
-        <Button variant="ghost" disabled={open.isPending} onClick={() => open.mutate()} className="self-start">
+        <Button disabled={open.isPending} onClick={() => open.mutate()} className="self-start">
           Open revision {die.revision + 1}
         </Button>
       )}

@@ -70,8 +70,11 @@ type ReportEstimate = {
   readonly values: readonly (readonly [string, string])[];
 };
 
-/** `keep`: points that must fit below the heading, or the section starts on the next page. */
-type Section = { title: string; keep?: number; draw: (w: PdfWriter) => Promise<void> | void };
+/**
+ * `keep`: points that must fit below the heading, or the section starts on the next page.
+ * `ownPage`: the section starts on a fresh page (the sample record, which a lab may file apart).
+ */
+type Section = { title: string; keep?: number; ownPage?: boolean; draw: (w: PdfWriter) => Promise<void> | void };
 
 const OVERVIEW_MIN_HEIGHT = 240;
 
@@ -134,7 +137,7 @@ function sections(d: ReportData): Section[] {
           d.micrographs.map((m) => [`${m.label}${m.reference ? " (reference)" : ""}`, m.illumination, m.size, m.scale, m.objective, m.alignmentRms, m.status]),
         ),
     },
-    { title: "Sample record", draw: (w) => sampleSection(w, d.sample) },
+    { title: "Sample record", ownPage: true, draw: (w) => sampleSection(w, d.sample) },
   ];
 }
 
@@ -246,6 +249,7 @@ export async function buildReportPdf(d: ReportData): Promise<Uint8Array> {
   const toc = w.reserve(list.length * CONTENTS_LINE + 8);
   const starts: { title: string; page: number }[] = [];
   for (const s of list) {
+    if (s.ownPage) w.newPage();
     w.heading(s.title, 14, s.keep);
     starts.push({ title: s.title, page: w.pageIndex + 1 });
     await s.draw(w);

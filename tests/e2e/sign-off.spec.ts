@@ -70,12 +70,14 @@ test.describe.serial("sign-off that holds", () => {
     test.setTimeout(240_000);
     const analyst = await as(browser, "analyst");
     await analyst.getByRole("link", { name: "NV-24R receiver teardown" }).click();
+    await analyst.waitForURL(/\/cases\/[0-9a-f-]{36}$/);
     const caseId = analyst.url().split("/").pop()!;
     const made = await api<{ id: string }>(analyst, "POST", `/api/cases/${caseId}/dies`, {
       name: `NV-24R die for sign-off ${run()}`,
       widthUm: 2400,
       heightUm: 1600,
     });
+    expect(made.status, JSON.stringify(made.body)).toBe(201);
     const dieId = made.body.id;
     const ring = [
       [100, 100],
@@ -87,9 +89,9 @@ test.describe.serial("sign-off that holds", () => {
     const pad = await api<{ id: string }>(analyst, "POST", `/api/dies/${dieId}/markup`, {
       kind: "pad",
       geometry: { type: "Polygon", coordinates: [ring] },
-      properties: {},
+      properties: { label: "P1" },
     });
-    expect(pad.status).toBe(201);
+    expect(pad.status, JSON.stringify(pad.body)).toBe(201);
 
     // The analyst sends it: the drawing tools stay in view, disabled, with the reason.
     let check = await openCheck(analyst, dieId);

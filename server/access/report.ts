@@ -65,11 +65,12 @@ async function reviewParts(db: Db, dieId: string, shapes: readonly AnyShape[]): 
     })),
     threads: ts.map((t, i) => ({
       number: i + 1,
-      status: t.status,
+      // The stored `resolved` is a closed remark in the report's words.
+      status: t.status === "resolved" ? "closed" : "open",
       author: who(t.createdBy),
       createdAt: day(t.createdAt),
       on: shapeName(shapes, t.shapeId),
-      resolved: t.status === "resolved" ? `resolved by ${who(t.resolvedBy)}${t.resolvedAt ? ` on ${day(t.resolvedAt)}` : ""}` : null,
+      resolved: t.status === "resolved" ? `closed by ${who(t.resolvedBy)}${t.resolvedAt ? ` on ${day(t.resolvedAt)}` : ""}` : null,
       messages: cs
         .filter((c) => c.threadId === t.id)
         .map((c) => ({ author: who(c.authorId), at: day(c.createdAt), body: c.body, edited: c.editedAt !== null })),

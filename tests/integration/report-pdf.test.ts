@@ -85,7 +85,7 @@ beforeAll(async () => {
     },
   ];
   expect((await world.clients.analyst.request("POST", `/api/dies/${dieId}/markup`, shapes)).status).toBe(201);
-  // Review: one open thread, one resolved, and the die submitted for review.
+  // Check: one open remark, one closed, and the die sent to the checker.
   const open = await world.clients.reviewer.request<{ id: string }>("POST", `/api/dies/${dieId}/threads`, {
     region: rect(400, 400, 50, 50),
     body: "Is the bandgap trimmed? Ω ± 5 %",
@@ -180,11 +180,12 @@ describe("PDF die report", () => {
     expect(all).toContain(`page ${doc.numPages} of ${doc.numPages}`);
     expect(all).toContain("Contents");
     expect(images).toBeGreaterThanOrEqual(1);
-    // Review history and both threads, with symbols outside Latin-1 kept as typed.
+    // Check history and the remarks, with symbols outside Latin-1 kept as typed.
     expect(all).toContain("ready for a look");
     expect(all).toContain("Is the bandgap trimmed? Ω ± 5 %");
     expect(all).toContain("Pad pitch checked");
-    expect(all).toMatch(/resolved/);
+    expect(all).toMatch(/closed by /);
+    expect(all).not.toMatch(/\bresolved\b/i);
     expect(all).toMatch(/[µμ]m/); // pdfjs reports MICRO SIGN as its compatibility form, GREEK MU
   });
 

@@ -45,7 +45,7 @@ describe("GET /api/me/inbox", () => {
     const reply = (await inboxOf("reviewer")).find((i) => i.threadId === t.body.id);
     expect(reply).toMatchObject({ kind: "comment", dieId });
     expect(reply!.text).toContain("answered on the pad table");
-    expect((await world.clients.owner.request("POST", `/api/dies/${dieId}/review`, { action: "submit", message: "ready for a look" })).status).toBe(200);
+    expect((await world.clients.owner.request("POST", `/api/dies/${dieId}/review`, { action: "send", message: "ready for a look" })).status).toBe(200);
     const review = (await inboxOf("reviewer")).find((i) => i.dieId === dieId && i.kind === "review_submitted");
     expect(review).toBeDefined();
     expect(review).not.toHaveProperty("threadId");

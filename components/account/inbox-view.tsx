@@ -14,7 +14,7 @@ const KIND_LABELS: Record<InboxItemDto["kind"], string> = {
   review_decision: "Check result",
 };
 
-/** Where an item leads: the exact thread on the die bench, or the die for review events. */
+/** Where an item leads: the exact remark on the die bench, or the die for check events. */
 function inboxHref(item: InboxItemDto): string {
   return item.threadId ? `/dies/${item.dieId}?thread=${item.threadId}` : `/dies/${item.dieId}`;
 }
@@ -40,7 +40,7 @@ export function InboxView({ initial }: { initial: InboxItemDto[] }) {
   return (
     <section aria-label="Inbox" className="flex max-w-3xl flex-col gap-3">
       <h1 className="text-xl font-semibold">Inbox</h1>
-      <p className="text-sm text-ink-300">Mentions, replies on your threads and review events, for you alone. Mail settings do not change what arrives here.</p>
+      <p className="text-sm text-ink-300">Mentions, replies on your remarks and check events, for you alone. Mail settings do not change what arrives here.</p>
       {error && (
         <p role="alert" className="text-sm text-danger-400">
           {error}

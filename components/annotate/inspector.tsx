@@ -52,7 +52,7 @@ function Field({ def, shape, editor, readOnly }: { def: FieldDef; shape: AnyShap
   }
   // Typed but not yet committed (commit happens on blur or Enter): ask before a reload drops it.
   useUnsavedGuard(!readOnly && value !== shown);
-  const id = `inspector-${def.key}`;
+  const id = `shape-field-${def.key}`;
   const commit = (v: string) => {
     if (readOnly || v === String(stored ?? "")) return;
     if (def.type === "number") {
@@ -130,11 +130,11 @@ function PadStateField({ shape, editor, readOnly }: { shape: AnyShape; editor: E
   };
   return (
     <div className="flex flex-col gap-1">
-      <label htmlFor="inspector-state" className="text-xs text-ink-300">
+      <label htmlFor="shape-field-state" className="text-xs text-ink-300">
         State
       </label>
       <select
-        id="inspector-state"
+        id="shape-field-state"
         disabled={readOnly}
         value={value}
         onChange={(e) => onChange(e.target.value)}
@@ -247,7 +247,7 @@ export function Inspector({
   if (selected.length > 1) return <p className="text-sm text-ink-300">{selected.length} shapes selected. Drag to move them, Delete to remove them.</p>;
   const shape = selected[0];
   return (
-    <section aria-label="Inspector" className="flex flex-col gap-3">
+    <section aria-label="Selected markup" className="flex flex-col gap-3">
       <h2 className="flex items-center gap-2 text-sm font-semibold">
         <span aria-hidden="true" className="h-2.5 w-2.5 rounded-full" style={{ background: KIND_STYLE[shape.kind].colour }} />
         {KIND_STYLE[shape.kind].label}

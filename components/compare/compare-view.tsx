@@ -5,14 +5,14 @@ import type { MicrographDto } from "@/lib/dto/micrographs";
 import { MicrographViewer, type ViewerApi } from "@/components/viewer";
 import type { Affine2x3 } from "@/lib/geometry/types";
 import { sourceOf } from "./micrograph-source-of";
-import { SwipeDivider } from "./swipe-divider";
+import { SplitDivider } from "./split-divider";
 import { useViewLock } from "./use-view-lock";
 
-export type CompareMode = "side_by_side" | "blend" | "swipe";
-export const COMPARE_MODE_LABELS: Record<CompareMode, string> = { side_by_side: "Side by side", blend: "Blend", swipe: "Swipe" };
+export type CompareMode = "side_by_side" | "overlay" | "split";
+export const COMPARE_MODE_LABELS: Record<CompareMode, string> = { side_by_side: "Side by side", overlay: "Overlay", split: "Split" };
 
 type Props = {
-  /** Shown on top in blend and swipe, on the left side by side. */
+  /** Shown on top in overlay and split, on the left side by side. */
   top: MicrographDto;
   bottom: MicrographDto;
   mode: CompareMode;
@@ -55,7 +55,7 @@ function Pane({
 }
 
 /**
- * Two aligned micrographs of one die compared side by side, blended or swiped. Both viewers
+ * Two aligned micrographs of one die compared side by side, overlaid or split. Both viewers
  * are locked in die coordinates, so the same die point is under the same screen px (stacked)
  * or under the matching px of each half (side by side).
  */
@@ -75,7 +75,7 @@ export function CompareView({ top, bottom, mode, overlay, onTopViewer }: Props) 
   useEffect(() => {
     const onKey = (e: KeyboardEvent) => {
       const target = e.target as HTMLElement | null;
-      if (mode !== "blend" || e.key.toLowerCase() !== "f" || e.ctrlKey || e.metaKey || target?.closest("input, textarea, select")) return;
+      if (mode !== "overlay" || e.key.toLowerCase() !== "f" || e.ctrlKey || e.metaKey || target?.closest("input, textarea, select")) return;
       setOpacity((o) => (o >= 0.5 ? 0 : 1));
     };
     window.addEventListener("keydown", onKey);
@@ -91,7 +91,7 @@ export function CompareView({ top, bottom, mode, overlay, onTopViewer }: Props) 
           {stacked ? "Top" : "Left"}: <strong className="text-ink-100">{top.label}</strong> · {stacked ? "Below" : "Right"}:{" "}
           <strong className="text-ink-100">{bottom.label}</strong>
         </span>
-        {mode === "blend" && (
+        {mode === "overlay" && (
           <label className="flex items-center gap-2">
             Opacity of the top one
             <input
@@ -100,14 +100,14 @@ export function CompareView({ top, bottom, mode, overlay, onTopViewer }: Props) 
               max={100}
               value={Math.round(opacity * 100)}
               onChange={(e) => setOpacity(Number(e.target.value) / 100)}
-              aria-label="Blend opacity"
+              aria-label="Overlay opacity"
               className="accent-kerf-500"
             />
             <output>{Math.round(opacity * 100)} %</output>
-            <span className="text-ink-400">(F flips between the two)</span>
+            <span className="text-ink-400">(F: blink between the two)</span>
           </label>
         )}
-        {mode === "swipe" && (
+        {mode === "split" && (
           <label className="flex items-center gap-2">
             <input type="checkbox" checked={!vertical} onChange={(e) => setVertical(!e.target.checked)} className="accent-kerf-500" /> Horizontal divider
           </label>
@@ -117,13 +117,13 @@ export function CompareView({ top, bottom, mode, overlay, onTopViewer }: Props) 
         {stacked ? (
           <>
             <Pane m={bottom} onApi={setApiBottom} testId="compare-bottom">
-              {/* Blending shows the top one's markup only, so shapes are not drawn twice. */}
-              {mode === "swipe" && apiBottom && bottom.transform && overlay(apiBottom, bottom.transform)}
+              {/* The overlay shows the top one's markup only, so shapes are not drawn twice. */}
+              {mode === "split" && apiBottom && bottom.transform && overlay(apiBottom, bottom.transform)}
             </Pane>
-            <Pane m={top} onApi={setApiTop} testId="compare-top" style={mode === "blend" ? { opacity } : { clipPath: clip }}>
+            <Pane m={top} onApi={setApiTop} testId="compare-top" style={mode === "overlay" ? { opacity } : { clipPath: clip }}>
               {apiTop && top.transform && overlay(apiTop, top.transform)}
             </Pane>
-            {mode === "swipe" && <SwipeDivider host={host} value={divider} vertical={vertical} onChange={setDivider} />}
+            {mode === "split" && <SplitDivider host={host} value={divider} vertical={vertical} onChange={setDivider} />}
           </>
         ) : (
           <>

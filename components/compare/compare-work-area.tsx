@@ -32,7 +32,7 @@ export function CompareWorkArea({ work, items, onWork, onAligned, overlay, onTop
         fixed={fixed}
         onDone={(accepted) => {
           if (accepted) onAligned();
-          onWork(accepted ? { kind: "compare", topId: moving.id, bottomId: fixed.id, mode: "blend" } : { kind: "view" });
+          onWork(accepted ? { kind: "compare", topId: moving.id, bottomId: fixed.id, mode: "overlay" } : { kind: "view" });
         }}
       />
     );

@@ -10,10 +10,15 @@ describe("work mode in the URL", () => {
     const align = paramsWithWorkMode(base, { kind: "align", movingId: A, fixedId: B });
     expect(align.get("thread")).toBe("t1");
     expect(workModeFromParams(align)).toEqual({ kind: "align", movingId: A, fixedId: B });
-    const compare = paramsWithWorkMode(align, { kind: "compare", topId: B, bottomId: A, mode: "swipe" });
-    expect(workModeFromParams(compare)).toEqual({ kind: "compare", topId: B, bottomId: A, mode: "swipe" });
+    const compare = paramsWithWorkMode(align, { kind: "compare", topId: B, bottomId: A, mode: "split" });
+    expect(workModeFromParams(compare)).toEqual({ kind: "compare", topId: B, bottomId: A, mode: "split" });
     expect(compare.has("moving")).toBe(false);
     expect(paramsWithWorkMode(compare, { kind: "view" }).toString()).toBe("thread=t1");
+  });
+
+  it("reads the former mode names of older links as the renamed modes", () => {
+    expect(workModeFromParams(new URLSearchParams(`work=compare&top=${A}&bottom=${B}&mode=blend`))).toMatchObject({ mode: "overlay" });
+    expect(workModeFromParams(new URLSearchParams(`work=compare&top=${A}&bottom=${B}&mode=swipe`))).toMatchObject({ mode: "split" });
   });
 
   it("reads malformed params as the single view", () => {

@@ -8,14 +8,17 @@ import type { WorkMode } from "./work-mode";
  * `thread`) are left as they are.
  */
 const KEYS = ["work", "moving", "fixed", "top", "bottom", "mode", "pairs", "pending", "model", "mirrored"] as const;
-const MODES: readonly CompareMode[] = ["side_by_side", "blend", "swipe"];
+const MODES: readonly CompareMode[] = ["side_by_side", "overlay", "split"];
+/** Links written before the modes were renamed still open the same view. */
+const FORMER_MODES: Readonly<Record<string, CompareMode>> = { blend: "overlay", swipe: "split" };
 const ID = /^[0-9a-f-]{36}$/i;
 
 /** The work mode the params describe; anything malformed reads as the single view. */
 export function workModeFromParams(p: URLSearchParams): WorkMode {
   const id = (k: string) => (ID.test(p.get(k) ?? "") ? p.get(k)! : null);
   if (p.get("work") === "align" && id("moving") && id("fixed")) return { kind: "align", movingId: id("moving")!, fixedId: id("fixed")! };
-  const mode = p.get("mode") as CompareMode;
+  const raw = p.get("mode") ?? "";
+  const mode = (FORMER_MODES[raw] ?? raw) as CompareMode;
   if (p.get("work") === "compare" && id("top") && id("bottom") && MODES.includes(mode))
     return { kind: "compare", topId: id("top")!, bottomId: id("bottom")!, mode };
   return { kind: "view" };

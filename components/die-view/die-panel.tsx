@@ -2,7 +2,7 @@
 
 import { SideTabs } from "./side-tabs";
 import { useDieWorkspace } from "./die-workspace-context";
-import { InspectTab } from "./tabs/inspect-tab";
+import { SelectionTab } from "./tabs/selection-tab";
 import { PadsTab } from "./tabs/pads-tab";
 import { MarkupTab } from "./tabs/markup-tab";
 import { EstimatesTab } from "./tabs/estimates-tab";
@@ -13,18 +13,18 @@ import { ExportTab } from "./tabs/export-tab";
 import { DieTab } from "./tabs/die-tab";
 
 const TABS = [
-  { id: "inspect", label: "Inspect", content: <InspectTab /> },
+  { id: "selection", label: "Selection", content: <SelectionTab /> },
   { id: "pads", label: "Pad table", content: <PadsTab /> },
   { id: "markup", label: "Markup", content: <MarkupTab /> },
   { id: "estimates", label: "Estimates", content: <EstimatesTab /> },
   { id: "symmetry", label: "Symmetry", content: <SymmetryTab /> },
   { id: "summary", label: "Summary", content: <SummaryTab /> },
-  { id: "review", label: "Review", content: <ReviewTab /> },
+  { id: "review", label: "Check & remarks", content: <ReviewTab /> },
   { id: "export", label: "Export", content: <ExportTab /> },
   { id: "die", label: "Die & micrographs", content: <DieTab /> },
 ];
 
-/** The side panel beside the work area, as wide as the resizer left it; a deep link to a thread opens on Review. */
+/** The side panel beside the work area, as wide as the resizer left it; a deep link to a remark opens on Review. */
 export function DiePanel({ width }: { width: number }) {
   const { review } = useDieWorkspace();
   return (

@@ -69,7 +69,7 @@ export function SizeFields({ register, sizeBy }: { register: Register; sizeBy: E
   );
 }
 
-/** Which kinds of markup are drawn, and whether labels and review threads are. */
+/** Which kinds of markup are drawn, and whether labels and remark markers are. */
 export function MarkupFields({ register }: { register: Register }) {
   return (
     <>
@@ -86,7 +86,7 @@ export function MarkupFields({ register }: { register: Register }) {
           <input type="checkbox" {...register("labels")} /> Labels
         </label>
         <label>
-          <input type="checkbox" {...register("threads")} /> Review threads
+          <input type="checkbox" {...register("threads")} /> Remarks
         </label>
       </div>
     </>

@@ -23,7 +23,7 @@ export function BondWireEstimate({ shape, editor, canEdit }: { shape: Shape<"wir
       <h3 className="text-xs font-semibold uppercase tracking-wide text-ink-300">Bond-wire inductance</h3>
       <div className="grid grid-cols-2 gap-2">
         <ReadOnlyValue label="Length (drawn)" value={`${lengthUm.toFixed(1)} µm`} testId="bond-length" />
-        <ReadOnlyValue label="Wire diameter (inspector)" value={`${diameterUm} µm`} />
+        <ReadOnlyValue label="Wire diameter (Selection tab)" value={`${diameterUm} µm`} />
         <NumberInput id="bond-count" label="Bonds in parallel" value={count} onChange={setCount} />
         <NumberInput id="bond-pitch" label="Pitch" unit="µm" value={pitch} onChange={setPitch} disabled={!(n > 1)} />
         <SelectInput

@@ -48,7 +48,7 @@ export function TraceEstimates({ shape, editor, canEdit }: { shape: Shape<"trace
     <div className="flex flex-col gap-4">
       <div className="grid grid-cols-2 gap-2">
         <ReadOnlyValue label="Length (drawn)" value={`${lengthUm.toFixed(1)} µm`} />
-        <ReadOnlyValue label="Width (inspector)" value={`${widthUm} µm`} />
+        <ReadOnlyValue label="Width (Selection tab)" value={`${widthUm} µm`} />
         <NumberInput id="trace-thickness" label="Metal thickness" unit="µm" value={thickness} onChange={setThickness} />
         <SelectInput id="trace-substrate" label="Substrate" value={sub.preset} onChange={sub.choose} options={PRESETS} />
         <NumberInput id="trace-er" label="Relative permittivity εr" value={sub.er} onChange={sub.typeEr} />

@@ -5,25 +5,7 @@ import { queryKeys } from "@/lib/client/query-keys";
 import { apiFetch } from "@/lib/client/api";
 import { Button } from "@/components/ui/button";
 import type { ActivityItem } from "@/lib/dto/activity";
-
-const WORDS: Record<string, string> = {
-  "die.created": "created the die",
-  "die.updated": "changed the die",
-  "markup.created": "drew",
-  "markup.updated": "changed",
-  "markup.deleted": "deleted",
-  "thread.created": "started a thread",
-  "thread.resolved": "resolved a thread",
-  "thread.reopened": "reopened a thread",
-  "comment.created": "commented",
-  "comment.edited": "edited a comment",
-  "comment.deleted": "deleted a comment",
-  "review.send": "sent the die to the checker",
-  "review.withdraw": "withdrew the die from the checker",
-  "review.sign_off": "signed off the die",
-  "review.return": "returned the die with remarks",
-  "revision.opened": "opened a new revision",
-};
+import { activitySentence } from "@/lib/review/activity-words";
 
 /** The die's activity from the audit trail, newest first, a page at a time. */
 export function ActivityList({ dieId }: { dieId: string }) {
@@ -43,8 +25,7 @@ export function ActivityList({ dieId }: { dieId: string }) {
       <ol className="flex flex-col gap-1 text-xs text-ink-300">
         {items.map((i) => (
           <li key={i.id}>
-            <span className="text-ink-100">{i.actorName ?? "Someone"}</span> {WORDS[i.action] ?? i.action}{" "}
-            {i.detail && <span className="text-ink-400">{i.action.startsWith("markup.") ? `a ${i.detail}` : `“${i.detail}”`}</span>}
+            <span className="text-ink-100">{i.actorName ?? "Someone"}</span> {activitySentence(i.action, i.detail)}
             <span className="block text-ink-500">{new Date(i.at).toLocaleString()}</span>
           </li>
         ))}

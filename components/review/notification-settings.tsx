@@ -5,7 +5,7 @@ import { apiFetch } from "@/lib/client/api";
 import type { NotificationPrefs } from "@/lib/dto/notification-prefs";
 
 const LABELS: Record<keyof NotificationPrefs, string> = {
-  comment: "A new comment on a thread I am in",
+  comment: "A reply on a remark I raised or replied to",
   mention: "Someone mentions me",
   review_submitted: "A die is sent to the checker (owners and reviewers)",
   review_decision: "A die I analysed is signed off, returned or withdrawn",

@@ -5,7 +5,7 @@ import { Button } from "@/components/ui/button";
 import { mentionQueryAt } from "@/lib/review/mentions";
 import type { MemberDto } from "@/lib/dto/teams";
 
-/** A comment box with @mention autocomplete of the team's members. */
+/** A box for a remark or a reply, with @mention autocomplete of the team's members. */
 export function ReplyBox({
   members,
   label,
@@ -70,7 +70,7 @@ export function ReplyBox({
           }}
           onSelect={(e) => setCaret(e.currentTarget.selectionStart)}
           className="mt-1 w-full rounded-md border border-ink-700 bg-ink-950 p-2 text-sm text-ink-100"
-          placeholder="Write a comment; @ mentions a team member, `code`, - lists and links work"
+          placeholder="Write here; @ names a team member, `code`, - lists and links work"
         />
       </label>
       {suggestions.length > 0 && (

@@ -19,14 +19,17 @@ import { ReviewStatusPanel } from "./review-status-panel";
 import { ActivityList } from "./activity-list";
 import type { ReviewBench } from "./use-review-bench";
 
+// Filter ids are code; "resolved" is the stored status of a closed remark.
 type Filter = "all" | "open" | "resolved" | "mine" | "mentions";
 const FILTERS: { id: Filter; label: string }[] = [
   { id: "all", label: "All" },
   { id: "open", label: "Open" },
-  { id: "resolved", label: "Resolved" },
-  { id: "mine", label: "Mine" },
-  { id: "mentions", label: "Mentioning me" },
+  { id: "resolved", label: "Closed" },
+  { id: "mine", label: "Raised by me" },
+  { id: "mentions", label: "Naming me" },
 ];
+
+const replies = (n: number) => `${n} ${n === 1 ? "reply" : "replies"}`;
 
 const boxPolygon = (b: { minX: number; minY: number; maxX: number; maxY: number }) => ({
   type: "Polygon",
@@ -41,7 +44,7 @@ const boxPolygon = (b: { minX: number; minY: number; maxX: number; maxY: number 
   ],
 });
 
-/** The Review tab: review status, threads with filters, one thread, starting threads, activity. */
+/** The Remarks tab: the die's check status, its remarks with filters, one remark, raising remarks, activity. */
 export function ReviewPanel({
   die,
   userId,
@@ -67,12 +70,13 @@ export function ReviewPanel({
     () =>
       list.filter((t) => {
         if (filter === "open" || filter === "resolved") return t.status === filter;
-        if (filter === "mine") return t.createdBy === userId || t.comments.some((c) => c.authorId === userId);
+        if (filter === "mine") return t.createdBy === userId;
         if (filter === "mentions") return t.comments.some((c) => c.mentions.includes(userId));
         return true;
       }),
     [list, filter, userId],
   );
+  const openCount = list.filter((t) => t.status === "open").length;
   const selected = list.find((t) => t.id === review.selectedId);
   if (selected) {
     return (
@@ -104,7 +108,7 @@ export function ReviewPanel({
     return viewBoxUm({ width: el.clientWidth, height: el.clientHeight }, api.screenToImage, transform);
   };
 
-  const startThread = async (body: string) => {
+  const raiseRemark = async (body: string) => {
     if (starting === "shape") {
       const t = await review.threads.start.mutateAsync({ shapeId: selection[0], body });
       review.select(t.id);
@@ -120,32 +124,28 @@ export function ReviewPanel({
   return (
     <div className="flex flex-col gap-5">
       <ReviewStatusPanel die={die} userId={userId} />
-      <section aria-label="Threads" className="flex flex-col gap-2">
-        <h2 className="text-sm font-semibold">Threads</h2>
+      <section aria-label="Remarks" className="flex flex-col gap-2">
+        <h2 className="text-sm font-semibold">
+          Remarks <span className="font-normal text-ink-400">{list.length ? `${openCount} open of ${list.length}` : ""}</span>
+        </h2>
         {canComment && !starting && (
           <div className="flex flex-wrap gap-2">
             <Button disabled={selection.length !== 1} onClick={() => setStarting("shape")} title="Select one shape first">
-              Start thread on selection
+              Raise remark on selection
             </Button>
-            <Button onClick={() => setStarting("region")}>Start thread on a region</Button>
+            <Button onClick={() => setStarting("region")}>Raise remark on a region</Button>
           </div>
         )}
         {starting && (
           <ReplyBox
             members={members}
-            label={
-              starting === "shape"
-                ? "First comment on the selected shape"
-                : selection.length
-                  ? "First comment on the selection's area"
-                  : "First comment on the area in view"
-            }
-            submitLabel="Start thread"
-            onSubmit={startThread}
+            label={starting === "shape" ? "Remark on the selected shape" : selection.length ? "Remark on the selection's area" : "Remark on the area in view"}
+            submitLabel="Raise remark"
+            onSubmit={raiseRemark}
             onCancel={() => setStarting(null)}
           />
         )}
-        <div role="group" aria-label="Filter threads" className="flex flex-wrap gap-1">
+        <div role="group" aria-label="Filter remarks" className="flex flex-wrap gap-1">
           {FILTERS.map((f) => (
             <button
               key={f.id}
@@ -158,19 +158,19 @@ export function ReviewPanel({
           ))}
         </div>
         {review.threads.threads.isPending ? (
-          <p className="text-sm text-ink-400">Loading threads…</p>
+          <p className="text-sm text-ink-400">Loading remarks…</p>
         ) : shown.length === 0 ? (
-          <p className="text-sm text-ink-400">No threads here.</p>
+          <p className="text-sm text-ink-400">{list.length === 0 ? "No remarks on this die yet." : "No remarks match this filter."}</p>
         ) : (
           <ul className="flex flex-col gap-1">
             {shown.map((t) => (
               <li key={t.id}>
                 <button onClick={() => review.select(t.id)} className="w-full rounded-md border border-ink-800 p-2 text-left hover:bg-ink-800">
                   <span className="text-xs text-ink-400">
-                    #{list.indexOf(t) + 1} · {t.status === "open" ? "open" : "resolved"} · {t.comments.length} comment{t.comments.length === 1 ? "" : "s"}
+                    #{list.indexOf(t) + 1} · {t.status === "open" ? "open" : "closed"} · {replies(Math.max(0, t.comments.length - 1))}
                     {t.orphaned && " · shape deleted"}
                   </span>
-                  <span className="block truncate text-sm text-ink-100">{t.comments[0]?.body ?? "(no comments)"}</span>
+                  <span className="block truncate text-sm text-ink-100">{t.comments[0]?.body ?? "(text deleted)"}</span>
                 </button>
               </li>
             ))}

@@ -10,7 +10,7 @@ import type { ThreadsApi } from "./use-threads";
 
 const when = (iso: string) => new Date(iso).toLocaleString();
 
-/** One thread: its comments (own ones editable), a reply box, resolve / reopen. */
+/** One remark: its text and replies (own ones editable), a reply box, close / reopen. */
 export function ThreadView({
   thread,
   number,
@@ -31,27 +31,28 @@ export function ThreadView({
   const [editing, setEditing] = useState<string | null>(null);
   const [error, setError] = useState<string | null>(null);
   const names = members.flatMap((m) => [m.name, m.email]);
-  const resolved = thread.status === "resolved";
-  const toggle = () => api.setStatus.mutateAsync({ threadId: thread.id, resolve: !resolved }).catch((e: Error) => setError(e.message));
+  // "resolved" is the stored status; people read it as a closed remark.
+  const closed = thread.status === "resolved";
+  const toggle = () => api.setStatus.mutateAsync({ threadId: thread.id, resolve: !closed }).catch((e: Error) => setError(e.message));
   return (
-    <section aria-label={`Thread ${number}`} className="flex flex-col gap-3">
+    <section aria-label={`Remark ${number}`} className="flex flex-col gap-3">
       <div className="flex items-center justify-between">
         <Button variant="ghost" onClick={onBack}>
-          ← All threads
+          ← All remarks
         </Button>
-        <span className={`text-xs ${resolved ? "text-ok-400" : "text-kerf-300"}`}>{resolved ? "Resolved" : "Open"}</span>
+        <span className={`text-xs ${closed ? "text-ink-300" : "text-kerf-300"}`}>{closed ? "Closed" : "Open"}</span>
       </div>
       <h3 className="text-sm font-semibold">
-        Thread {number} {thread.shapeId ? "on a shape" : "on a region"}
+        Remark {number} {thread.shapeId ? "on a shape" : "on a region"}
         {thread.orphaned && <span className="ml-2 rounded bg-ink-800 px-1.5 py-0.5 text-xs text-ink-300">shape deleted</span>}
       </h3>
-      {resolved && thread.resolvedBy && (
+      {closed && thread.resolvedBy && (
         <p className="text-xs text-ink-300">
-          Resolved by {thread.resolvedBy.name} on {when(thread.resolvedAt!)}
+          Closed by {thread.resolvedBy.name} on {when(thread.resolvedAt!)}
         </p>
       )}
-      <ol aria-label="Comments" className="flex flex-col gap-3">
-        {thread.comments.map((c) => (
+      <ol aria-label="Remark and replies" className="flex flex-col gap-3">
+        {thread.comments.map((c, i) => (
           <li key={c.id} className="rounded-md border border-ink-800 bg-ink-950/60 p-2">
             <p className="mb-1 text-xs text-ink-400">
               <span className="font-medium text-ink-200">{c.authorName ?? "Former member"}</span> · {when(c.createdAt)}
@@ -60,7 +61,7 @@ export function ThreadView({
             {editing === c.id ? (
               <ReplyBox
                 members={members}
-                label="Edit comment"
+                label={i === 0 ? "Edit the remark" : "Edit the reply"}
                 submitLabel="Save"
                 initial={c.body}
                 onCancel={() => setEditing(null)}
@@ -93,7 +94,7 @@ export function ThreadView({
       {canComment && (
         <>
           <ReplyBox members={members} label="Reply" submitLabel="Reply" onSubmit={(body) => api.reply.mutateAsync({ threadId: thread.id, body })} />
-          <Button onClick={toggle}>{resolved ? "Reopen thread" : "Resolve thread"}</Button>
+          <Button onClick={toggle}>{closed ? "Reopen remark" : "Close remark"}</Button>
         </>
       )}
     </section>

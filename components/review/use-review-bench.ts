@@ -6,7 +6,7 @@ import { boundingBox, type BoundingBox } from "@/lib/geometry/measure";
 import type { Affine2x3 } from "@/lib/geometry/types";
 import type { ViewerApi } from "@/components/viewer";
 import type { EditorState } from "@/components/annotate/editor/types";
-import { threadPinsDrawer } from "./thread-pins";
+import { remarkMarkersDrawer } from "./remark-markers";
 import { useThreads } from "./use-threads";
 
 /** Animates the viewer to a die-µm box with room around it. */
@@ -36,7 +36,7 @@ export function useReviewBench(
   const threads = useThreads(dieId);
   const [selectedId, setSelectedId] = useState<string | null>(linkedThreadId);
   const list = useMemo(() => threads.threads.data ?? [], [threads.threads.data]);
-  const drawer = useMemo(() => threadPinsDrawer(list, selectedId), [list, selectedId]);
+  const drawer = useMemo(() => remarkMarkersDrawer(list, selectedId), [list, selectedId]);
 
   const linked = useRef(linkedThreadId);
   const show = useCallback(

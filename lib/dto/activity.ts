@@ -8,6 +8,6 @@ export type ActivityItem = {
   entityId: string | null;
   actorId: string | null;
   actorName: string | null;
-  /** A short plain-text detail (a comment's first line, a shape's kind, a review message). */
+  /** What the entry is about, in words (lib/review/activity-words.ts): the shape, micrograph or remark, and what was written. */
   detail: string;
 };

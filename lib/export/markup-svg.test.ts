@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import type { AnyShape } from "@/lib/markup/types";
-import { labelBox, labelSvg, markupStyle, placeThreadMarks, shapeSvg, threadRadius } from "./markup-svg";
+import { labelBox, labelSvg, markupStyle, placeThreadMarks, remarkMarkShape, shapeSvg } from "./markup-svg";
 import { withShownPadStates } from "@/lib/markup/pad-state";
 
 const shape = (kind: AnyShape["kind"], geometry: AnyShape["geometry"], properties: Record<string, unknown>): AnyShape =>
@@ -59,8 +59,8 @@ describe("labels in the annotated PNG", () => {
 });
 
 describe("placeThreadMarks", () => {
-  const overlaps = (c: [number, number], r: number, b: { x: number; y: number; width: number; height: number }) =>
-    c[0] + r > b.x && c[0] - r < b.x + b.width && c[1] + r > b.y && c[1] - r < b.y + b.height;
+  type Rect = { x0: number; y0: number; x1: number; y1: number };
+  const overlaps = (a: Rect, b: Rect) => a.x1 > b.x0 && a.x0 < b.x1 && a.y1 > b.y0 && a.y0 < b.y1;
 
   it("moves a marker anchored on a labelled shape off its label, and markers off each other", () => {
     const pad = shape(
@@ -86,10 +86,15 @@ describe("placeThreadMarks", () => {
       { at: [1200, 1200] as [number, number], open: false, number: 2 },
     ];
     const placed = placeThreadMarks(threads, [pad], m, style, true);
-    const r = threadRadius(style);
-    const centres = placed.map((t) => [300 + (t.offsetPx?.[0] ?? 0), 700 + (t.offsetPx?.[1] ?? 0)] as [number, number]);
-    for (const c of centres) expect(overlaps(c, r, box)).toBe(false);
-    expect(Math.abs(centres[0][1] - centres[1][1])).toBeGreaterThanOrEqual(2 * r);
+    // Each marker's outline box, from its tail's tip (the anchor plus the offset).
+    const rects = placed.map((t): Rect => {
+      const b = remarkMarkShape(t, style).box;
+      const [x, y] = [300 + (t.offsetPx?.[0] ?? 0), 700 + (t.offsetPx?.[1] ?? 0)];
+      return { x0: x + b.minX, y0: y + b.minY, x1: x + b.maxX, y1: y + b.maxY };
+    });
+    const label = { x0: box.x, y0: box.y, x1: box.x + box.width, y1: box.y + box.height };
+    for (const r of rects) expect(overlaps(r, label)).toBe(false);
+    expect(overlaps(rects[0], rects[1])).toBe(false);
     // Without labels drawn, nothing is in the way and the first marker stays on its anchor.
     expect(placeThreadMarks(threads, [pad], m, style, false)[0].offsetPx).toBeUndefined();
   });

@@ -8,6 +8,14 @@ import { shapeLabel } from "@/lib/markup/markup-table";
 import type { AnyShape } from "@/lib/markup/types";
 import { textWidthPx } from "@/lib/fonts/app-fonts";
 import { clip, n2, xmlEscape } from "./svg-text";
+import {
+  REMARK_MARKER_PROPORTIONS,
+  REMARK_MARKER_SIZES,
+  REMARK_MARKER_STYLES,
+  remarkMarkerPath,
+  remarkMarkerShape,
+  type RemarkMarkerShape,
+} from "@/lib/markup/remark-marker";
 
 /** Sizes of strokes and text in output pixels, scaled with the output's width. */
 export type MarkupStyle = { readonly stroke: number; readonly fontPx: number };
@@ -18,7 +26,7 @@ export function markupStyle(outputWidth: number): MarkupStyle {
   return { stroke, fontPx: Math.max(11, Math.min(96, outputWidth / 90)) };
 }
 
-/** A thread marker to draw: where (die µm) and whether it is still open. */
+/** A remark marker to draw: where (die µm) and whether the remark is still open. */
 export type ThreadMark = {
   readonly at: Position;
   readonly open: boolean;
@@ -137,15 +145,17 @@ function measured(text: string, f: number): number {
   return w;
 }
 
-/** Radius of a thread marker in output px. */
-export const threadRadius = (style: MarkupStyle) => style.fontPx * 0.75;
+/** A remark marker at the export's scale: the same tag as on screen, sized from the label font. */
+export const remarkMarkShape = (t: ThreadMark, style: MarkupStyle): RemarkMarkerShape =>
+  remarkMarkerShape(style.fontPx * REMARK_MARKER_SIZES.exportPerFontPx, t.number);
 
 type Box = readonly [number, number, number, number];
 
 /**
- * Thread markers moved off every label plate and off each other: a marker that would cover a
- * label goes straight up to just above it, as often as needed, and keeps a leader line to the
- * place it marks. Done once for the whole output so a marker crossing tiles lands the same in each.
+ * Remark markers moved off every label plate and off each other: a marker that would cover a
+ * label goes straight up to just above it, as often as needed, and keeps a leader line from the
+ * place it marks to its tail's tip. Done once for the whole output so a marker crossing tiles
+ * lands the same in each.
  */
 export function placeThreadMarks(threads: readonly ThreadMark[], shapes: readonly AnyShape[], m: Affine2x3, style: MarkupStyle, labels: boolean): ThreadMark[] {
   const obstacles: Box[] = labels
@@ -154,52 +164,54 @@ export function placeThreadMarks(threads: readonly ThreadMark[], shapes: readonl
         return b ? [[b.x, b.y, b.x + b.width, b.y + b.height] as const] : [];
       })
     : [];
-  const r = threadRadius(style) + style.stroke / 2;
+  const pad = style.stroke / 2;
   return threads.map((t) => {
+    const { box } = remarkMarkShape(t, style);
     const [ax, ay] = applyAffine(m, t.at[0], t.at[1]);
+    const [x0, x1] = [ax + box.minX - pad, ax + box.maxX + pad];
     let y = ay;
     for (let i = 0; i < 100; i++) {
-      const hit = obstacles.find((b) => ax + r > b[0] && ax - r < b[2] && y + r > b[1] && y - r < b[3]);
+      const hit = obstacles.find((b) => x1 > b[0] && x0 < b[2] && y + box.maxY + pad > b[1] && y + box.minY - pad < b[3]);
       if (!hit) break;
-      y = hit[1] - r - style.stroke;
+      y = hit[1] - box.maxY - pad - style.stroke;
     }
-    obstacles.push([ax - r, y - r, ax + r, y + r]);
+    obstacles.push([x0, y + box.minY - pad, x1, y + box.maxY + pad]);
     return y === ay ? t : { ...t, offsetPx: [0, y - ay] as const };
   });
 }
 
 /**
- * The leader of a moved thread marker: a line from the place it marks to the marker, and a dot
- * there. Drawn under the labels, so the plate it was moved off stays readable.
+ * The leader of a moved remark marker: a line from the place it marks to the marker's tip, and a
+ * dot there. Drawn under the labels, so the plate it was moved off stays readable.
  */
 function threadLeaderSvg(t: ThreadMark, m: Affine2x3, style: MarkupStyle): string {
   if (!t.offsetPx) return "";
   const [ax, ay] = applyAffine(m, t.at[0], t.at[1]);
   const x = ax + t.offsetPx[0];
-  const y = ay + t.offsetPx[1] + threadRadius(style);
+  const y = ay + t.offsetPx[1];
   return `<line x1="${n2(ax)}" y1="${n2(ay)}" x2="${n2(x)}" y2="${n2(y)}" stroke="#fff" stroke-width="${n2(style.stroke)}"/><circle cx="${n2(ax)}" cy="${n2(ay)}" r="${n2(style.stroke * 1.5)}" fill="#fff" stroke="#111" stroke-width="${n2(style.stroke / 2)}"/>`;
 }
 
-/** A numbered marker for a review thread (filled when open, hollow when resolved). */
-function threadSvg(t: ThreadMark, m: Affine2x3, style: MarkupStyle): string {
+/** A remark's numbered marker (lib/markup/remark-marker.ts, as on screen): tail tip on its anchor, or on its leader's end. */
+function remarkMarkSvg(t: ThreadMark, m: Affine2x3, style: MarkupStyle): string {
   const [ax, ay] = applyAffine(m, t.at[0], t.at[1]);
   const x = ax + (t.offsetPx?.[0] ?? 0);
   const y = ay + (t.offsetPx?.[1] ?? 0);
-  const r = threadRadius(style);
-  const fill = t.open ? "#ffffff" : "none";
-  const colour = t.open ? "#111111" : "#ffffff";
-  return `<circle cx="${n2(x)}" cy="${n2(y)}" r="${n2(r)}" fill="${fill}" stroke="#111" stroke-width="${n2(style.stroke)}"/><text x="${n2(x)}" y="${n2(y + r * 0.4)}" font-size="${n2(r * 1.1)}" text-anchor="middle" fill="${colour}">${t.number}</text>`;
+  const shape = remarkMarkShape(t, style);
+  const s = REMARK_MARKER_STYLES[t.open ? "open" : "closed"];
+  const { label } = shape;
+  return `<path d="${remarkMarkerPath(shape, x, y)}" fill="${s.plate}" stroke="${s.edge}" stroke-width="${n2(shape.edgePx)}" stroke-linejoin="miter"/><text x="${n2(x + label.x)}" y="${n2(y + label.y + label.fontPx * REMARK_MARKER_PROPORTIONS.numberBaselineEm)}" font-size="${n2(label.fontPx)}" font-weight="bold" text-anchor="middle" fill="${s.number}">${t.number}</text>`;
 }
 
 /**
  * Everything drawn over the image area: shapes first (in creation order), the leaders of moved
- * thread markers, labels on top of all that, then the thread markers.
+ * remark markers, labels on top of all that, then the remark markers.
  */
 export function markupLayerSvg(shapes: readonly AnyShape[], m: Affine2x3, width: number, opts: { labels: boolean; threads: readonly ThreadMark[] }): string {
   const style = markupStyle(width);
   const parts = shapes.map((s) => shapeSvg(s, m, style));
   parts.push(...opts.threads.map((t) => threadLeaderSvg(t, m, style)));
   if (opts.labels) parts.push(...shapes.map((s) => labelSvg(s, m, style)));
-  parts.push(...opts.threads.map((t) => threadSvg(t, m, style)));
+  parts.push(...opts.threads.map((t) => remarkMarkSvg(t, m, style)));
   return parts.join("");
 }

@@ -55,7 +55,7 @@ describe("markupTiles", () => {
   });
 
   it("places thread markers in the tile under them", () => {
-    const tiles = markupTiles([], [{ at: [3000, 900], open: true, number: 7 }], m, 4096, 1024, { labels: false });
+    const tiles = markupTiles([], [{ at: [2800, 900], open: true, number: 7 }], m, 4096, 1024, { labels: false });
     expect(tiles.map((t) => [t.left, t.top])).toEqual([[2048, 0]]);
     expect(tiles[0].svg).toContain(">7</text>");
   });

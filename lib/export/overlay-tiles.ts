@@ -3,7 +3,7 @@ import { applyAffine } from "@/lib/geometry/affine";
 import { boundingBox } from "@/lib/geometry/measure";
 import type { Affine2x3 } from "@/lib/geometry/types";
 import type { AnyShape } from "@/lib/markup/types";
-import { labelBox, markupLayerSvg, markupStyle, placeThreadMarks, threadRadius, type MarkupStyle, type ThreadMark } from "./markup-svg";
+import { labelBox, markupLayerSvg, markupStyle, placeThreadMarks, remarkMarkShape, type MarkupStyle, type ThreadMark } from "./markup-svg";
 
 /**
  * Splits the markup over the output into small SVG tiles, each holding only the shapes that
@@ -41,12 +41,13 @@ function shapeReach(shape: AnyShape, m: Affine2x3, style: MarkupStyle, labels: b
   return [x0, y0, x1, y1];
 }
 
-/** Output-pixel box of a thread marker, its leader and anchor included. */
+/** Output-pixel box of a remark marker, its leader and anchor included. */
 function threadReach(t: ThreadMark, m: Affine2x3, style: MarkupStyle): Box {
   const [x, y] = applyAffine(m, t.at[0], t.at[1]);
   const [dx, dy] = t.offsetPx ?? [0, 0];
-  const r = threadRadius(style) + style.stroke * 2;
-  return [Math.min(x, x + dx) - r, Math.min(y, y + dy) - r, Math.max(x, x + dx) + r, Math.max(y, y + dy) + r];
+  const { box, edgePx } = remarkMarkShape(t, style);
+  const e = edgePx + style.stroke * 2;
+  return [Math.min(x, x + dx + box.minX) - e, Math.min(y, y + dy + box.minY) - e, Math.max(x, x + dx + box.maxX) + e, Math.max(y, y + dy + box.maxY) + e];
 }
 
 const touches = (b: Box, left: number, top: number, w: number, h: number) => b[2] >= left && b[0] <= left + w && b[3] >= top && b[1] <= top + h;

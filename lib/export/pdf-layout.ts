@@ -46,7 +46,7 @@ export class PdfWriter {
     doc.registerFontkit(fontkit);
     doc.setTitle(title);
     doc.setCreator("Kerfline");
-    doc.setProducer("Kerfline (pdf-lib)");
+    doc.setProducer("Kerfline");
     const regular = await doc.embedFont(appFontBytes("regular"), { subset: true });
     const bold = await doc.embedFont(appFontBytes("bold"), { subset: true });
     const w = new PdfWriter(doc, regular, bold);

@@ -66,11 +66,11 @@ function data(): ReportData {
       },
       {
         number: 2,
-        status: "resolved",
+        status: "closed",
         author: "Rita Reviewer",
         createdAt: "2026-12-01 15:33",
         on: "on a drawn region",
-        resolved: "resolved by Rita Reviewer on 2026-12-02 08:00",
+        resolved: "closed by Rita Reviewer on 2026-12-02 08:00",
         messages: [
           { author: "Rita Reviewer", at: "2026-12-01 15:33", body: MESSAGES[1], edited: false },
           { author: "Ana Analyst", at: "2026-12-01 16:10", body: MESSAGES[3], edited: false },
@@ -162,14 +162,14 @@ function data(): ReportData {
   };
 }
 
-function pdfText(pdf: Uint8Array): { text: string; pages: number } {
+function pdfText(pdf: Uint8Array): { text: string; pages: number; info: string } {
   const dir = mkdtempSync(join(tmpdir(), "report-pdf-"));
   try {
     const file = join(dir, "r.pdf");
     writeFileSync(file, pdf);
     const text = execFileSync("pdftotext", ["-layout", "-enc", "UTF-8", file, "-"], { encoding: "utf8" });
     const info = execFileSync("pdfinfo", [file], { encoding: "utf8" });
-    return { text, pages: Number(/Pages:\s+(\d+)/.exec(info)![1]) };
+    return { text, pages: Number(/Pages:\s+(\d+)/.exec(info)![1]), info };
   } finally {
     rmSync(dir, { recursive: true, force: true });
   }
@@ -185,7 +185,13 @@ describe("buildReportPdf", () => {
       expect(flat).toContain(words(m));
     expect(text).not.toContain("…");
     for (const date of ["2026-12-01 15:31", "2026-12-01 16:02", "2026-12-02 08:00", "2026-12-01 09:12"]) expect(flat).toContain(date);
-    expect(flat).toContain("resolved by Rita Reviewer");
+    expect(flat).toContain("closed by Rita Reviewer");
+  });
+
+  it("names Kerfline alone as its creator and producer, as poppler's pdfinfo reads them", async () => {
+    const { info } = pdfText(await buildReportPdf(data()));
+    expect(/^Creator:\s+(.*)$/m.exec(info)?.[1]).toBe("Kerfline");
+    expect(/^Producer:\s+(.*)$/m.exec(info)?.[1]).toBe("Kerfline");
   });
 
   it("prints every saved estimate with its inputs, results, formula and source", async () => {

@@ -1,10 +1,10 @@
-/** A shape's review state from its threads: any open thread → open; only resolved → resolved. */
+/** A shape's remark state from its remarks: any open remark → open; only closed ones (stored `resolved`) → resolved. */
 export type ShapeReviewState = "open" | "resolved" | "none";
 export const SHAPE_REVIEW_STATES: readonly ShapeReviewState[] = ["open", "resolved", "none"];
 export const SHAPE_REVIEW_LABELS: Record<ShapeReviewState, string> = {
-  open: "With open threads",
-  resolved: "With resolved threads only",
-  none: "Without threads",
+  open: "With open remarks",
+  resolved: "With closed remarks only",
+  none: "Without remarks",
 };
 
 /** Review state per shape id, for the shapes that have threads (others are "none"). */

@@ -4,7 +4,7 @@ import { excerpt, inboxText } from "./inbox-text";
 describe("inbox text", () => {
   it("names who, what and which die, with the comment's words", () => {
     expect(inboxText({ kind: "mention", author: "Demo Owner", dieName: "NV-2 die A", body: "please check\n\nthe  pad ring" })).toBe(
-      "Demo Owner mentioned you on NV-2 die A: please check the pad ring",
+      "Demo Owner named you in a remark on NV-2 die A: please check the pad ring",
     );
     expect(inboxText({ kind: "review", action: "return", author: "Demo Reviewer", dieName: "NV-2 die A", message: "" })).toBe(
       "Demo Reviewer returned NV-2 die A with remarks",

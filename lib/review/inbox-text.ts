@@ -20,7 +20,8 @@ export type InboxEvent =
 
 /** The text shown for an event in the inbox. */
 export function inboxText(e: InboxEvent): string {
-  if (e.kind !== "review") return `${e.author} ${e.kind === "mention" ? "mentioned you on" : "replied on"} ${e.dieName}: ${excerpt(e.body)}`;
+  if (e.kind !== "review")
+    return `${e.author} ${e.kind === "mention" ? "named you in a remark on" : "replied to a remark on"} ${e.dieName}: ${excerpt(e.body)}`;
   const what = actionPhrase(e.action, e.dieName);
   const said = excerpt(e.message);
   return said ? `${e.author} ${what}: ${said}` : `${e.author} ${what}`;

@@ -4,18 +4,35 @@ import { actionPhrase, type ReviewAction } from "./review-status";
 /** One message as the outbox stores it. */
 export type MailContent = { readonly subject: string; readonly text: string; readonly html: string };
 
-const FOOTER_TEXT = "You can choose which notifications you receive under Settings → Notifications in Kerfline.";
+/** The page where a user chooses which mails they get (app/(workspace)/settings/notifications). */
+const SETTINGS_PATH = "/settings/notifications";
 
-function wrapHtml(heading: string, bodyHtml: string, link: { href: string; label: string }): string {
+/** Where the settings are, in the top bar's words, and the page's address on the same server as `link`. */
+export function settingsFooter(link: string): { text: string; href: string } {
+  const href = `${new URL(link).origin}${SETTINGS_PATH}`;
+  return { text: `You get this because of your notification settings. Choose which mails you receive under "Notifications" in Kerfline's top bar`, href };
+}
+
+function wrapHtml(heading: string, bodyHtml: string, link: { href: string; label: string }, withFooter = true): string {
+  const footer = settingsFooter(link.href);
   return [
     `<div style="font-family:sans-serif;font-size:14px;line-height:1.5">`,
     `<p><strong>${escapeHtml(heading)}</strong></p>`,
     bodyHtml,
     `<p><a href="${escapeHtml(link.href)}">${escapeHtml(link.label)}</a></p>`,
-    `<p style="color:#666;font-size:12px">${escapeHtml(FOOTER_TEXT)}</p>`,
+    withFooter
+      ? `<p style="color:#666;font-size:12px">${escapeHtml(footer.text)}: <a href="${escapeHtml(footer.href)}">${escapeHtml(footer.href)}</a></p>`
+      : "",
     `</div>`,
-  ].join("\n");
+  ]
+    .filter(Boolean)
+    .join("\n");
 }
+
+const footerText = (link: string) => {
+  const f = settingsFooter(link);
+  return `${f.text}: ${f.href}`;
+};
 
 function quote(body: string): string {
   return body
@@ -24,13 +41,16 @@ function quote(body: string): string {
     .join("\n");
 }
 
-/** A new comment (or a mention) on a thread, with a deep link to the thread. */
+/**
+ * A reply on a remark the reader raised or replied to (`comment`), or a remark or reply naming
+ * them (`mention`), with a deep link to the remark.
+ */
 export function commentMail(p: { kind: "comment" | "mention"; author: string; dieName: string; body: string; link: string }): MailContent {
-  const heading = p.kind === "mention" ? `${p.author} mentioned you on ${p.dieName}` : `${p.author} commented on ${p.dieName}`;
+  const heading = p.kind === "mention" ? `${p.author} named you in a remark on ${p.dieName}` : `${p.author} replied to a remark on ${p.dieName}`;
   return {
-    subject: p.kind === "mention" ? `[Kerfline] ${p.author} mentioned you on ${p.dieName}` : `[Kerfline] New comment on ${p.dieName}`,
-    text: `${heading}:\n\n${quote(p.body)}\n\nOpen the thread: ${p.link}\n\n${FOOTER_TEXT}\n`,
-    html: wrapHtml(heading, `<blockquote>${commentHtml(p.body)}</blockquote>`, { href: p.link, label: "Open the thread" }),
+    subject: p.kind === "mention" ? `[Kerfline] ${p.author} named you in a remark on ${p.dieName}` : `[Kerfline] New reply to a remark on ${p.dieName}`,
+    text: `${heading}:\n\n${quote(p.body)}\n\nOpen the remark: ${p.link}\n\n${footerText(p.link)}\n`,
+    html: wrapHtml(heading, `<blockquote>${commentHtml(p.body)}</blockquote>`, { href: p.link, label: "Open the remark" }),
   };
 }
 
@@ -41,7 +61,7 @@ export function reviewMail(p: { action: ReviewAction; actor: string; dieName: st
   const message = p.message.trim() ? `\n\n${quote(p.message)}` : "";
   return {
     subject: `[Kerfline] ${p.dieName} ${what}`,
-    text: `${heading}.${message}\n\nOpen the die: ${p.link}\n\n${FOOTER_TEXT}\n`,
+    text: `${heading}.${message}\n\nOpen the die: ${p.link}\n\n${footerText(p.link)}\n`,
     html: wrapHtml(heading, p.message.trim() ? `<blockquote>${commentHtml(p.message)}</blockquote>` : "", { href: p.link, label: "Open the die" }),
   };
 }
@@ -53,6 +73,7 @@ export function invitationMail(p: { inviter: string; teamName: string; role: str
   return {
     subject: `[Kerfline] Invitation to join ${p.teamName}`,
     text: `${heading}.\n\nAccept the invitation (the link works once, until ${until}): ${p.link}\n`,
-    html: wrapHtml(heading, `<p>The link works once, until ${escapeHtml(until)}.</p>`, { href: p.link, label: "Accept the invitation" }),
+    // Invitations are not governed by notification settings, so they carry no settings footer.
+    html: wrapHtml(heading, `<p>The link works once, until ${escapeHtml(until)}.</p>`, { href: p.link, label: "Accept the invitation" }, false),
   };
 }

@@ -25,7 +25,7 @@ async function loadOwnComment(db: Db, actor: Actor, commentId: string) {
   const thread = await loadThread(db, actor, c.threadId, "comment").catch((e) => {
     throw e instanceof NotFoundError ? new NotFoundError("That comment") : e;
   });
-  if (c.authorId !== actor.userId) throw new ForbiddenError("You can only change or delete your own comments.");
+  if (c.authorId !== actor.userId) throw new ForbiddenError("You can only change or delete what you wrote yourself.");
   return { c, thread };
 }
 

@@ -28,7 +28,7 @@ const LOOKUPS: [param: string, lookup: Lookup][] = [
   ],
   [
     "threadId",
-    { what: "That thread", team: async (db, id) => (await viaDie(db).innerJoin(threads, eq(threads.dieId, dies.id)).where(eq(threads.id, id)))[0]?.teamId },
+    { what: "That remark", team: async (db, id) => (await viaDie(db).innerJoin(threads, eq(threads.dieId, dies.id)).where(eq(threads.id, id)))[0]?.teamId },
   ],
   [
     "markupId",

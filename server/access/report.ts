@@ -75,6 +75,7 @@ async function reviewParts(db: Db, dieId: string, shapes: readonly AnyShape[]): 
     })),
     threads: ts.map((t, i) => ({
       number: i + 1,
+      // The stored `resolved` is a closed remark in the report's words.
       status: t.status === "resolved" ? "closed" : "open",
       author: who(t.createdBy),
       createdAt: day(t.createdAt),

@@ -16,7 +16,7 @@ import type { CommentDto, ThreadDto } from "@/lib/dto/threads";
 /** Loads a thread and checks the caller may do `action` on its die (404 outside the team). */
 export async function loadThread(db: Db, actor: Actor, threadId: string, action: TeamAction) {
   const [row] = await db.select().from(threads).where(eq(threads.id, threadId));
-  const { die } = await loadDieOf(db, actor, row, action, "That thread");
+  const { die } = await loadDieOf(db, actor, row, action, "That remark");
   return { row, die };
 }
 
@@ -138,7 +138,7 @@ export async function createThread(db: Db, actor: Actor, dieId: string, input: N
 export async function setThreadStatus(db: Db, actor: Actor, threadId: string, status: "open" | "resolved"): Promise<ThreadDto> {
   await db.transaction(async (tx) => {
     const { row, die } = await loadThread(tx, actor, threadId, "comment");
-    if (row.status === status) throw new ConflictError(status === "resolved" ? "This thread is already resolved." : "This thread is already open.");
+    if (row.status === status) throw new ConflictError(status === "resolved" ? "This remark is already closed." : "This remark is already open.");
     const resolved = status === "resolved";
     const [after] = await tx
       .update(threads)

@@ -6,6 +6,8 @@ import sharp from "sharp";
 import { planRender, type RenderPlan } from "@/lib/export/render-plan";
 import { renderAnnotatedPngBuffer, renderAnnotatedPngFile, type RenderInput } from "./render-png";
 import { MARKUP_KINDS, type AnyShape } from "@/lib/markup/types";
+import { markupStyle } from "@/lib/export/markup-svg";
+import { REMARK_MARKER_SIZES, remarkMarkerShape } from "@/lib/markup/remark-marker";
 
 // Pixel checks of the annotated PNG. Expected positions come from the affine maps written out
 // by hand below (image px → die µm as PRODUCT.md's coordinates define it), and the image area
@@ -275,13 +277,19 @@ describe("renderAnnotatedPngFile over several bands", () => {
     let diff = 0;
     for (let i = 0; i < a.length; i++) diff = Math.max(diff, Math.abs(a[i] - b[i]));
     expect(diff).toBe(0);
-    // The open thread's marker is filled white at die (1200, 900) → output (600, 450), beside its number.
+    // Remark markers (lib/markup/remark-marker.ts): a pixel just inside each body's top-left
+    // corner, off its edge and its number, from the tail's tip at the anchor.
     const img = await rawOf(png);
-    const r = (p.width / 90) * 0.75;
-    expect(img.at(Math.round(600 - r * 0.6), 450).every((v) => v > 240)).toBe(true);
-    // The resolved one is hollow: its centre keeps the micrograph's ramp colour (blue 60).
-    const hollow = img.at(Math.round(1210 / 2 + r * 0.5), Math.round((1800 - 505) / 2));
-    expect(Math.abs(hollow[2] - 60)).toBeLessThan(8);
+    const shape = remarkMarkerShape(markupStyle(p.width).fontPx * REMARK_MARKER_SIZES.exportPerFontPx, 1);
+    const [cornerX, cornerY] = shape.outline[4];
+    const inBody = (tipX: number, tipY: number) => img.at(Math.round(tipX + cornerX + shape.edgePx + 1), Math.round(tipY + cornerY + shape.edgePx + 1));
+    // The open one at die (1200, 900) → output (600, 450) is opaque copper #d27f42.
+    const open = inBody(600, 450);
+    [0xd2, 0x7f, 0x42].forEach((v, c) => expect(Math.abs(open[c] - v)).toBeLessThan(4));
+    // The closed one's plate is rgba(13,15,17,0.72) over the micrograph's ramp (blue 60):
+    // source-over gives 0.72 × 17 + 0.28 × 60 ≈ 29 in blue (SVG 1.1 §14.2, simple alpha compositing).
+    const closed = inBody(1210 / 2, (1800 - 505) / 2);
+    expect(Math.abs(closed[2] - (0.72 * 17 + 0.28 * 60))).toBeLessThan(6);
   });
 
   // The legend's order is MARKUP_KINDS (lib/markup/types.ts), whatever order the shapes come in.

@@ -34,7 +34,7 @@ async function demoTeamId(page: Page): Promise<string> {
 test.describe.serial("inbox, invitations and account", () => {
   test.afterEach(closeExtraContexts);
 
-  test("a mention reaches the analyst's inbox, counted in the top bar, and opens the exact thread", async ({ browser }) => {
+  test("a mention reaches the analyst's inbox, counted in the top bar, and opens the exact remark", async ({ browser }) => {
     const reviewer = await as(browser, "reviewer");
     await reviewer.getByRole("link", { name: "NV-24R receiver teardown" }).click();
     await reviewer.getByRole("link", { name: "NV-24R die A" }).click();
@@ -66,7 +66,7 @@ test.describe.serial("inbox, invitations and account", () => {
     await expect(analyst.getByRole("heading", { name: "Inbox" })).toBeVisible();
     const item = analyst.getByTestId("inbox-item").filter({ hasText: asked });
     await expect(item).toHaveAttribute("data-unread", "true");
-    await expect(item).toContainText("Demo Reviewer mentioned you on NV-24R die A");
+    await expect(item).toContainText("Demo Reviewer named you in a remark on NV-24R die A");
     await analyst.screenshot({ path: `${SHOTS}/inbox.png` });
 
     await item.getByRole("link").click();

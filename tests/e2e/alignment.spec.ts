@@ -44,7 +44,7 @@ async function pixels(page: Page) {
 const luminance = ([r, g, b]: number[]) => 0.2126 * r + 0.7152 * g + 0.0722 * b;
 
 test.describe.serial("aligning and comparing the demo micrographs", () => {
-  test("the analyst aligns the dark field by 4 control points, then blends and swipes it over the bright field", async ({ page }) => {
+  test("the analyst aligns the dark field by 4 control points, then overlays it on the bright field and splits the view", async ({ page }) => {
     await page.setViewportSize({ width: 1600, height: 900 });
     await signInAs(page, "analyst");
     await page.getByRole("link", { name: "NV-24R receiver teardown" }).click();
@@ -85,14 +85,14 @@ test.describe.serial("aligning and comparing the demo micrographs", () => {
       expect(Math.hypot(u - pad.centreUm[0], v - pad.centreUm[1])).toBeLessThan(15);
     }
 
-    // Blend: the dark field over the bright field at 50 %. Each image alone, then blended: the
+    // Overlay: the dark field over the bright field at 50 %. Each image alone, then overlaid: the
     // pad must sit at the ground-truth spot in both (bright field: light pad square, dark field:
     // lit outlines). Pads without a bond ball are used: the probed VB1S (scrub mark offset along y) for x, the probed G5
     // (its scrub mark is offset along x only) for y.
-    await expect(page.getByTestId("compare-view")).toHaveAttribute("data-mode", "blend");
+    await expect(page.getByTestId("compare-view")).toHaveAttribute("data-mode", "overlay");
     const top = page.getByTestId("compare-top").getByRole("application", { name: "Micrograph viewer" });
     await waitForStillView(page);
-    const opacity = page.getByLabel("Blend opacity");
+    const opacity = page.getByLabel("Overlay opacity");
     const shot = async (value: string) => {
       await opacity.fill(value);
       await waitForStillView(page);
@@ -100,7 +100,7 @@ test.describe.serial("aligning and comparing the demo micrographs", () => {
     };
     const darkOnly = await shot("100");
     const brightOnly = await shot("0");
-    const blended = await shot("50");
+    const overlaid = await shot("50");
     const xPad = await fitScreen(top, dark, padByLabel(NV24R_LAYOUT, "VB1S").centreUm);
     const yPad = await fitScreen(top, dark, padByLabel(NV24R_LAYOUT, "G5").centreUm);
     /** Centroid along one axis of the pixels brighter than `min` in a 17 × 17 px window (the pad is about 13 px wide here). */
@@ -127,7 +127,7 @@ test.describe.serial("aligning and comparing the demo micrographs", () => {
     for (const v of Object.values(found)) expect(Math.abs(v), JSON.stringify(found)).toBeLessThan(3);
     expect(Math.abs(found.bx - found.dx), JSON.stringify(found)).toBeLessThan(2);
     expect(Math.abs(found.by - found.dy), JSON.stringify(found)).toBeLessThan(2);
-    // At 50 % every pixel over the pad is the mean of the two (within blending rounding).
+    // At 50 % every pixel over the pad is the mean of the two (within compositing rounding).
     for (const [dx, dy] of [
       [0, 0],
       [-4, 0],
@@ -136,22 +136,22 @@ test.describe.serial("aligning and comparing the demo micrographs", () => {
     ]) {
       const x = xPad.x + dx;
       const y = xPad.y + dy;
-      blended(x, y).forEach((v, c) => expect(Math.abs(v - (darkOnly(x, y)[c] + brightOnly(x, y)[c]) / 2)).toBeLessThan(12));
+      overlaid(x, y).forEach((v, c) => expect(Math.abs(v - (darkOnly(x, y)[c] + brightOnly(x, y)[c]) / 2)).toBeLessThan(12));
     }
 
-    // Swipe with the divider dragged onto the pad centre: dark field left of it, bright field right.
-    await page.getByRole("button", { name: "Swipe", exact: true }).first().click();
-    await expect(page.getByTestId("compare-view")).toHaveAttribute("data-mode", "swipe");
-    const divider = (await page.getByTestId("swipe-divider").boundingBox())!;
+    // Split with the divider dragged onto the pad centre: dark field left of it, bright field right.
+    await page.getByRole("button", { name: "Split", exact: true }).first().click();
+    await expect(page.getByTestId("compare-view")).toHaveAttribute("data-mode", "split");
+    const divider = (await page.getByTestId("split-divider").boundingBox())!;
     await page.mouse.move(divider.x + divider.width / 2, xPad.y - 150);
     await page.mouse.down();
     await page.mouse.move(xPad.x, xPad.y - 150, { steps: 8 });
     await page.mouse.up();
     await waitForStillView(page);
-    const swiped = await pixels(page);
+    const split = await pixels(page);
     for (const dy of [-4, 0, 4]) {
-      swiped(xPad.x - 4, xPad.y + dy).forEach((v, c) => expect(Math.abs(v - darkOnly(xPad.x - 4, xPad.y + dy)[c])).toBeLessThan(12));
-      swiped(xPad.x + 4, xPad.y + dy).forEach((v, c) => expect(Math.abs(v - brightOnly(xPad.x + 4, xPad.y + dy)[c])).toBeLessThan(12));
+      split(xPad.x - 4, xPad.y + dy).forEach((v, c) => expect(Math.abs(v - darkOnly(xPad.x - 4, xPad.y + dy)[c])).toBeLessThan(12));
+      split(xPad.x + 4, xPad.y + dy).forEach((v, c) => expect(Math.abs(v - brightOnly(xPad.x + 4, xPad.y + dy)[c])).toBeLessThan(12));
     }
   });
 

@@ -51,7 +51,7 @@ async function alignDarkByTruth(page: Page, dieId: string) {
 }
 
 /** Opens a comparison from the micrographs tab: first = top/left, second = below/right. */
-async function openCompare(page: Page, mode: "Side by side" | "Blend" | "Swipe", first: RegExp) {
+async function openCompare(page: Page, mode: "Side by side" | "Overlay" | "Split", first: RegExp) {
   await page.getByRole("tab", { name: "Die & micrographs" }).click();
   const firstSelect = page.getByLabel("First micrograph");
   await expect(firstSelect.locator("option", { hasText: first })).toHaveCount(1);
@@ -82,13 +82,13 @@ async function pixels(page: Page, file?: string) {
 }
 
 test.describe.serial("comparing the demo micrographs", () => {
-  test("the mouse wheel zooms side by side and blended, both views stay locked, no page error", async ({ page }) => {
+  test("the mouse wheel zooms side by side and overlaid, both views stay locked, no page error", async ({ page }) => {
     test.setTimeout(240_000); // the seeded micrographs are still being tiled
     const errors: string[] = [];
     page.on("pageerror", (e) => errors.push(`${e.message} ${e.stack?.split("\n").slice(1, 6).join(" ")}`));
     const dieId = await openDie(page);
     await alignDarkByTruth(page, dieId);
-    for (const mode of ["Side by side", "Blend"] as const) {
+    for (const mode of ["Side by side", "Overlay"] as const) {
       await openCompare(page, mode, /dark field/);
       await waitForStillView(page);
       const before = await dieToScreen(page, "compare-top");
@@ -129,9 +129,9 @@ test.describe.serial("comparing the demo micrographs", () => {
 
     await openDie(page);
     // Dark field on top (it leads, unturned), so the reference bright field is the one drawn
-    // turned by the 1.5° between them; blend at 0 % shows the bright field alone.
-    await openCompare(page, "Blend", /dark field/);
-    await page.getByLabel("Blend opacity").fill("0");
+    // turned by the 1.5° between them; the overlay at 0 % shows the bright field alone.
+    await openCompare(page, "Overlay", /dark field/);
+    await page.getByLabel("Overlay opacity").fill("0");
     const view = (await page.getByTestId("compare-bottom").boundingBox())!;
     const topViewer = page.getByTestId("compare-top").getByRole("application", { name: "Micrograph viewer" });
     for (const [step, zoomIns] of [0, 2, 2].entries()) {
@@ -242,7 +242,7 @@ test.describe.serial("comparing the demo micrographs", () => {
 
   test("screenshots of the three modes with the reference drawn turned, for a person to look at", async ({ page }) => {
     await openDie(page);
-    for (const mode of ["Side by side", "Blend", "Swipe"] as const) {
+    for (const mode of ["Side by side", "Overlay", "Split"] as const) {
       await openCompare(page, mode, /dark field/);
       await waitForStillView(page);
       await page.screenshot({ path: `test-results/compare-mode-${mode.replace(/ /g, "-").toLowerCase()}.png` });

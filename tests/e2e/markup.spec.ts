@@ -71,15 +71,15 @@ test.describe.serial("markup on the demo die", () => {
     await page.mouse.down();
     await page.mouse.move(b.x, b.y, { steps: 6 });
     await page.mouse.up();
-    const label = page.getByRole("region", { name: "Inspector" }).getByLabel("Label");
+    const label = page.getByRole("region", { name: "Selected markup" }).getByLabel("Label");
     await label.fill("VCC");
     await label.press("Enter");
-    await page.getByRole("region", { name: "Inspector" }).getByLabel("Net").fill("VCC");
-    await page.getByRole("region", { name: "Inspector" }).getByLabel("Net").press("Enter");
+    await page.getByRole("region", { name: "Selected markup" }).getByLabel("Net").fill("VCC");
+    await page.getByRole("region", { name: "Selected markup" }).getByLabel("Net").press("Enter");
     await expect(page.getByTestId("save-state")).toHaveAttribute("data-status", "saved");
 
     // Wire bond from the pad outward, beyond the top edge of the die.
-    // Focus is still in the inspector, so pick the tool on the tool bar (typing "w" would edit the field).
+    // Focus is still in the selection's fields, so pick the tool on the tool bar (typing "w" would edit the field).
     const tools = page.getByRole("toolbar", { name: "Markup tools" });
     await tools.getByRole("button", { name: /^Wire bond/ }).click();
     const c = await fitScreen(page, [cx, cy]);
@@ -146,7 +146,7 @@ test.describe.serial("markup on the demo die", () => {
   test("a click on a pad selects the pad over its bond, a pad off the die is flagged, and a re-framing is confirmed and undone", async ({ page }) => {
     await openDie(page, "analyst");
     const shots = "test-results/markup-shots";
-    const inspector = page.getByRole("region", { name: "Inspector" });
+    const inspector = page.getByRole("region", { name: "Selected markup" });
     const vee2 = padByLabel(NV24R_LAYOUT, "VEE2");
     const [px, py] = vee2.centreUm;
     const known = new Set((await markup(page)).map((s) => s.id));
@@ -205,7 +205,7 @@ test.describe.serial("markup on the demo die", () => {
     await expect(page.getByTestId("pads-outside-die")).toContainText("Outside the die outline, not numbered");
     expect(await padCount()).toEqual(numbered);
     await page.screenshot({ path: `${shots}/3-outside-die.png` });
-    await page.getByRole("tab", { name: "Inspect" }).click();
+    await page.getByRole("tab", { name: "Selection" }).click();
     await page.keyboard.press("Delete");
     await expect.poll(async () => (await markup(page)).some((s) => s.id === stray.id)).toBe(false);
     await page.getByTestId("editor-notice").getByRole("button", { name: "Dismiss message" }).click();
@@ -291,7 +291,7 @@ test.describe.serial("markup on the demo die", () => {
     await expect(tools.getByRole("button", { name: /^Select/ })).toBeVisible();
     await expect(tools.getByRole("button", { name: /^Pad/ })).toHaveCount(0);
     await expect(tools.getByRole("button", { name: /^Undo/ })).toHaveCount(0);
-    const legend = page.getByRole("region", { name: "Layers and legend" });
+    const legend = page.getByRole("region", { name: "Shown on the die" });
     for (const kind of ["Pad", "Wire bond", "Block", "Ruler"])
       await expect(legend.getByRole("listitem").filter({ hasText: kind }).first()).toContainText(/[1-9]/);
     await page.getByRole("tab", { name: "Markup" }).click();

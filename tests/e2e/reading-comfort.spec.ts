@@ -90,9 +90,9 @@ const wouldAsk = (page: Page) =>
     return e.defaultPrevented;
   });
 
-test("a link to a thread opens it without a hydration error", async ({ page }) => {
+test("a link to a remark opens it without a hydration error", async ({ page }) => {
   await signInAs(page, "analyst");
-  // A die of its own, so the shared demo die keeps its threads as seeded.
+  // A die of its own, so the shared demo die keeps its remarks as seeded.
   const { dieId, threadId } = await page.evaluate(async () => {
     const post = async (path: string, body: unknown) =>
       (await (await fetch(path, { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify(body) })).json()) as { id: string };
@@ -199,7 +199,7 @@ test("the keyboard help sheet is wide enough to read", async ({ page }) => {
   await shot(page, "help-sheet");
 });
 
-test("a half-drawn block and an uncommitted inspector edit make a reload ask first", async ({ page }) => {
+test("a half-drawn block and an uncommitted edit of a selected shape make a reload ask first", async ({ page }) => {
   await openDemoDie(page);
   const ids = await addShapes(page, dieIdOf(page), demoShapes().slice(0, 3));
   await page.reload();
@@ -222,8 +222,8 @@ test("a half-drawn block and an uncommitted inspector edit make a reload ask fir
   await page.getByRole("tab", { name: "Markup" }).click();
   await page.getByLabel("Filter markup").fill("G1");
   await page.getByRole("region", { name: "Markup table" }).getByRole("button", { name: "Pad" }).first().click();
-  await page.getByRole("tab", { name: "Inspect" }).click();
-  const label = page.getByRole("region", { name: "Inspector" }).getByLabel("Label");
+  await page.getByRole("tab", { name: "Selection" }).click();
+  const label = page.getByRole("region", { name: "Selected markup" }).getByLabel("Label");
   await label.fill("G1 typed but not committed");
   expect(await wouldAsk(page)).toBe(true);
   await label.fill("G1");

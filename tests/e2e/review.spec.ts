@@ -5,8 +5,8 @@ import { demoMicrographOptions } from "../../server/images/demo-die";
 import { placeDie, pxPerUmForWidth } from "../../lib/demo-die/placement";
 import { applyAffine } from "../../lib/geometry/affine";
 
-// The review flow in a real browser: a thread on a pad with a mention, the mention's mail in
-// the local mailbox over real SMTP, its deep link, reply, resolve, submit and approve, and an
+// The check flow in a real browser: a remark on a pad naming the analyst, the mail in the local
+// mailbox over real SMTP, its deep link, reply, close, send to the checker and sign off, and an
 // invitation accepted through the mailed link.
 const opts = demoMicrographOptions("bright_field");
 const placement = placeDie(NV24R_LAYOUT, { pxPerUm: pxPerUmForWidth(NV24R_LAYOUT, opts.widthPx!, 300), marginUm: 300 });
@@ -49,10 +49,10 @@ async function readMail(owner: Page, subject: RegExp, to: string): Promise<strin
   return message.innerText();
 }
 
-test.describe.serial("review of the demo die", () => {
+test.describe.serial("check of the demo die", () => {
   test.afterEach(closeExtraContexts);
 
-  test("thread with a mention, mail, deep link, reply, resolve, submit and approve", async ({ browser }) => {
+  test("remark naming the analyst, mail, deep link, reply, close, send to the checker and sign off", async ({ browser }) => {
     // Four signed-in people and the first tiling of the demo micrographs share two cores.
     test.setTimeout(180_000);
     const analyst = await as(browser, "analyst");
@@ -82,31 +82,32 @@ test.describe.serial("review of the demo die", () => {
     );
     expect(made).toBe(201);
 
-    // The reviewer selects the pad on the canvas and starts a thread mentioning the analyst.
+    // The reviewer selects the pad on the canvas and raises a remark naming the analyst.
     const reviewer = await as(browser, "reviewer");
     await openDemoDie(reviewer);
     await reviewer.getByRole("button", { name: "Fit die" }).click();
     await waitForStillView(reviewer);
     const at = await fitScreen(reviewer, PAD.centreUm);
     await reviewer.mouse.click(at.x, at.y);
-    await reviewer.getByRole("tab", { name: "Review" }).click();
-    await reviewer.getByRole("button", { name: "Start thread on selection" }).click();
-    const box = reviewer.getByLabel("First comment on the selected shape");
+    await reviewer.getByRole("tab", { name: "Check & remarks" }).click();
+    await reviewer.getByRole("button", { name: "Raise remark on selection" }).click();
+    const box = reviewer.getByLabel("Remark on the selected shape");
     await box.pressSequentially("Is this pad probed? @Demo Ana");
     await reviewer.getByRole("option", { name: /Demo Analyst/ }).click();
     await box.pressSequentially("please check the `VB3` bond.");
-    await reviewer.getByRole("button", { name: "Start thread" }).click();
-    await expect(reviewer.getByRole("heading", { name: /Thread \d+ on a shape/ })).toBeVisible();
+    await reviewer.getByRole("button", { name: "Raise remark", exact: true }).click();
+    await expect(reviewer.getByRole("heading", { name: /Remark \d+ on a shape/ })).toBeVisible();
 
-    // The analyst's mail arrives in the local mailbox over SMTP, with a link to the thread.
+    // The analyst's mail arrives in the local mailbox over SMTP, with a link to the remark.
     const owner = await as(browser, "owner");
-    const text = await readMail(owner, /mentioned you/, "analyst@fjordlight.test");
+    const text = await readMail(owner, /named you in a remark/, "analyst@fjordlight.test");
+    expect(text).toContain("Open the remark");
     expect(text).toContain("please check the VB3 bond");
     const link = /(http:\/\/\S+\/dies\/[0-9a-f-]+\?thread=[0-9a-f-]+)/.exec(text)![1];
 
-    // The link opens the die on the Review tab, zoomed to the pad.
+    // The link opens the die on the Check & remarks tab, zoomed to the pad.
     await analyst.goto(new URL(link).pathname + new URL(link).search);
-    await expect(analyst.getByRole("heading", { name: /Thread \d+ on a shape/ })).toBeVisible();
+    await expect(analyst.getByRole("heading", { name: /Remark \d+ on a shape/ })).toBeVisible();
     await expect(async () => {
       const m = JSON.parse((await analyst.getByTestId("markup-overlay").getAttribute("data-die-to-screen"))!) as number[][];
       const view = (await analyst.getByRole("application", { name: "Micrograph viewer" }).boundingBox())!;
@@ -126,15 +127,16 @@ test.describe.serial("review of the demo die", () => {
 
     await reviewer.goto(link);
     await expect(reviewer.getByText(reply, { exact: true })).toBeVisible();
-    await reviewer.getByRole("button", { name: "Resolve thread" }).click();
-    await expect(reviewer.getByText(/Resolved by Demo Reviewer/)).toBeVisible();
+    await reviewer.getByRole("button", { name: "Close remark" }).click();
+    await expect(reviewer.getByText(/Closed by Demo Reviewer/)).toBeVisible();
 
-    // Back to the list: the review status is there again.
-    await analyst.getByRole("button", { name: "← All threads" }).click();
-    await expect(analyst.getByRole("region", { name: "Review status" }).getByLabel("Message")).toBeVisible();
+    // Back to the list: the check status is there again.
+    await analyst.getByRole("button", { name: "← All remarks" }).click();
+    await expect(analyst.getByRole("region", { name: "Check status" }).getByLabel("Message")).toBeVisible();
 
-    // Analyst submits, reviewer approves — on a die of this run's own, since an approved die
-    // stays approved and a repeated run (--repeat-each) on the same server must start afresh.
+    // Analyst sends to the checker, reviewer signs off — on a die of this run's own, since a
+    // signed-off die stays frozen and a repeated run (--repeat-each) on the same server must
+    // start afresh. It has no remarks, so signing off needs no override.
     const caseId = await analyst.evaluate(async (id) => ((await (await fetch(`/api/dies/${id}`)).json()) as { caseId: string }).caseId, dieId);
     const freshId = await analyst.evaluate(
       async ({ caseId, name }) => {
@@ -144,20 +146,20 @@ test.describe.serial("review of the demo die", () => {
       { caseId, name: `NV-24R die for review ${Date.now()}` },
     );
     await analyst.goto(`/dies/${freshId}`);
-    await analyst.getByRole("tab", { name: "Review" }).click();
-    await analyst.getByRole("region", { name: "Review status" }).getByLabel("Message").fill("Pad map complete.");
-    await analyst.getByRole("button", { name: "Submit for review" }).click();
-    await expect(analyst.getByRole("region", { name: "Review status" }).getByText("In review").first()).toBeVisible();
+    await analyst.getByRole("tab", { name: "Check & remarks" }).click();
+    await analyst.getByRole("region", { name: "Check status" }).getByLabel("Message").fill("Pad map complete.");
+    await analyst.getByRole("button", { name: "Send to checker" }).click();
+    await expect(analyst.getByRole("region", { name: "Check status" }).getByText("With checker").first()).toBeVisible();
     await reviewer.goto(`/dies/${freshId}`);
-    await reviewer.getByRole("tab", { name: "Review" }).click();
-    await reviewer.getByRole("region", { name: "Review status" }).getByLabel("Message").fill("Checked against the bond diagram.");
-    await reviewer.getByRole("button", { name: "Approve" }).click();
-    await expect(reviewer.getByRole("list", { name: "Review history" }).getByText("Approved")).toBeVisible();
+    await reviewer.getByRole("tab", { name: "Check & remarks" }).click();
+    await reviewer.getByRole("region", { name: "Check status" }).getByLabel("Message").fill("Checked against the bond diagram.");
+    await reviewer.getByRole("button", { name: "Sign off" }).click();
+    await expect(reviewer.getByRole("list", { name: "Check history" }).getByText("Signed off")).toBeVisible();
     // Leave the demo case as it was for the tests after this one.
     expect(await analyst.evaluate(async (id) => (await fetch(`/api/dies/${id}`, { method: "DELETE" })).status, freshId)).toBe(204);
   });
 
-  test("the owner invites a new reviewer, who joins through the mailed link and comments", async ({ browser }) => {
+  test("the owner invites a new reviewer, who joins through the mailed link and raises a remark", async ({ browser }) => {
     const owner = await as(browser, "owner");
     await owner.getByRole("link", { name: "Fjordlight Failure Lab" }).click();
     const email = `new.reviewer.${Date.now()}@fjordlight.test`;
@@ -176,12 +178,12 @@ test.describe.serial("review of the demo die", () => {
     await newcomer.getByRole("button", { name: "Join the team" }).click();
     await expect(newcomer.getByRole("heading", { name: "Cases" })).toBeVisible();
     await openDemoDie(newcomer);
-    await newcomer.getByRole("tab", { name: "Review" }).click();
-    await newcomer.getByRole("button", { name: "Start thread on a region" }).click();
+    await newcomer.getByRole("tab", { name: "Check & remarks" }).click();
+    await newcomer.getByRole("button", { name: "Raise remark on a region" }).click();
     const firstLook = `First look from the new reviewer (${run()}).`;
-    await newcomer.getByLabel("First comment on the area in view").fill(firstLook);
-    await newcomer.getByRole("button", { name: "Start thread" }).click();
-    await expect(newcomer.getByRole("heading", { name: /Thread \d+ on a region/ })).toBeVisible();
+    await newcomer.getByLabel("Remark on the area in view").fill(firstLook);
+    await newcomer.getByRole("button", { name: "Raise remark", exact: true }).click();
+    await expect(newcomer.getByRole("heading", { name: /Remark \d+ on a region/ })).toBeVisible();
     await expect(newcomer.getByText(firstLook, { exact: true })).toBeVisible();
 
     // The link works once.

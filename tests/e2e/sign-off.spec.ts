@@ -9,7 +9,7 @@ import { closeExtraContexts, signInAs } from "./helpers";
 // the analyst opens revision 2; the PDF (read back by pdftotext) and the PNG (its text chunk)
 // state the revision.
 const run = () => `run ${test.info().repeatEachIndex + 1}`;
-const REVIEW_TAB = "Review";
+const CHECK_TAB = "Check & remarks";
 
 async function as(browser: Browser, who: "analyst" | "reviewer") {
   const page = await (await browser.newContext({ viewport: { width: 1400, height: 900 } })).newPage();
@@ -29,7 +29,7 @@ async function api<T>(page: Page, method: string, path: string, body?: unknown):
 
 async function openCheck(page: Page, dieId: string) {
   await page.goto(`/dies/${dieId}`);
-  await page.getByRole("tab", { name: REVIEW_TAB }).click();
+  await page.getByRole("tab", { name: CHECK_TAB }).click();
   return page.getByRole("region", { name: "Check status" });
 }
 
@@ -102,11 +102,15 @@ test.describe.serial("sign-off that holds", () => {
     await expect(tools.getByRole("button", { name: /^Pad/ })).toBeDisabled();
     await expect(analyst.getByTestId("markup-lock")).toHaveText(/with the checker/);
 
-    // The reviewer raises a remark on the pad and returns the die.
+    // The reviewer raises a remark on the area in view and returns the die.
     const reviewer = await as(browser, "reviewer");
-    const remark = await api<{ id: string }>(reviewer, "POST", `/api/dies/${dieId}/threads`, { shapeId: pad.body.id, body: `Pad has no label (${run()}).` });
-    expect(remark.status).toBe(201);
     check = await openCheck(reviewer, dieId);
+    await reviewer.getByRole("button", { name: "Raise remark on a region" }).click();
+    const remarkText = `Pad has no label (${run()}).`;
+    await reviewer.getByLabel("Remark on the area in view").fill(remarkText);
+    await reviewer.getByRole("button", { name: "Raise remark", exact: true }).click();
+    await expect(reviewer.getByRole("heading", { name: /Remark \d+ on a region/ })).toBeVisible();
+    await reviewer.getByRole("button", { name: "← All remarks" }).click();
     await check.getByLabel("Message").fill("One remark on the pad labels.");
     await reviewer.getByRole("button", { name: "Return with remarks" }).click();
     await expect(check.getByText("Returned with remarks").first()).toBeVisible();
@@ -122,8 +126,11 @@ test.describe.serial("sign-off that holds", () => {
     await expect(check.getByText("With checker").first()).toBeVisible();
 
     // The reviewer closes the remark and signs off.
-    expect((await api(reviewer, "POST", `/api/threads/${remark.body.id}/resolve`)).status).toBe(200);
     check = await openCheck(reviewer, dieId);
+    await reviewer.getByText(remarkText).first().click();
+    await reviewer.getByRole("button", { name: "Close remark" }).click();
+    await expect(reviewer.getByText(/Closed by Demo Reviewer/)).toBeVisible();
+    await reviewer.getByRole("button", { name: "← All remarks" }).click();
     await check.getByLabel("Message").fill("Checked against the bond diagram.");
     await reviewer.getByRole("button", { name: "Sign off" }).click();
     await expect(check.getByText("Signed off").first()).toBeVisible();

@@ -16,7 +16,7 @@ const inboxOf = async (who: "owner" | "analyst" | "reviewer" | "viewer" | "outsi
 // Before the inbox, only owners could read mail in the local mailbox: an analyst never saw the
 // mention mailed to them.
 describe("GET /api/me/inbox", () => {
-  it("lists a mention for the mentioned user alone, linking to the exact thread, and the mail still goes out", async () => {
+  it("lists a mention for the mentioned user alone, linking to the exact remark, and the mail still goes out", async () => {
     const { dieId } = await freshCase(world.clients.owner, world.teamId);
     const t = await world.clients.reviewer.request<{ id: string }>("POST", `/api/dies/${dieId}/threads`, {
       region: square(50, 50),
@@ -28,13 +28,13 @@ describe("GET /api/me/inbox", () => {
     const [item] = items;
     expect(Object.keys(item).sort()).toEqual(["createdAt", "dieId", "id", "kind", "readAt", "text", "threadId"]);
     expect(item).toMatchObject({ kind: "mention", dieId, threadId: t.body.id, readAt: null });
-    expect(item.text).toContain("mentioned you");
+    expect(item.text).toContain("named you in a remark");
     expect(item.text).toContain("is this the bond pad for VDD?");
     expect(Number.isNaN(Date.parse(item.createdAt))).toBe(false);
     for (const other of ["owner", "viewer", "outsider", "reviewer"] as const) {
       expect((await inboxOf(other)).some((i) => i.threadId === t.body.id && i.kind === "mention")).toBe(false);
     }
-    const mail = await waitForMail(world.clients.owner, DEMO_EMAILS.analyst, (m) => m.subject.includes("mentioned you"), `?thread=${t.body.id}`);
+    const mail = await waitForMail(world.clients.owner, DEMO_EMAILS.analyst, (m) => m.subject.includes("named you in a remark"), `?thread=${t.body.id}`);
     expect(mail.text).toContain(`/dies/${dieId}?thread=${t.body.id}`);
   });
 

@@ -42,7 +42,7 @@ describe("links do not follow forged Host or X-Forwarded-Host headers", () => {
       { ...FORGED, host: "attacker.test" },
     );
     expect(t.status).toBe(201);
-    const mail = await waitForMail(world.clients.owner, DEMO_EMAILS.analyst, (m) => m.subject.includes("mentioned you"), `?thread=${t.body.id}`);
+    const mail = await waitForMail(world.clients.owner, DEMO_EMAILS.analyst, (m) => m.subject.includes("named you in a remark"), `?thread=${t.body.id}`);
     expect(mail.text).toContain(`${base()}/dies/${dieId}?thread=${t.body.id}`);
     expect(mail.text).not.toContain("attacker.test");
   });

@@ -43,7 +43,7 @@ describe("writes from another origin answer 403 and change nothing", () => {
     expect(incoming().length).toBe(before);
   });
 
-  it("refuses a body-less POST (resolve a thread) from a sibling origin and from Sec-Fetch-Site: same-site", async () => {
+  it("refuses a body-less POST (close a remark) from a sibling origin and from Sec-Fetch-Site: same-site", async () => {
     const { dieId } = await freshCase(world.clients.owner, world.teamId);
     const t = await openThread(dieId);
     const refused: Record<string, string>[] = [

@@ -57,7 +57,7 @@ export function createEditorCore(options: EditorOptions) {
     if (off.length === 0) return;
     const first = off[0];
     const what = off.length === 1 ? `${KIND_STYLE[first.kind].label} ${shapeLabel(first)}`.trim() : `${off.length} shapes`;
-    const pads = off.some((s) => s.kind === "pad") ? " Pads off the die are left out of the pad numbering unless you include them in the inspector." : "";
+    const pads = off.some((s) => s.kind === "pad") ? " Pads off the die are left out of the pad numbering unless you include them in the Selection tab." : "";
     notify(`${what} ${off.length === 1 ? "lies" : "lie"} outside the die outline.${pads}`);
   };
 

@@ -60,6 +60,7 @@ export const SHORTCUTS: readonly { readonly keys: readonly string[]; readonly de
   { keys: ["Shift+click"], description: "Add to or remove from the selection" },
   { keys: ["Enter"], description: "Finish the block, trace or ruler being drawn" },
   { keys: ["Escape"], description: "Cancel the drawing or drag in progress; otherwise clear the selection" },
+  { keys: ["F"], description: "Blink: in the overlay comparison, show the top micrograph alone, then the one below, in turn" },
   { keys: ["?"], description: "Show or hide this list" },
 ];
 

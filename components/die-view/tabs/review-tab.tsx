@@ -3,7 +3,7 @@
 import { ReviewPanel } from "@/components/review/review-panel";
 import { useDieWorkspace } from "../die-workspace-context";
 
-/** The die's threads, review status and activity. */
+/** The die's remarks, check status and activity. */
 export function ReviewTab() {
   const { die, userId, review, state, api, shownTransform } = useDieWorkspace();
   return <ReviewPanel die={die} userId={userId} review={review} state={state} api={api} transform={shownTransform} />;

@@ -75,7 +75,7 @@ describe("shapes drawn outside the die", () => {
     t.editor.setTool("pad");
     t.click(-200, 800);
     expect(t.state().notice).toBe(
-      "Pad P1 lies outside the die outline. Pads off the die are left out of the pad numbering unless you include them in the inspector.",
+      "Pad P1 lies outside the die outline. Pads off the die are left out of the pad numbering unless you include them in the Selection tab.",
     );
     t.editor.dismissNotice();
     t.editor.setTool("pad");

@@ -4,8 +4,8 @@ import { Inspector } from "@/components/annotate/inspector";
 import { Legend } from "@/components/annotate/legend";
 import { useDieWorkspace } from "../die-workspace-context";
 
-/** The selected shapes' fields, the legend with its visibility switches, and the labels switch. */
-export function InspectTab() {
+/** The Selection tab: the selected shapes' fields, what is shown (kinds and review states, with counts), and the labels switch. */
+export function SelectionTab() {
   const { editor, state, selected, markupEditable, dieSize, umPerPx, markup } = useDieWorkspace();
   return (
     <div className="flex flex-col gap-5">

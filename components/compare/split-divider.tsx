@@ -3,10 +3,10 @@
 import type { KeyboardEvent, PointerEvent, RefObject } from "react";
 
 /**
- * The draggable line of the swipe mode, as a slider for keyboards and screen readers too
+ * The draggable line of the split mode, as a slider for keyboards and screen readers too
  * (arrow keys move it 2 %). `value` is the fraction of the width (or height) left of (above) it.
  */
-export function SwipeDivider({
+export function SplitDivider({
   host,
   value,
   vertical,
@@ -35,12 +35,12 @@ export function SwipeDivider({
     <div
       role="slider"
       tabIndex={0}
-      aria-label="Swipe divider"
+      aria-label="Split divider"
       aria-orientation={vertical ? "horizontal" : "vertical"}
       aria-valuemin={0}
       aria-valuemax={100}
       aria-valuenow={Math.round(value * 100)}
-      data-testid="swipe-divider"
+      data-testid="split-divider"
       onKeyDown={onKey}
       onPointerDown={(e) => {
         e.currentTarget.setPointerCapture(e.pointerId);

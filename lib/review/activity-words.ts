@@ -44,6 +44,8 @@ export const ACTIVITY_VERBS: Readonly<Record<string, string>> = {
   "invitation.declined": "declined the invitation",
   "member.role_changed": "changed the role of a member",
   "member.removed": "removed a member from the team",
+  "sample.updated": "changed the sample record",
+  "custody.appended": "added a custody entry",
 };
 
 /** What the server looked up beside the audit row: the micrograph it names, the remark's number. */

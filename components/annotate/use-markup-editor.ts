@@ -8,9 +8,10 @@ import { apiFetch } from "@/lib/client/api";
 import { createEditor } from "./editor/editor";
 import type { Editor, EditorState } from "./editor/types";
 import { frameUndoFor, type FrameUndo } from "./frame-undo";
-import { persistEntry } from "./persist-changes";
+import { saveEntry } from "./persist-changes";
+import { createSaveQueue, type SaveState } from "./save-queue";
 
-export type SaveState = { status: "idle" | "saving" | "saved" | "failed"; message?: string };
+export type { SaveState };
 
 type DieSize = { readonly widthUm: number | null; readonly heightUm: number | null };
 
@@ -29,7 +30,8 @@ export function useMarkupEditor(dieId: string, canEdit: boolean, userId: string 
   const [save, setSave] = useState<SaveState>({ status: "idle" });
   const [loadError, setLoadError] = useState<string | null>(null);
   const [generation, setGeneration] = useState(0);
-  const queue = useRef<Promise<void>>(Promise.resolve());
+  // One queue for the page's life, across reloads, so saves never overtake one another.
+  const [queue] = useState(() => createSaveQueue(setSave));
   const dieRef = useRef(die);
   const frameUndo = useRef<FrameUndo | null>(null);
   useEffect(() => {
@@ -48,15 +50,15 @@ export function useMarkupEditor(dieId: string, canEdit: boolean, userId: string 
       setGeneration((g) => g + 1);
     };
     const restoreFrame = (undo: FrameUndo) => {
-      setSave({ status: "saving" });
-      queue.current = queue.current.then(async () => {
+      void queue.add(async (): Promise<SaveState> => {
         try {
           await apiFetch(`/api/dies/${dieId}/frame/restore`, { method: "POST", body: undo });
-          setSave({ status: "saved" });
+          return { status: "saved" };
         } catch (e) {
-          setSave({ status: "failed", message: `${(e as Error).message} The markup was reloaded from the server.` });
+          return { status: "failed", message: `${(e as Error).message} The markup was reloaded from the server.` };
+        } finally {
+          await reloadFrame();
         }
-        await reloadFrame();
       });
     };
     apiFetch<AnyShape[]>(`/api/dies/${dieId}/markup`)
@@ -75,23 +77,21 @@ export function useMarkupEditor(dieId: string, canEdit: boolean, userId: string 
           undoBeyondHistory: undo ? () => restoreFrame(undo) : undefined,
         });
         unsubscribe = ed.onCommit((entry) => {
-          setSave({ status: "saving" });
           const reframe = frameUndoFor(entry, dieRef.current);
-          queue.current = queue.current.then(async () => {
+          void queue.add(async (): Promise<SaveState> => {
             try {
-              const { saved } = await persistEntry(dieId, entry, versions);
-              for (const s of saved) ed.applyServerShape(s);
-              setSave({ status: "saved" });
-              void qc.invalidateQueries({ queryKey: queryKeys.pads(dieId) });
-              // A die outline re-frames the die on the server (origin, size): reload what moved.
-              if (reframe) {
-                frameUndo.current = reframe;
-                await reloadFrame();
-              }
+              await saveEntry(ed, dieId, entry, versions);
             } catch (e) {
-              setSave({ status: "failed", message: `${(e as Error).message} The markup was reloaded from the server.` });
               setGeneration((g) => g + 1);
+              return { status: "failed", message: `${(e as Error).message} The markup was reloaded from the server.` };
             }
+            void qc.invalidateQueries({ queryKey: queryKeys.pads(dieId) });
+            // A die outline re-frames the die on the server (origin, size): reload what moved.
+            if (reframe) {
+              frameUndo.current = reframe;
+              await reloadFrame();
+            }
+            return { status: "saved" };
           });
         });
         setEditor(ed);
@@ -101,7 +101,7 @@ export function useMarkupEditor(dieId: string, canEdit: boolean, userId: string 
       cancelled = true;
       unsubscribe();
     };
-  }, [dieId, canEdit, userId, generation, qc]);
+  }, [dieId, canEdit, userId, generation, qc, queue]);
 
   return { editor, save, loadError };
 }

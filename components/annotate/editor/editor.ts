@@ -1,6 +1,7 @@
 import { deletionChanges, duplicateChanges, moveChanges, propertyChanges } from "./commands";
 import { createEditorCore, type EditorCore } from "./editor-core";
 import { runKeyAction } from "./key-actions";
+import { mergeEcho } from "./model";
 import { handleKey } from "./shortcuts";
 import type { Editor, EditorOptions } from "./types";
 
@@ -104,13 +105,15 @@ function viewPart(core: EditorCore): Part<"setTool" | "select" | "cancel" | "set
 function serverPart(core: EditorCore): Part<"applyServerShape" | "removeServerShape"> {
   const { store, shapes, write } = core;
   return {
-    applyServerShape: (shape) =>
+    applyServerShape: (shape, sent) =>
       store.batch(() => {
         const known = shapes().get(shape.id);
         // An echo older than what we hold (responses crossing) must not roll the shape back.
         if (known && known.version > shape.version) return;
-        if (core.live()?.adopt(shape)) return;
-        write(new Map(shapes()).set(shape.id, shape));
+        // Removed here after the request was sent: the removal is queued behind it, so do not bring it back.
+        if (!known && sent) return;
+        if (core.live()?.adopt(shape, sent)) return;
+        write(new Map(shapes()).set(shape.id, mergeEcho(known, shape, sent)));
       }),
     removeServerShape: (id) =>
       store.batch(() => {

@@ -1,7 +1,7 @@
 import type { History } from "@/lib/markup/history";
 import type { AnyShape } from "@/lib/markup/types";
 import { followingBonds } from "./attachments";
-import { applyChanges, changesSince, type Change, type ShapeMap } from "./model";
+import { applyChanges, changesSince, mergeEcho, type Change, type ShapeMap } from "./model";
 import type { LiveEdit } from "./tool-state";
 
 /** What a live edit needs from the editor. */
@@ -19,7 +19,7 @@ export type LiveEditHost = {
 /** A live edit the editor can also tell about server echoes. */
 export type EditorLiveEdit = LiveEdit & {
   /** Takes a server echo of a touched shape as its new starting point (its version); false when untouched. */
-  adopt(shape: AnyShape): boolean;
+  adopt(shape: AnyShape, sent?: AnyShape | null): boolean;
 };
 
 /**
@@ -92,9 +92,10 @@ export function startLiveEdit(host: LiveEditHost): EditorLiveEdit {
       host.history.bail();
       finish();
     },
-    adopt(shape) {
+    adopt(shape, sent) {
       if (!open || !originals.has(shape.id)) return false;
-      originals.set(shape.id, shape);
+      // A starting point edited again after `sent` keeps that edit (a cancel must not drop it).
+      originals.set(shape.id, mergeEcho(originals.get(shape.id), shape, sent));
       const live = host.shapes().get(shape.id);
       if (live) host.write(new Map(host.shapes()).set(shape.id, { ...live, version: shape.version } as AnyShape));
       return true;

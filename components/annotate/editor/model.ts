@@ -69,3 +69,16 @@ export function withProperties(shape: AnyShape, patch: Readonly<Record<string, u
   if (deepEqual(properties, shape.properties)) return shape;
   return { ...shape, properties, updatedAt: now } as AnyShape;
 }
+
+/**
+ * What to keep of a server answer to a request that sent `sent`. When the local shape still
+ * holds what was sent, the answer is taken whole. When it does not, the user edited the shape
+ * again while the request was in flight and that newer edit is already queued behind it: only
+ * what the server owns (version, author) is taken, or the answer would roll the edit back on
+ * screen and the next edit would be built on the rolled-back properties (a PATCH replaces them
+ * whole). Without `sent` (an answer not to our own request) the answer is taken whole.
+ */
+export function mergeEcho(local: AnyShape | null | undefined, answer: AnyShape, sent?: AnyShape | null): AnyShape {
+  if (!local || !sent || (deepEqual(local.geometry, sent.geometry) && deepEqual(local.properties, sent.properties))) return answer;
+  return { ...local, version: answer.version, createdBy: answer.createdBy } as AnyShape;
+}

@@ -116,7 +116,11 @@ export interface Editor {
   /** Goes ahead with what `confirmation` asks. */
   confirm(): void;
   dismissNotice(): void;
-  applyServerShape(shape: AnyShape): void;
+  /**
+   * Writes a server answer in without history. `sent` is what our request sent: when the shape
+   * has been edited again since, only the answer's version (and author) is taken.
+   */
+  applyServerShape(shape: AnyShape, sent?: AnyShape | null): void;
   removeServerShape(id: string): void;
 }
 

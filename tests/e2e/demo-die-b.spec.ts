@@ -29,6 +29,9 @@ test("a newcomer finds die B of the demo case read completely: pads, symmetry, s
   await page.getByRole("tab", { name: "Summary" }).click();
   await expect(page.getByTestId("summary-states")).toContainText("18 / 3 / 1");
 
-  await page.getByRole("tab", { name: "Review" }).click();
-  await expect(page.getByText("#1 · resolved · 2 comments")).toBeVisible();
+  await page.getByRole("tab", { name: "Check & remarks" }).click();
+  await expect(page.getByText("#1 · closed · 1 reply")).toBeVisible();
+  // Checked and signed off as revision 1, its hash listed.
+  await expect(page.getByRole("region", { name: "Check status" }).getByText("Signed off").first()).toBeVisible();
+  await expect(page.getByRole("region", { name: "Revisions" }).getByText(/Revision 1 · Signed off by Demo Reviewer/)).toBeVisible();
 });

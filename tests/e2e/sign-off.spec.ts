@@ -27,8 +27,8 @@ async function api<T>(page: Page, method: string, path: string, body?: unknown):
   ) as Promise<{ status: number; body: T }>;
 }
 
-async function openCheck(page: Page, dieId: string) {
-  await page.goto(`/dies/${dieId}`);
+async function openCheck(page: Page, dieId: string, load = true) {
+  if (load) await page.goto(`/dies/${dieId}`);
   await page.getByRole("tab", { name: CHECK_TAB }).click();
   return page.getByRole("region", { name: "Check status" });
 }
@@ -102,14 +102,18 @@ test.describe.serial("sign-off that holds", () => {
     await expect(tools.getByRole("button", { name: /^Pad/ })).toBeDisabled();
     await expect(analyst.getByTestId("markup-lock")).toHaveText(/with the checker/);
 
-    // The reviewer raises a remark on the area in view and returns the die.
+    // The reviewer picks the pad in the markup table (the die has no photo yet), raises a
+    // remark on it and returns the die.
     const reviewer = await as(browser, "reviewer");
-    check = await openCheck(reviewer, dieId);
-    await reviewer.getByRole("button", { name: "Raise remark on a region" }).click();
+    await reviewer.goto(`/dies/${dieId}`);
+    await reviewer.getByRole("tab", { name: "Markup" }).click();
+    await reviewer.getByRole("region", { name: "Markup table" }).getByRole("button", { name: "Pad", exact: true }).click();
+    check = await openCheck(reviewer, dieId, false);
+    await reviewer.getByRole("button", { name: "Raise remark on selection" }).click();
     const remarkText = `Pad has no label (${run()}).`;
-    await reviewer.getByLabel("Remark on the area in view").fill(remarkText);
+    await reviewer.getByLabel("Remark on the selected shape").fill(remarkText);
     await reviewer.getByRole("button", { name: "Raise remark", exact: true }).click();
-    await expect(reviewer.getByRole("heading", { name: /Remark \d+ on a region/ })).toBeVisible();
+    await expect(reviewer.getByRole("heading", { name: /Remark \d+ on a shape/ })).toBeVisible();
     await reviewer.getByRole("button", { name: "← All remarks" }).click();
     await check.getByLabel("Message").fill("One remark on the pad labels.");
     await reviewer.getByRole("button", { name: "Return with remarks" }).click();

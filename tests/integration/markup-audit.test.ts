@@ -1,8 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import path from "node:path";
-import { PGlite } from "@electric-sql/pglite";
-import { drizzle } from "drizzle-orm/pglite";
-import { migrate } from "drizzle-orm/pglite/migrator";
+import type { PGlite } from "@electric-sql/pglite";
+import { memoryTeam } from "../support/memory-team";
 import { eq } from "drizzle-orm";
 import * as schema from "@/db/schema";
 import type { Database } from "@/db/client";
@@ -17,20 +15,10 @@ let db: Database;
 const ids = { team: "", analyst: "", viewer: "", die: "" };
 
 beforeAll(async () => {
-  client = await PGlite.create("memory://");
-  const d = drizzle(client, { schema });
-  await migrate(d, { migrationsFolder: path.resolve(import.meta.dirname, "../../db/migrations") });
-  db = d as unknown as Database;
-  const [team] = await db.insert(schema.teams).values({ name: "Fjordlight Failure Lab" }).returning();
-  const [analyst] = await db.insert(schema.users).values({ email: "analyst@fjordlight.test", name: "Demo Analyst" }).returning();
-  const [viewer] = await db.insert(schema.users).values({ email: "viewer@fjordlight.test", name: "Demo Viewer" }).returning();
-  await db.insert(schema.memberships).values([
-    { teamId: team.id, userId: analyst.id, role: "analyst" },
-    { teamId: team.id, userId: viewer.id, role: "viewer" },
-  ]);
-  const [c] = await db.insert(schema.cases).values({ teamId: team.id, title: "NV-24R receiver teardown" }).returning();
-  const [die] = await db.insert(schema.dies).values({ caseId: c.id, name: "NV-24R die A", widthUm: 2400, heightUm: 1600 }).returning();
-  Object.assign(ids, { team: team.id, analyst: analyst.id, viewer: viewer.id, die: die.id });
+  const team = await memoryTeam();
+  ({ client, db } = team);
+  const [die] = await db.insert(schema.dies).values({ caseId: team.ids.case, name: "NV-24R die A", widthUm: 2400, heightUm: 1600 }).returning();
+  Object.assign(ids, { team: team.ids.team, analyst: team.ids.analyst, viewer: team.ids.viewer, die: die.id });
 });
 
 afterAll(async () => {

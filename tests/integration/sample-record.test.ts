@@ -3,9 +3,8 @@ import path from "node:path";
 import { execFileSync } from "node:child_process";
 import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
-import { PGlite } from "@electric-sql/pglite";
-import { drizzle } from "drizzle-orm/pglite";
-import { migrate } from "drizzle-orm/pglite/migrator";
+import type { PGlite } from "@electric-sql/pglite";
+import { memoryTeam } from "../support/memory-team";
 import { eq } from "drizzle-orm";
 import * as schema from "@/db/schema";
 import type { Database } from "@/db/client";
@@ -195,19 +194,9 @@ describe("audit of sample and custody writes", () => {
   let db: Database;
   const ids = { team: "", analyst: "", viewer: "", case: "" };
   beforeAll(async () => {
-    client = await PGlite.create("memory://");
-    const d = drizzle(client, { schema });
-    await migrate(d, { migrationsFolder: path.resolve(import.meta.dirname, "../../db/migrations") });
-    db = d as unknown as Database;
-    const [team] = await db.insert(schema.teams).values({ name: "Fjordlight Failure Lab" }).returning();
-    const [analyst] = await db.insert(schema.users).values({ email: "analyst@fjordlight.test", name: "Demo Analyst" }).returning();
-    const [viewer] = await db.insert(schema.users).values({ email: "viewer@fjordlight.test", name: "Demo Viewer" }).returning();
-    await db.insert(schema.memberships).values([
-      { teamId: team.id, userId: analyst.id, role: "analyst" },
-      { teamId: team.id, userId: viewer.id, role: "viewer" },
-    ]);
-    const [c] = await db.insert(schema.cases).values({ teamId: team.id, title: "NV-24R receiver teardown" }).returning();
-    Object.assign(ids, { team: team.id, analyst: analyst.id, viewer: viewer.id, case: c.id });
+    const team = await memoryTeam();
+    ({ client, db } = team);
+    Object.assign(ids, team.ids);
   });
   afterAll(async () => {
     await client?.close();

@@ -5,7 +5,7 @@ import type { Editor } from "./editor/types";
 export type Change = { readonly before: AnyShape | null; readonly after: AnyShape | null };
 
 /** A server answer with the shape our request sent for it. */
-export type Echo = { readonly shape: AnyShape; readonly sent: AnyShape | null };
+type Echo = { readonly shape: AnyShape; readonly sent: AnyShape | null };
 
 /**
  * Sends one committed editor entry to the API, shape by shape, in order: a new shape is a POST
@@ -13,7 +13,7 @@ export type Echo = { readonly shape: AnyShape; readonly sent: AnyShape | null };
  * with the version the server last gave us, a removed one a DELETE. Returns the server's
  * shapes with what was sent for each (to echo into the editor) and the ids it removed.
  */
-export async function persistEntry(dieId: string, entry: readonly Change[], versions: Map<string, number>): Promise<{ saved: Echo[]; removed: string[] }> {
+async function persistEntry(dieId: string, entry: readonly Change[], versions: Map<string, number>): Promise<{ saved: Echo[]; removed: string[] }> {
   const saved: Echo[] = [];
   const removed: string[] = [];
   const creates = entry.filter((c) => !c.before && c.after).map((c) => c.after!);

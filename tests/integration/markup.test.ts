@@ -207,7 +207,7 @@ describe("pad table", () => {
 
     const csv = await fetchText(world.clients.viewer, `/api/dies/${dieId}/pads.csv`);
     expect(csv.type).toBe("text/csv; charset=utf-8");
-    expect(csv.disposition).toMatch(/^attachment; filename="NV-24R-die-A-pad-table\.csv"/);
+    expect(csv.disposition).toMatch(/^attachment; filename="NV-24R-die-A-rev-1-draft-pad-table\.csv"/);
     // csv-parse, an independent RFC 4180 parser, strict about CRLF record ends.
     const records = parse(csv.text, { columns: true, record_delimiter: "\r\n" }) as Record<string, string>[];
     expect(records).toHaveLength(json.body.rows.length);
@@ -287,7 +287,7 @@ describe("markup CSV", () => {
     const rows = markupTableRows(shapes, Object.fromEntries(members.map((m) => [m.userId, m.name])));
     const csv = await fetchText(world.clients.reviewer, `/api/dies/${dieId}/markup.csv`);
     expect(csv.type).toBe("text/csv; charset=utf-8");
-    expect(csv.disposition).toMatch(/^attachment; filename="die-1-markup\.csv"/);
+    expect(csv.disposition).toMatch(/^attachment; filename="die-1-rev-1-draft-markup\.csv"/);
     const records = parse(csv.text, { columns: true, record_delimiter: "\r\n" }) as Record<string, string>[];
     expect(Object.keys(records[0])).toEqual(MARKUP_TABLE_HEADERS);
     expect(records).toHaveLength(rows.length);

@@ -222,7 +222,7 @@ describe("mail notifications", () => {
   it("mails the mentioned member with a deep link to the thread, and owners see the outbox", async () => {
     const { dieId } = await freshCase(world.clients.owner, world.teamId);
     const t = await newThread(dieId, `please check, @Demo Analyst <b>now</b>`);
-    const mail = await waitForMail(world.clients.owner, DEMO_EMAILS.analyst, (m) => m.subject.includes("mentioned you"), `?thread=${t.id}`);
+    const mail = await waitForMail(world.clients.owner, DEMO_EMAILS.analyst, (m) => m.subject.includes("named you in a remark"), `?thread=${t.id}`);
     expect(mail.text).toContain(`/dies/${dieId}?thread=${t.id}`);
     // The tag arrives as visible text (HTML Standard §13.1.2: "<" escaped, ">" may stay).
     expect(mail.html).toContain("&lt;b>now&lt;/b>");

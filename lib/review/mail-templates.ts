@@ -1,5 +1,5 @@
 import { commentHtml, escapeHtml } from "./format";
-import { actionPhrase, type ReviewAction } from "./review-status";
+import { REVIEW_ACTION_DONE, actionPhrase, type ReviewAction } from "./review-status";
 
 /** One message as the outbox stores it. */
 export type MailContent = { readonly subject: string; readonly text: string; readonly html: string };
@@ -56,7 +56,7 @@ export function commentMail(p: { kind: "comment" | "mention"; author: string; di
 
 /** A die sent to the checker, withdrawn, signed off or returned, with the message and a link to the die. */
 export function reviewMail(p: { action: ReviewAction; actor: string; dieName: string; message: string; link: string }): MailContent {
-  const what = { send: "sent to the checker", withdraw: "withdrawn from the checker", sign_off: "signed off", return: "returned with remarks" }[p.action];
+  const what = REVIEW_ACTION_DONE[p.action];
   const heading = `${p.actor} ${actionPhrase(p.action, p.dieName)}`;
   const message = p.message.trim() ? `\n\n${quote(p.message)}` : "";
   return {

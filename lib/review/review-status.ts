@@ -53,10 +53,17 @@ export function actionPhrase(action: ReviewAction, dieName: string): string {
   }[action];
 }
 
+/** What happened to the die by each action, as a past participle ("signed off"): history, mail subjects, refusals. */
+export const REVIEW_ACTION_DONE: Record<ReviewAction, string> = {
+  send: "sent to the checker",
+  withdraw: "withdrawn from the checker",
+  sign_off: "signed off",
+  return: "returned with remarks",
+};
+
 /** A sentence saying why an action is refused in a status, for the 409 answer. */
 export function transitionRefusal(from: ReviewStatus, action: ReviewAction): string {
-  const verb = { send: "sent to the checker", withdraw: "withdrawn", sign_off: "signed off", return: "returned with remarks" }[action];
-  return `A die that is ${REVIEW_STATUS_LABELS[from].toLowerCase()} cannot be ${verb}.`;
+  return `A die that is ${REVIEW_STATUS_LABELS[from].toLowerCase()} cannot be ${REVIEW_ACTION_DONE[action]}.`;
 }
 
 /** Why the markup tools are off, for the 423 answer and the disabled tools. */

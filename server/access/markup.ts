@@ -18,7 +18,8 @@ import type { TeamAction } from "@/lib/auth/permissions";
 /** Rows per INSERT: well below PostgreSQL's 65,535 bind parameters at 8 columns a row. */
 const INSERT_CHUNK = 500;
 
-function toShape(row: MarkupRow): AnyShape {
+/** A stored markup row as the API answers it. */
+export function toShape(row: MarkupRow): AnyShape {
   return {
     id: row.id,
     kind: row.kind,

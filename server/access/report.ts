@@ -15,16 +15,8 @@ import { savedEstimatesOf, summariseSavedEstimate } from "@/lib/layout-reading/s
 import type { AnyShape } from "@/lib/markup/types";
 import { reportSampleOf } from "@/lib/export/report-sample";
 import { sampleOfDie } from "./sample";
-import { REVIEW_STATUS_LABELS, type ReviewAction } from "@/lib/review/review-status";
+import { REVIEW_ACTION_DONE, REVIEW_STATUS_LABELS } from "@/lib/review/review-status";
 import { revisionStatement } from "@/lib/review/revision-text";
-
-/** The history line's verb for each check move. */
-const CHECK_MOVES: Record<ReviewAction, string> = {
-  send: "sent to the checker",
-  withdraw: "withdrawn",
-  sign_off: "signed off",
-  return: "returned with remarks",
-};
 
 const day = (d: Date) => d.toISOString().slice(0, 16).replace("T", " ");
 
@@ -68,7 +60,7 @@ async function reviewParts(db: Db, dieId: string, shapes: readonly AnyShape[]): 
     reviewHistory: events.map((e) => ({
       at: day(e.at),
       who: who(e.actorId),
-      action: `${CHECK_MOVES[e.action]}${e.overrideOpenRemarks ? " over open remarks" : ""}, revision ${e.revision}`,
+      action: `${REVIEW_ACTION_DONE[e.action]}${e.overrideOpenRemarks ? " over open remarks" : ""}, revision ${e.revision}`,
       from: REVIEW_STATUS_LABELS[e.fromStatus].toLowerCase(),
       to: REVIEW_STATUS_LABELS[e.toStatus].toLowerCase(),
       message: e.message,

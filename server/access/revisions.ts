@@ -5,11 +5,10 @@ import { dieRevisions, dies, markup, micrographs, reviewEvents, users, type DieR
 import { ConflictError, NotFoundError } from "@/lib/errors";
 import { padTableFromMarkup } from "@/lib/markup/pad-table-from-markup";
 import type { FrozenDieFrame, FrozenPadTable, RevisionDto, RevisionStamp } from "@/lib/dto/revisions";
-import type { AnyShape } from "@/lib/markup/types";
 import type { Database } from "@/db/client";
 import { type Actor, type Db } from "./context";
 import { loadDie } from "./dies";
-import { listMarkup } from "./markup";
+import { listMarkup, toShape } from "./markup";
 import { markupGeojson } from "./markup-geojson";
 import { recordAudit } from "./audit";
 
@@ -72,7 +71,7 @@ export async function revisionGeojson(db: Db, actor: Actor, dieId: string, n: nu
  */
 export async function freezeRevision(tx: Db, die: DieRow, signer: { id: string | null; name: string }, at: Date, overrideOpenRemarks: boolean): Promise<void> {
   const rows = await tx.select().from(markup).where(eq(markup.dieId, die.id)).orderBy(asc(markup.seq));
-  const shapes = rows.map((m) => ({ id: m.id, kind: m.kind, geometry: m.geometry, properties: m.properties }) as AnyShape);
+  const shapes = rows.map(toShape);
   const stamp: RevisionStamp = { number: die.revision, status: "signed_off", signedOffBy: signer.name, signedOffAt: at.toISOString() };
   const json = await markupGeojson(tx, die, shapes, stamp);
   const pads = padTableFromMarkup(shapes, die);

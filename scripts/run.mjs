@@ -11,9 +11,9 @@ const mode = process.argv[2] ?? "start";
 const env = serverEnv();
 const port = env.PORT || "3000";
 if (mode === "start") buildIfStale(env);
-const next = path.join(ROOT, "node_modules/next/dist/bin/next");
-const args = mode === "dev" ? ["dev", "-p", port] : ["start", "-p", port];
+// Production runs our own HTTP server around Next.js's handler (scripts/serve.mjs: the tile fast path).
+const args = mode === "dev" ? [path.join(ROOT, "node_modules/next/dist/bin/next"), "dev", "-p", port] : [path.join(ROOT, "scripts/serve.mjs")];
 console.log(`[kerfline] ${mode === "dev" ? "development server" : "server"} on http://localhost:${port} (data dir ${env.KERFLINE_DATA_DIR})`);
-const child = spawn(process.execPath, [next, ...args], { cwd: ROOT, stdio: "inherit", env });
+const child = spawn(process.execPath, args, { cwd: ROOT, stdio: "inherit", env: { ...env, PORT: port } });
 for (const sig of ["SIGINT", "SIGTERM"]) process.on(sig, () => child.kill(sig));
 child.on("exit", (code, signal) => process.exit(code ?? (signal ? 1 : 0)));

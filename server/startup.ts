@@ -28,6 +28,8 @@ export async function startServer(): Promise<void> {
     const { incomingDir } = await import("./files/storage-paths");
     const swept = await sweepIncoming(incomingDir(), opened.kind === "pglite" ? 0 : 3600_000);
     if (swept) console.log(`[kerfline] removed ${swept} unfinished upload part(s) left by an earlier stop`);
+    const { installFastTiles } = await import("./http/fast-tiles");
+    installFastTiles();
     startTilingWorkers(opened.db);
     startExportWorker(opened.db);
     const { startMail } = await import("./mail/start-mail");

@@ -1,4 +1,4 @@
-// Starts a real Kerfline server (the production build, `next start`) on a free port with its
+// Starts a real Kerfline server (the production build, `scripts/serve.mjs`) on a free port with its
 // own data dir, for integration tests and benchmarks. No mocks: real PGlite on disk or a real
 // PostgreSQL server, real HTTP.
 import { spawn, type ChildProcess } from "node:child_process";
@@ -40,9 +40,8 @@ export async function startServer(opts: { dataDir?: string; env?: Record<string,
   const dataDir = opts.dataDir ?? tempDataDir();
   const port = await freePort();
   const env = serverEnv({ ...process.env, KERFLINE_DATA_DIR: dataDir, PORT: String(port), ...opts.env });
-  // A long keep-alive on the server side: with Node's 5 s default, a loaded test process could
-  // reuse a socket the server had just closed and get ECONNRESET (seen on 100 parallel sign-ins).
-  const proc = spawn(process.execPath, [path.join(ROOT, "node_modules/next/dist/bin/next"), "start", "-p", String(port), "--keepAliveTimeout", "65000"], {
+  // The same server as `npm start` (scripts/serve.mjs: Next.js with the tile fast path, 65 s keep-alive).
+  const proc = spawn(process.execPath, [path.join(ROOT, "scripts/serve.mjs")], {
     cwd: ROOT,
     env,
     stdio: ["ignore", "pipe", "pipe"],

@@ -9,6 +9,8 @@ export type Database = PgDatabase<PgQueryResultHKT, typeof schema>;
 export type OpenedDatabase = { db: Database; close: () => Promise<void>; kind: "pglite" | "postgres" };
 
 const MIGRATIONS = path.join(process.cwd(), "db", "migrations");
+/** Advisory lock key taken while migrating (any constant; "kerf" in ASCII). */
+const MIGRATION_LOCK = 0x6b657266;
 
 /**
  * Opens the database named by the configuration and applies the committed migrations:
@@ -23,7 +25,16 @@ export async function openDatabase(options: { databaseUrl?: string; pgliteDir: s
     const { migrate } = await import("drizzle-orm/node-postgres/migrator");
     const pool = new Pool({ connectionString: databaseUrl, max: 10 });
     const db = drizzle(pool, { schema });
-    await migrate(db, { migrationsFolder: MIGRATIONS });
+    // Several web servers and workers may start at once on one database: one migrates at a time
+    // (a session advisory lock; the others wait, then find nothing left to apply).
+    const lock = await pool.connect();
+    try {
+      await lock.query("select pg_advisory_lock($1)", [MIGRATION_LOCK]);
+      await migrate(db, { migrationsFolder: MIGRATIONS });
+    } finally {
+      await lock.query("select pg_advisory_unlock($1)", [MIGRATION_LOCK]).catch(() => {});
+      lock.release();
+    }
     return { db: db as unknown as Database, close: () => pool.end(), kind: "postgres" };
   }
   const dir = options.pgliteDir;

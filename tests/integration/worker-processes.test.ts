@@ -124,22 +124,28 @@ describe.skipIf(engine !== "postgres")("web servers with KERFLINE_JOBS=off and t
     return d.body.id;
   }
 
-  it("queues a tiling job on the web server without running it; a worker runs it", async () => {
+  it("queues tiling jobs on the web server without running them; workers run them, and a failing one shows its last reason", async () => {
     const dieId = await freshDie("Queued only");
     const png = await sharp({ create: { width: 900, height: 700, channels: 3, background: { r: 90, g: 110, b: 95 } } })
       .png()
       .toBuffer();
-    const up = await clients.analyst.upload<{ id: string; status: string }>(
-      `/api/dies/${dieId}/micrographs`,
-      uploadForm(png, "small.png", { scaleUmPerPx: "1" }),
-    );
-    expect(up.status).toBe(202);
+    const upload = () =>
+      clients.analyst.upload<{ id: string; status: string }>(`/api/dies/${dieId}/micrographs`, uploadForm(png, "small.png", { scaleUmPerPx: "1" }));
+    const [good, lost] = [await upload(), await upload()];
+    expect([good.status, lost.status]).toEqual([202, 202]);
+    // The second one's original goes missing while it waits (a storage mishap): every attempt fails.
+    fs.rmSync(path.join(dataDir, "originals", dieId, `${lost.body.id}.png`));
     await new Promise((r) => setTimeout(r, 4_000));
-    expect((await clients.analyst.get<{ status: string }>(`/api/micrographs/${up.body.id}`)).body.status).toBe("queued");
+    for (const id of [good.body.id, lost.body.id]) expect((await clients.analyst.get<{ status: string }>(`/api/micrographs/${id}`)).body.status).toBe("queued");
     for (let i = 0; i < 2; i++) workers.push(spawnWorker({ ...shared, KERFLINE_WORKER_CONCURRENCY: "1" }));
     await Promise.all(workers.map(ready));
-    expect((await waitForStatus(clients.analyst, up.body.id, "ready", 90_000)).progress).toBe(100);
-  }, 150_000);
+    expect((await waitForStatus(clients.analyst, good.body.id, "ready", 90_000)).progress).toBe(100);
+    const failed = await waitForStatus(clients.analyst, lost.body.id, "failed", 90_000);
+    expect(failed.error).toMatch(/^Tiling failed: /);
+    // Failed only after the third attempt (the tile queue's retryLimit 2, pg-boss docs), on either worker.
+    const logs = workers.map((w) => w.logs()).join("\n");
+    for (const n of [1, 2, 3]) expect(logs).toContain(`tile ${lost.body.id} failed (attempt ${n} of 3)`);
+  }, 180_000);
 
   it("mails one mention exactly once with two workers", async () => {
     const dieId = await freshDie("One mail");

@@ -2,25 +2,23 @@ import "server-only";
 import { openedDatabase } from "./database";
 import { DataDirLockedError } from "@/db/data-dir-lock";
 import { env } from "./env";
-import { requeueOrphanedJobs } from "./jobs/queue";
-import { startTilingWorkers } from "./jobs/tiling";
-import { startExportWorker } from "./jobs/export";
+import { assertProcessLayout, ProcessLayoutError, startJobs, webRole } from "./jobs/run";
 
 /**
  * Runs once per server process before the first request: opens the database (taking the data
- * dir lock and applying migrations) and seeds the demo scenario into an empty database.
- * A second server on a locked data dir exits here with a clear message.
+ * dir lock and applying migrations), starts the job queue (workers too unless KERFLINE_JOBS=off)
+ * and seeds the demo scenario into an empty database. A second server on a locked data dir, or a
+ * layout of several processes missing what they share, exits here with a clear message.
  */
 export async function startServer(): Promise<void> {
   try {
+    const role = webRole();
+    assertProcessLayout(role);
     const opened = await openedDatabase();
-    if (opened.kind === "pglite") {
-      const { failExhaustedTiling } = await import("./jobs/tiling");
-      const gaveUp = await failExhaustedTiling(opened.db, true);
-      if (gaveUp) console.log(`[kerfline] gave up ${gaveUp} tiling job(s) that stopped on their last attempt`);
-      const requeued = await requeueOrphanedJobs(opened.db);
-      if (requeued) console.log(`[kerfline] picked up ${requeued} job(s) left running by an earlier stop`);
-    }
+    const { startMail } = await import("./mail/start-mail");
+    if (role === "embedded") await startMail();
+    // Before anything that queues (seeding renders micrographs): a job is sent in its row's transaction.
+    await startJobs(opened, role);
     const { freezeUnfrozenSignOffs } = await import("./access/revisions");
     const frozen = await freezeUnfrozenSignOffs(opened.db);
     if (frozen) console.log(`[kerfline] froze the signed-off revision of ${frozen} die(s) signed off before revisions existed`);
@@ -30,10 +28,6 @@ export async function startServer(): Promise<void> {
     if (swept) console.log(`[kerfline] removed ${swept} unfinished upload part(s) left by an earlier stop`);
     const { installFastTiles } = await import("./http/fast-tiles");
     installFastTiles();
-    startTilingWorkers(opened.db);
-    startExportWorker(opened.db);
-    const { startMail } = await import("./mail/start-mail");
-    await startMail(opened.db);
     const seed = env().KERFLINE_SEED;
     if (seed !== "none") {
       const { seedDemo } = await import("@/db/seed");
@@ -48,11 +42,13 @@ export async function startServer(): Promise<void> {
       const { signOffDemoDieB } = await import("./seed-sign-off");
       if (await signOffDemoDieB(opened.db)) console.log("[kerfline] signed off the demo's die B as revision 1");
     }
-    console.log(`[kerfline] database ready (${opened.kind}), data dir ${env().dataDir}`);
+    console.log(
+      `[kerfline] database ready (${opened.kind}), data dir ${env().dataDir}; jobs ${role === "web" ? "queued for worker processes" : "run in this process"}`,
+    );
     const { describeLinkOrigin } = await import("./http/origin");
     console.log(`[kerfline] ${describeLinkOrigin()}`);
   } catch (e) {
-    if (e instanceof DataDirLockedError) {
+    if (e instanceof DataDirLockedError || e instanceof ProcessLayoutError) {
       console.error(`[kerfline] refusing to start: ${e.message}`);
       process.exit(1);
     }

@@ -7,7 +7,7 @@ export * from "./revisions";
 export * from "./sample";
 export * from "./relations";
 
-import type { auditEvents, exports, jobs } from "./work";
+import type { auditEvents, exports } from "./work";
 import type { cases, dies, markup, micrographs, reviewStatusEnum } from "./dies";
 import type { comments, inboxItems, outbox, reviewEvents, threads } from "./review";
 import type { dieRevisions } from "./revisions";
@@ -23,7 +23,6 @@ export type DieRow = typeof dies.$inferSelect;
 export type ReviewStatus = (typeof reviewStatusEnum.enumValues)[number];
 export type MicrographRow = typeof micrographs.$inferSelect;
 export type AuditEvent = typeof auditEvents.$inferSelect;
-export type JobRow = typeof jobs.$inferSelect;
 export type ThreadRow = typeof threads.$inferSelect;
 export type CommentRow = typeof comments.$inferSelect;
 export type ReviewEventRow = typeof reviewEvents.$inferSelect;

@@ -1,34 +1,26 @@
-// Background work and the record of changes: jobs, exports, the audit trail.
+// Background work and the record of changes: job heartbeats, exports, the audit trail.
 import { index, integer, jsonb, pgEnum, pgTable, text, timestamp, uuid, bigint } from "drizzle-orm/pg-core";
 import { EXPORT_KINDS, JOB_STATUSES } from "@/lib/dto/stored-values";
-import { createdAt, updatedAt } from "./columns";
+import { createdAt } from "./columns";
 import { users, teams } from "./people";
 import { dies, micrographs } from "./dies";
 
 export const jobStatusEnum = pgEnum("job_status", JOB_STATUSES);
 
 /**
- * Background work (tiling now, exports later). Workers claim a job with
- * `FOR UPDATE SKIP LOCKED` and keep a heartbeat, so several worker processes can share the
- * table and a job whose worker died is picked up again.
+ * The last sign of life of a running job, written every few seconds by the worker that holds
+ * it. The job itself lives in pg-boss's tables; a job whose beat is older than a minute was
+ * left by a worker that died, and the housekeeping job fails it through pg-boss so its retry
+ * and back-off apply (pg-boss 10 knows only a fixed expiry, too short or too long for tiling).
  */
-export const jobs = pgTable(
-  "jobs",
-  {
-    id: uuid("id").primaryKey().defaultRandom(),
-    kind: text("kind").notNull(),
-    /** The row the job works on (a micrograph for tiling). */
-    subjectId: uuid("subject_id").notNull(),
-    status: jobStatusEnum("status").notNull().default("queued"),
-    attempts: integer("attempts").notNull().default(0),
-    lockedBy: text("locked_by"),
-    heartbeatAt: timestamp("heartbeat_at", { withTimezone: true }),
-    error: text("error"),
-    createdAt: createdAt(),
-    updatedAt: updatedAt(),
-  },
-  (t) => [index("jobs_status_created_idx").on(t.status, t.createdAt), index("jobs_subject_idx").on(t.subjectId)],
-);
+export const jobHeartbeats = pgTable("job_heartbeats", {
+  /** The pg-boss job id. */
+  jobId: uuid("job_id").primaryKey(),
+  queue: text("queue").notNull(),
+  /** host:pid of the worker process, for operators (and tests) asking who holds a job. */
+  worker: text("worker").notNull(),
+  beatAt: timestamp("beat_at", { withTimezone: true }).notNull().defaultNow(),
+});
 
 export const auditEvents = pgTable(
   "audit_events",

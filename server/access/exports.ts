@@ -1,6 +1,7 @@
 import "server-only";
 import { and, desc, eq, inArray, lt, sql } from "drizzle-orm";
-import { exports as exportsTable, jobs, users, type MicrographRow } from "@/db/schema";
+import { exports as exportsTable, users, type MicrographRow } from "@/db/schema";
+import { queueJob } from "./job-queue";
 import { type Actor, type Db } from "./context";
 import { loadDie, loadDieOf } from "./dies";
 import { loadDieMicrograph, loadMarkupExtent, sourceImageOf } from "./export-sources";
@@ -102,7 +103,7 @@ export async function createExport(db: Db, actor: Actor, dieId: string, req: Exp
       .insert(exportsTable)
       .values({ dieId, micrographId: req.micrographId, kind: "annotated_png", params, createdBy: actor.userId })
       .returning();
-    await tx.insert(jobs).values({ kind: "export", subjectId: row.id });
+    await queueJob(tx, "export", row.id);
     const [me] = await tx.select({ name: users.name }).from(users).where(eq(users.id, actor.userId));
     return toDto(row, me?.name ?? null);
   });
@@ -133,25 +134,12 @@ export async function listExports(db: Db, actor: Actor, dieId: string, limit = 2
 }
 
 /**
- * Deletes finished exports (done or failed) older than `olderThan`, with their jobs; returns
- * the deleted rows so the caller removes their files. No caller: the export worker's sweep.
+ * Deletes finished exports (done or failed) older than `olderThan`; returns the deleted rows so
+ * the caller removes their files. No caller: the export kind's housekeeping sweep.
  */
 export async function expireExports(db: Db, olderThan: Date): Promise<{ id: string; dieId: string }[]> {
-  return db.transaction(async (tx) => {
-    const gone = await tx
-      .delete(exportsTable)
-      .where(and(inArray(exportsTable.status, ["done", "failed"]), lt(exportsTable.finishedAt, olderThan)))
-      .returning({ id: exportsTable.id, dieId: exportsTable.dieId });
-    if (gone.length > 0)
-      await tx.delete(jobs).where(
-        and(
-          eq(jobs.kind, "export"),
-          inArray(
-            jobs.subjectId,
-            gone.map((g) => g.id),
-          ),
-        ),
-      );
-    return gone;
-  });
+  return db
+    .delete(exportsTable)
+    .where(and(inArray(exportsTable.status, ["done", "failed"]), lt(exportsTable.finishedAt, olderThan)))
+    .returning({ id: exportsTable.id, dieId: exportsTable.dieId });
 }

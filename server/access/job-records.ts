@@ -1,6 +1,6 @@
 import "server-only";
-import { eq } from "drizzle-orm";
-import { exports as exportsTable, micrographs, type ExportRow, type MicrographRow } from "@/db/schema";
+import { eq, inArray, sql } from "drizzle-orm";
+import { exports as exportsTable, jobHeartbeats, micrographs, type ExportRow, type MicrographRow } from "@/db/schema";
 import type { Db } from "./context";
 
 // The rows background jobs read and move through their states. Jobs run on behalf of a request
@@ -48,4 +48,17 @@ export async function setExportState(
   changes: Partial<Pick<ExportRow, "status" | "progress" | "error" | "fileName" | "bytes" | "params" | "finishedAt">>,
 ): Promise<void> {
   await db.update(exportsTable).set(changes).where(eq(exportsTable.id, exportId));
+}
+
+/** Records that `worker` (host:pid) still holds job `jobId` (written every few seconds while it runs). */
+export async function beatJob(db: Db, jobId: string, queue: string, worker: string): Promise<void> {
+  await db
+    .insert(jobHeartbeats)
+    .values({ jobId, queue, worker })
+    .onConflictDoUpdate({ target: jobHeartbeats.jobId, set: { beatAt: sql`now()`, worker } });
+}
+
+/** Forgets the heartbeats of jobs that ended (or were failed for a dead worker). */
+export async function endBeats(db: Db, jobIds: string[]): Promise<void> {
+  if (jobIds.length) await db.delete(jobHeartbeats).where(inArray(jobHeartbeats.jobId, jobIds));
 }

@@ -1,6 +1,7 @@
 import "server-only";
-import { and, asc, eq, sql } from "drizzle-orm";
-import { jobs, micrographs, type MicrographRow } from "@/db/schema";
+import { asc, eq, sql } from "drizzle-orm";
+import { micrographs, type MicrographRow } from "@/db/schema";
+import { queueJob } from "./job-queue";
 import { type Actor, type Db } from "./context";
 import { assertMarkupOpen } from "./markup-lock";
 import { loadDie, loadDieOf } from "./dies";
@@ -96,7 +97,7 @@ export async function insertMicrograph(db: Db, actor: Actor, dieId: string, m: N
     .insert(micrographs)
     .values({ ...m, dieId, isReference, transform, position: n, status: "queued", progress: 0, createdBy: actor.userId })
     .returning();
-  await db.insert(jobs).values({ kind: "tile", subjectId: row.id });
+  await queueJob(db, "tile", row.id);
   await recordAudit(db, actor, { teamId, action: "micrograph.uploaded", entityType: "micrograph", entityId: row.id, dieId, after: row });
   return row;
 }
@@ -140,12 +141,11 @@ export async function updateMicrograph(db: Db, actor: Actor, id: string, patch: 
   return getMicrograph(db, actor, id);
 }
 
-/** Deletes a micrograph row and its jobs; the caller removes its files after the commit. */
+/** Deletes a micrograph row (a tiling job still queued finds it gone and ends); the caller removes its files after the commit. */
 export async function deleteMicrograph(db: Db, actor: Actor, id: string): Promise<MicrographRow> {
   return db.transaction(async (tx) => {
     const { row, die } = await loadMicrograph(tx, actor, id, "edit");
     if (row.isReference) await assertMarkupOpen(tx, row.dieId);
-    await tx.delete(jobs).where(and(eq(jobs.subjectId, id), eq(jobs.kind, "tile")));
     await tx.delete(micrographs).where(eq(micrographs.id, id));
     if (row.isReference) {
       // The next micrograph in order takes over as reference, keeping its own transform.
@@ -165,8 +165,7 @@ export async function retryTiling(db: Db, actor: Actor, id: string): Promise<Mic
   await db.transaction(async (tx) => {
     const { row, die } = await loadMicrograph(tx, actor, id, "edit");
     if (row.status !== "failed") throw new ConflictError(`Only a failed micrograph can be tiled again; this one is ${row.status}.`);
-    await tx.delete(jobs).where(and(eq(jobs.subjectId, id), eq(jobs.kind, "tile")));
-    await tx.insert(jobs).values({ kind: "tile", subjectId: id });
+    await queueJob(tx, "tile", id);
     const [after] = await tx
       .update(micrographs)
       .set({ status: "queued", progress: 0, error: null, updatedAt: new Date() })

@@ -1,6 +1,7 @@
 import "server-only";
 import { and, eq, inArray } from "drizzle-orm";
 import { memberships, notificationPrefs, outbox, users } from "@/db/schema";
+import { queueJob } from "./job-queue";
 import type { Db } from "./context";
 import type { TeamRole } from "@/lib/auth/permissions";
 import type { MailContent } from "@/lib/review/mail-templates";
@@ -43,8 +44,11 @@ export async function wantingMail(db: Db, candidates: readonly TeamPerson[], kin
  * the same person twice, however often it is enqueued.
  */
 export async function enqueueMail(db: Db, m: { teamId: string; kind: string; to: string; content: MailContent; dedupeKey: string }): Promise<void> {
-  await db
+  const [row] = await db
     .insert(outbox)
     .values({ teamId: m.teamId, kind: m.kind, toEmail: m.to, subject: m.content.subject, text: m.content.text, html: m.content.html, dedupeKey: m.dedupeKey })
-    .onConflictDoNothing({ target: outbox.dedupeKey });
+    .onConflictDoNothing({ target: outbox.dedupeKey })
+    .returning({ id: outbox.id });
+  // One delivery job per message, in the same transaction: one row, one job, one sender.
+  if (row) await queueJob(db, "mail", row.id);
 }

@@ -1,5 +1,5 @@
 import "server-only";
-import { and, desc, eq, inArray, lte, sql } from "drizzle-orm";
+import { and, desc, eq, sql } from "drizzle-orm";
 import { outbox, type OutboxRow } from "@/db/schema";
 import { authorize, type Actor, type Db } from "./context";
 import { MAX_SEND_ATTEMPTS, retryDelayMs } from "@/lib/review/backoff";
@@ -23,24 +23,13 @@ export async function listTeamOutbox(db: Db, actor: Actor, teamId: string, limit
   }));
 }
 
-/**
- * Takes up to `limit` due messages for sending. Claiming pushes their next attempt a lease
- * into the future first, so another sender process skips them while this one works (and picks
- * them up again if this one dies mid-send).
- */
-export async function claimDueMail(db: Db, now: Date, leaseMs: number, limit = 10): Promise<OutboxRow[]> {
-  const due = db
-    .select({ id: outbox.id })
+/** A message still waiting to be sent, or null (sent, given up, or gone). */
+export async function pendingMail(db: Db, id: string): Promise<OutboxRow | null> {
+  const [row] = await db
+    .select()
     .from(outbox)
-    .where(and(eq(outbox.status, "pending"), lte(outbox.nextAttemptAt, now)))
-    .orderBy(outbox.nextAttemptAt)
-    .limit(limit)
-    .for("update", { skipLocked: true });
-  return db
-    .update(outbox)
-    .set({ nextAttemptAt: new Date(now.getTime() + leaseMs) })
-    .where(inArray(outbox.id, due))
-    .returning();
+    .where(and(eq(outbox.id, id), eq(outbox.status, "pending")));
+  return row ?? null;
 }
 
 /** Marks a message sent. */
@@ -51,7 +40,10 @@ export async function markMailSent(db: Db, id: string): Promise<void> {
     .where(eq(outbox.id, id));
 }
 
-/** Records a failed attempt: retried later with back-off, failed for good after MAX_SEND_ATTEMPTS. */
+/**
+ * Records a failed attempt: pending with the earliest time of the next (the queue's back-off
+ * waits at least that long), failed for good after MAX_SEND_ATTEMPTS.
+ */
 export async function markMailFailed(db: Db, row: OutboxRow, error: string, baseDelayMs: number): Promise<void> {
   const attempts = row.attempts + 1;
   const last = attempts >= MAX_SEND_ATTEMPTS;
@@ -64,4 +56,12 @@ export async function markMailFailed(db: Db, row: OutboxRow, error: string, base
       nextAttemptAt: new Date(Date.now() + retryDelayMs(attempts, baseDelayMs)),
     })
     .where(eq(outbox.id, row.id));
+}
+
+/** A message whose attempts ran out without one of them recording it (its sender died each time). */
+export async function markMailGivenUp(db: Db, id: string, error: string): Promise<void> {
+  await db
+    .update(outbox)
+    .set({ status: "failed", lastError: error.slice(0, 500) })
+    .where(and(eq(outbox.id, id), eq(outbox.status, "pending")));
 }

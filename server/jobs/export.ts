@@ -13,7 +13,7 @@ import { safeFileName } from "@/lib/markup/attachment";
 import { micrographPaths, EXTENSION } from "../files/storage-paths";
 import { exportFilePath } from "../files/export-paths";
 import { env } from "../env";
-import { startWorkers, type JobHandler } from "./worker";
+import type { JobHandler } from "./worker";
 
 /** How often the export worker deletes expired exports: every 10 minutes, or twice per lifetime when that is shorter. */
 const expirySweepMs = () => Math.min(10 * 60_000, (env().KERFLINE_EXPORT_TTL_HOURS * 3600_000) / 2);
@@ -96,15 +96,10 @@ async function sweepExpiredExports(db: Database): Promise<number> {
   return gone.length;
 }
 
-const exporting: JobHandler = {
+export const exporting: JobHandler = {
   kind: "export",
   run: runExport,
   failure: (e) => `The export failed: ${(e as Error).message}`,
   markFailed: (db, id, message) => setExportState(db, id, { status: "failed", error: message, finishedAt: new Date() }),
   sweep: { everyMs: expirySweepMs, run: sweepExpiredExports },
 };
-
-/** Starts the in-process export worker: one, so a large render never takes both cores from tiling. */
-export function startExportWorker(db: Database): () => void {
-  return startWorkers(db, exporting, 1);
-}

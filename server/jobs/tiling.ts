@@ -7,8 +7,8 @@ import type { Database } from "@/db/client";
 import { buildPreview, buildPyramid, buildThumbnail } from "@/server/images/pyramid";
 import { micrographPaths, EXTENSION } from "../files/storage-paths";
 import { env } from "../env";
-import { giveUpExhaustedJobs } from "./queue";
-import { startWorkers, type JobHandler } from "./worker";
+import { TILE_ATTEMPTS } from "./boss";
+import type { JobHandler } from "./worker";
 
 /** Removes work folders a killed tiler left beside the pyramid (they are never served). */
 async function removeLeftovers(tilesDir: string, micrographId: string): Promise<void> {
@@ -59,38 +59,32 @@ async function markFailed(db: Database, micrographId: string, message: string) {
 }
 
 /**
- * Tiling jobs that crashed on their last attempt: the micrograph is marked failed with the
- * reason (the user can retry) and every file the attempts left — work folders, a half-written
- * pyramid, preview and thumbnail — is removed. The original stays for the retry.
+ * Tiling whose attempts ran out: the micrograph is marked failed with the reason (the user can
+ * retry) and every file the attempts left — work folders, a half-written pyramid, preview and
+ * thumbnail — is removed. The original stays for the retry.
  */
-export async function failExhaustedTiling(db: Database, orphaned = false): Promise<number> {
-  const given = await giveUpExhaustedJobs(db, "tile", orphaned);
-  for (const job of given) {
-    const m = await setTilingState(db, job.subjectId, { status: "failed", error: job.error });
-    if (!m) continue;
-    const p = micrographPaths(m.dieId, m.id, (m.format ?? undefined) as keyof typeof EXTENSION | undefined);
-    await removeLeftovers(p.tilesDir, m.id);
-    await Promise.all([p.pyramid, p.preview, p.thumbnail].map((f) => fs.rm(f, { recursive: true, force: true })));
-    console.error(`[kerfline] gave up tiling ${m.id}: ${job.error}`);
-  }
-  return given.length;
+async function giveUpTiling(db: Database, micrographId: string, message: string): Promise<void> {
+  const m = await setTilingState(db, micrographId, { status: "failed", error: message });
+  if (!m) return;
+  const p = micrographPaths(m.dieId, m.id, (m.format ?? undefined) as keyof typeof EXTENSION | undefined);
+  await removeLeftovers(p.tilesDir, m.id);
+  await Promise.all([p.pyramid, p.preview, p.thumbnail].map((f) => fs.rm(f, { recursive: true, force: true })));
 }
 
-/** One worker loop: claim, tile, repeat; sleeps until notified or for a second when idle. */
-/** How many in-process tiling workers run: one per core this process may use. */
+/** How many tiling jobs one process runs at once: KERFLINE_WORKER_CONCURRENCY, else one per core it may use. */
 export function tilingWorkerCount(): number {
-  return Math.max(1, os.availableParallelism());
+  return env().KERFLINE_WORKER_CONCURRENCY ?? Math.max(1, os.availableParallelism());
 }
 
-const tiling: JobHandler = {
+/** Refusals the image itself earns (too many pixels, unreadable) carry a status: no retry mends them. */
+const refusal = (e: unknown) => e instanceof Error && "status" in e;
+
+export const tiling: JobHandler = {
   kind: "tile",
   run: tileMicrograph,
-  failure: (e) => (e instanceof Error && "status" in e ? e.message : `Tiling failed: ${(e as Error).message}`),
+  failure: (e) => (refusal(e) ? (e as Error).message : `Tiling failed: ${(e as Error).message}`),
   markFailed,
-  sweep: { everyMs: () => 30_000, run: (db) => failExhaustedTiling(db) },
+  final: refusal,
+  exhausted: `Tiling stopped ${TILE_ATTEMPTS} times without finishing (the server was stopped or ran out of memory while working on it); retry it, or upload a smaller image.`,
+  giveUp: giveUpTiling,
 };
-
-/** Starts the in-process tiling workers (tilingWorkerCount of them). */
-export function startTilingWorkers(db: Database): () => void {
-  return startWorkers(db, tiling, tilingWorkerCount());
-}

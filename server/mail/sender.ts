@@ -1,12 +1,12 @@
 import "server-only";
 import nodemailer, { type Transporter } from "nodemailer";
 import type { Database } from "@/db/client";
-import { claimDueMail, markMailFailed, markMailSent } from "@/server/access/outbox";
+import { markMailFailed, markMailGivenUp, markMailSent, pendingMail } from "@/server/access/outbox";
+import { mailRetryDelaySeconds } from "../jobs/boss";
+import type { JobHandler } from "../jobs/worker";
 import { env } from "../env";
 import { localMailState } from "./local-mail";
 
-/** A claimed message is not taken by another sender for this long. */
-const LEASE_MS = 60_000;
 const FROM = "Kerfline <no-reply@kerfline.localhost>";
 
 let cached: { url: string; transport: Transporter } | undefined;
@@ -26,49 +26,40 @@ async function transport(): Promise<Transporter> {
   return cached.transport;
 }
 
-/** Most messages claimed per round; a full round goes again at once. */
-const BATCH = 20;
-
-/** Sends due messages once; returns how many were claimed. */
-async function sendDueMail(db: Database): Promise<number> {
-  const due = await claimDueMail(db, new Date(), LEASE_MS, BATCH);
-  for (const row of due) {
-    try {
-      await (
-        await transport()
-      ).sendMail({
-        from: FROM,
-        to: row.toEmail,
-        subject: row.subject,
-        text: row.text,
-        html: row.html,
-        // One Message-ID per outbox row: a receiver can tell a retried copy from a new message.
-        messageId: `<${row.id}@kerfline.localhost>`,
-        headers: row.teamId ? { "X-Kerfline-Team": row.teamId } : {},
-      });
-      await markMailSent(db, row.id);
-    } catch (e) {
-      await markMailFailed(db, row, e instanceof Error ? e.message : String(e), env().KERFLINE_MAIL_RETRY_MS);
-    }
+/**
+ * Sends one outbox message, the job of a `mail` job. pg-boss hands a job to one worker at a
+ * time (its fetch takes rows with FOR UPDATE SKIP LOCKED), and the message has one job, so it
+ * goes out once whatever the number of processes. A failed attempt is recorded on the row and
+ * thrown back, so pg-boss retries it with back-off.
+ */
+async function deliverMail(db: Database, outboxId: string): Promise<void> {
+  const row = await pendingMail(db, outboxId);
+  if (!row) return; // sent by an earlier attempt that died before finishing its job, or given up
+  try {
+    await (
+      await transport()
+    ).sendMail({
+      from: FROM,
+      to: row.toEmail,
+      subject: row.subject,
+      text: row.text,
+      html: row.html,
+      // One Message-ID per outbox row: a receiver can tell a retried copy from a new message.
+      messageId: `<${row.id}@kerfline.localhost>`,
+      headers: row.teamId ? { "X-Kerfline-Team": row.teamId } : {},
+    });
+  } catch (e) {
+    const message = e instanceof Error ? e.message : String(e);
+    await markMailFailed(db, row, message, mailRetryDelaySeconds() * 1000);
+    throw e;
   }
-  return due.length;
+  await markMailSent(db, row.id);
 }
 
-/** The outbox sender: polls for due mail until stopped. Several processes may run one each. */
-export function startMailSender(db: Database): () => void {
-  let stopped = false;
-  const loop = async () => {
-    while (!stopped) {
-      try {
-        if ((await sendDueMail(db)) >= BATCH) continue;
-      } catch (e) {
-        console.error("[kerfline] mail sender:", e);
-      }
-      await new Promise((r) => setTimeout(r, env().KERFLINE_MAIL_POLL_MS));
-    }
-  };
-  void loop();
-  return () => {
-    stopped = true;
-  };
-}
+export const mailDelivery: JobHandler = {
+  kind: "mail",
+  run: deliverMail,
+  failure: (e) => (e instanceof Error ? e.message : String(e)),
+  markFailed: markMailGivenUp,
+  exhausted: "The message was not sent: every attempt stopped before the mail server answered.",
+};

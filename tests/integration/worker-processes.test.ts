@@ -1,0 +1,211 @@
+import { spawn, type ChildProcess } from "node:child_process";
+import fs from "node:fs";
+import path from "node:path";
+import pg from "pg";
+import sharp from "sharp";
+import { SMTPServer } from "smtp-server";
+import { simpleParser } from "mailparser";
+import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
+import { expectedTilePaths } from "@/lib/tiles/iiif";
+import { freePort, startServer, tempDataDir, type RunningServer } from "../support/server";
+import { DEMO_EMAILS, demoClients } from "../support/client";
+import { uploadForm } from "../support/images";
+import { waitForStatus } from "../support/micrographs";
+import { freshPostgresDatabase } from "../support/postgres";
+import { square } from "./review-support";
+
+// Web servers with KERFLINE_JOBS=off and separate `npm run worker` processes on one PostgreSQL
+// database and one data dir, as the scale-out layout runs them. Real processes, real signals.
+const ROOT = path.resolve(import.meta.dirname, "../..");
+const engine = inject("databaseKind");
+
+type Worker = { proc: ChildProcess; logs: () => string; exited: Promise<number> };
+
+/** Starts `npm run worker` (the same command line) with `env`; resolves once it says it is ready. */
+function spawnWorker(env: Record<string, string>): Worker {
+  const proc = spawn(process.execPath, ["--conditions=react-server", "--import", "tsx", "scripts/worker.ts"], {
+    cwd: ROOT,
+    env: { ...process.env, NODE_ENV: "production", ...env },
+    stdio: ["ignore", "pipe", "pipe"],
+  });
+  let out = "";
+  proc.stdout!.on("data", (d) => (out += d));
+  proc.stderr!.on("data", (d) => (out += d));
+  const exited = new Promise<number>((resolve) => proc.once("exit", (code, signal) => resolve(code ?? (signal ? 128 : 1))));
+  return { proc, logs: () => out, exited };
+}
+
+async function ready(w: Worker): Promise<Worker> {
+  const deadline = Date.now() + 60_000;
+  while (!/worker ready/.test(w.logs())) {
+    if (w.proc.exitCode !== null) throw new Error(`worker exited:\n${w.logs()}`);
+    if (Date.now() > deadline) throw new Error(`worker not ready:\n${w.logs()}`);
+    await new Promise((r) => setTimeout(r, 200));
+  }
+  return w;
+}
+
+describe("a layout of several processes", () => {
+  it("refuses a web server with KERFLINE_JOBS=off and no SMTP_URL, saying what is missing", async () => {
+    const err = (await startServer({ env: { KERFLINE_JOBS: "off", KERFLINE_SEED: "none", SMTP_URL: "" } }).then(
+      () => null,
+      (e: Error & { exitCode?: number; logs?: string }) => e,
+    ))!;
+    expect(err).not.toBeNull();
+    expect(err.exitCode).toBe(1);
+    expect(err.logs).toMatch(/refusing to start: KERFLINE_JOBS=off leaves jobs to `npm run worker` processes, so every process needs .*SMTP_URL/);
+  });
+
+  it("refuses a worker without SMTP_URL", async () => {
+    const w = spawnWorker({ KERFLINE_DATA_DIR: tempDataDir(), SMTP_URL: "", DATABASE_URL: "postgres://nobody@127.0.0.1:1/none" });
+    expect(await w.exited).toBe(1);
+    expect(w.logs()).toMatch(/refusing to start the worker: .*SMTP_URL \(the local mail server is a convenience of the single-process embedded mode\)/);
+  });
+});
+
+/** A 20000 × 12000 px JPEG with structure, big enough that tiling takes many seconds. */
+async function bigJpeg(): Promise<Buffer> {
+  const tile = await sharp({ create: { width: 400, height: 400, channels: 3, background: { r: 120, g: 140, b: 100 } } })
+    .composite([{ input: { create: { width: 200, height: 120, channels: 3, background: { r: 220, g: 200, b: 120 } } }, left: 60, top: 90 }])
+    .png()
+    .toBuffer();
+  return sharp({ create: { width: 20000, height: 12000, channels: 3, background: { r: 40, g: 50, b: 45 } }, limitInputPixels: false })
+    .composite([{ input: tile, tile: true, blend: "over" }])
+    .jpeg({ quality: 80 })
+    .toBuffer();
+}
+
+describe.skipIf(engine !== "postgres")("web servers with KERFLINE_JOBS=off and two workers on one PostgreSQL", () => {
+  const received: { to: string; messageId: string }[] = [];
+  let smtp: SMTPServer;
+  let web: RunningServer;
+  let databaseUrl: string;
+  let dataDir: string;
+  let shared: Record<string, string>;
+  const workers: Worker[] = [];
+  let clients: Awaited<ReturnType<typeof demoClients>>;
+  let teamId: string;
+
+  beforeAll(async () => {
+    const smtpPort = await freePort();
+    smtp = new SMTPServer({
+      authOptional: true,
+      disabledCommands: ["STARTTLS", "AUTH"],
+      logger: false,
+      onData(stream, _s, cb) {
+        simpleParser(stream).then(
+          (m) => {
+            received.push({ to: Array.isArray(m.to) ? m.to.map((t) => t.text).join(",") : (m.to?.text ?? ""), messageId: m.messageId ?? "" });
+            cb();
+          },
+          (e: Error) => cb(e),
+        );
+      },
+    });
+    await new Promise<void>((r) => smtp.listen(smtpPort, "127.0.0.1", () => r()));
+    databaseUrl = await freshPostgresDatabase("jobs_processes");
+    dataDir = tempDataDir();
+    shared = { DATABASE_URL: databaseUrl, KERFLINE_DATA_DIR: dataDir, SMTP_URL: `smtp://127.0.0.1:${smtpPort}` };
+    web = await startServer({ dataDir, env: { ...shared, KERFLINE_JOBS: "off", KERFLINE_SEED: "demo-records" } });
+    clients = await demoClients(web.url);
+    teamId = (await clients.analyst.get<{ teams: { id: string }[] }>("/api/me")).body.teams[0].id;
+  });
+
+  afterAll(async () => {
+    for (const w of workers) if (w.proc.exitCode === null) w.proc.kill("SIGTERM");
+    await Promise.all(workers.map((w) => w.exited));
+    await web?.stop();
+    await new Promise<void>((r) => (smtp ? smtp.close(() => r()) : r()));
+  });
+
+  async function freshDie(title: string): Promise<string> {
+    const c = await clients.analyst.request<{ id: string }>("POST", `/api/teams/${teamId}/cases`, { title });
+    const d = await clients.analyst.request<{ id: string }>("POST", `/api/cases/${c.body.id}/dies`, { name: `${title} die`, widthUm: 1000, heightUm: 800 });
+    return d.body.id;
+  }
+
+  it("queues tiling jobs on the web server without running them; workers run them, and a failing one shows its last reason", async () => {
+    const dieId = await freshDie("Queued only");
+    const png = await sharp({ create: { width: 900, height: 700, channels: 3, background: { r: 90, g: 110, b: 95 } } })
+      .png()
+      .toBuffer();
+    const upload = () =>
+      clients.analyst.upload<{ id: string; status: string }>(`/api/dies/${dieId}/micrographs`, uploadForm(png, "small.png", { scaleUmPerPx: "1" }));
+    const [good, lost] = [await upload(), await upload()];
+    expect([good.status, lost.status]).toEqual([202, 202]);
+    // The second one's original goes missing while it waits (a storage mishap): every attempt fails.
+    fs.rmSync(path.join(dataDir, "originals", dieId, `${lost.body.id}.png`));
+    await new Promise((r) => setTimeout(r, 4_000));
+    for (const id of [good.body.id, lost.body.id]) expect((await clients.analyst.get<{ status: string }>(`/api/micrographs/${id}`)).body.status).toBe("queued");
+    for (let i = 0; i < 2; i++) workers.push(spawnWorker({ ...shared, KERFLINE_WORKER_CONCURRENCY: "1" }));
+    await Promise.all(workers.map(ready));
+    expect((await waitForStatus(clients.analyst, good.body.id, "ready", 90_000)).progress).toBe(100);
+    const failed = await waitForStatus(clients.analyst, lost.body.id, "failed", 90_000);
+    expect(failed.error).toMatch(/^Tiling failed: /);
+    // Failed only after the third attempt (the tile queue's retryLimit 2, pg-boss docs), on either worker.
+    const logs = workers.map((w) => w.logs()).join("\n");
+    for (const n of [1, 2, 3]) expect(logs).toContain(`tile ${lost.body.id} failed (attempt ${n} of 3)`);
+  }, 180_000);
+
+  it("mails one mention exactly once with two workers", async () => {
+    const dieId = await freshDie("One mail");
+    const t = await clients.reviewer.request<{ id: string }>("POST", `/api/dies/${dieId}/threads`, {
+      region: square(100, 100),
+      body: "@Demo Analyst the bond wire on VB3 is lifted",
+    });
+    expect(t.status).toBe(201);
+    const deadline = Date.now() + 30_000;
+    while (!received.some((m) => m.to.includes(DEMO_EMAILS.analyst))) {
+      if (Date.now() > deadline) throw new Error("the mention mail never arrived");
+      await new Promise((r) => setTimeout(r, 200));
+    }
+    // Several polling rounds of both workers later, still one copy.
+    await new Promise((r) => setTimeout(r, 4_000));
+    expect(received.filter((m) => m.to.includes(DEMO_EMAILS.analyst))).toHaveLength(1);
+  }, 60_000);
+
+  it("finishes a tiling job on the other worker after the one holding it is killed (SIGKILL), never serving a partial pyramid", async () => {
+    const dieId = await freshDie("Killed worker");
+    const up = await clients.analyst.upload<{ id: string }>(`/api/dies/${dieId}/micrographs`, uploadForm(await bigJpeg(), "big.jpg", { scaleUmPerPx: "0.5" }));
+    expect(up.status).toBe(202);
+    const id = up.body.id;
+    // The holder, from its heartbeat (host:pid), once the pyramid is under way.
+    const db = new pg.Client({ connectionString: databaseUrl });
+    await db.connect();
+    let holder: Worker | undefined;
+    try {
+      const deadline = Date.now() + 120_000;
+      while (!holder) {
+        const m = (await clients.analyst.get<{ status: string; progress: number }>(`/api/micrographs/${id}`)).body;
+        if (m.status === "ready") throw new Error("tiling finished before the kill: make the test image larger");
+        const beat = await db.query<{ worker: string }>("select worker from job_heartbeats where queue = 'tile'");
+        const pid = Number(beat.rows[0]?.worker.split(":").pop());
+        if (m.status === "tiling" && m.progress >= 3 && pid) holder = workers.find((w) => w.proc.pid === pid);
+        if (Date.now() > deadline) throw new Error(`never saw tiling under way: ${JSON.stringify(m)}`);
+        await new Promise((r) => setTimeout(r, 100));
+      }
+    } finally {
+      await db.end();
+    }
+    holder.proc.kill("SIGKILL");
+    await holder.exited;
+    const other = workers.find((w) => w !== holder && w.proc.exitCode === null)!;
+    expect(other).toBeTruthy();
+    // Until it is ready, the pyramid is never served (IIIF info and tiles answer 409).
+    const deadline = Date.now() + 240_000;
+    for (;;) {
+      const m = (await clients.analyst.get<{ status: string; error?: string; progress: number }>(`/api/micrographs/${id}`)).body;
+      if (m.status === "ready") break;
+      expect(m.status).not.toBe("failed");
+      expect((await clients.analyst.get(`/api/micrographs/${id}/iiif/info.json`)).status).toBe(409);
+      if (Date.now() > deadline) throw new Error(`still ${m.status} (${m.progress} %) after the kill:\n${other.logs()}`);
+      await new Promise((r) => setTimeout(r, 1_000));
+    }
+    expect(other.logs()).toMatch(/failed 1 job\(s\) whose worker stopped \(1 to be retried\)/);
+    const tilesDir = path.join(dataDir, "tiles", dieId);
+    // Every tile of the IIIF 3.0 algorithm is there, and no work folder is left.
+    for (const p of expectedTilePaths(20000, 12000, 512)) expect(fs.existsSync(path.join(tilesDir, id, p)), p).toBe(true);
+    expect(fs.readdirSync(tilesDir).filter((n) => n.includes("partial"))).toEqual([]);
+    expect((await clients.analyst.get(`/api/micrographs/${id}/iiif/info.json`)).status).toBe(200);
+  }, 420_000);
+});

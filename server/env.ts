@@ -84,6 +84,8 @@ const schema = z
     KERFLINE_JOBS: z.enum(["on", "off"]).default("on"),
     /** Jobs one worker process runs at once, per kind that uses the cores (tiling); default: one per core. */
     KERFLINE_WORKER_CONCURRENCY: z.coerce.number().int().min(1).max(64).optional(),
+    /** A running job without a heartbeat this long lost its worker and is retried elsewhere (tests shorten it). */
+    KERFLINE_JOB_STALE_SECONDS: z.coerce.number().int().min(6).default(60),
     /** A resumable upload untouched this long is removed with its bytes. */
     KERFLINE_UPLOAD_EXPIRY_HOURS: z.coerce.number().positive().default(24),
   })

@@ -1,4 +1,5 @@
 import "server-only";
+import { env } from "../env";
 import os from "node:os";
 import type PgBoss from "pg-boss";
 import { sql } from "drizzle-orm";
@@ -29,19 +30,19 @@ export type JobHandler = {
 
 /** Names this process in heartbeats. */
 const WORKER = `${os.hostname()}:${process.pid}`;
-/** A running job writes a heartbeat this often… */
-const BEAT_MS = 10_000;
-/** …and one silent this long is taken to have lost its worker (a process killed, a machine gone). */
-const STALE_SECONDS = 60;
-/** How often a working process asks for a housekeeping round (one runs, whoever asks). */
-const HOUSEKEEPING_EVERY_SECONDS = 15;
+/** A job silent this long is taken to have lost its worker (a process killed, a machine gone)… */
+const staleSeconds = () => env().KERFLINE_JOB_STALE_SECONDS;
+/** …a running job writes a heartbeat six times in that time… */
+const beatMs = () => (staleSeconds() * 1000) / 6;
+/** …and a working process asks for a housekeeping round (one runs, whoever asks) four times. */
+const housekeepingEverySeconds = () => Math.max(1, Math.round(staleSeconds() / 4));
 
 /** One attempt: heartbeat while it runs; a failure is thrown back to pg-boss, which retries it. */
 async function runAttempt(db: Database, handler: JobHandler, job: PgBoss.JobWithMetadata<JobData>): Promise<void> {
   const subjectId = job.data.subjectId;
   const beat = () => beatJob(db, job.id, handler.kind, WORKER).catch(() => {});
   await beat();
-  const timer = setInterval(beat, BEAT_MS);
+  const timer = setInterval(beat, beatMs());
   try {
     await handler.run(db, subjectId);
   } catch (e) {
@@ -130,7 +131,7 @@ async function sweepAbandonedUploads(): Promise<number> {
 
 /** One housekeeping round: dead workers' jobs, then each kind's sweep when due, then abandoned uploads. */
 async function housekeeping(boss: PgBoss, db: Database, handlers: JobHandler[], lastSwept: Map<JobKind, number>): Promise<void> {
-  const stale = await failStaleJobs(boss, db, STALE_SECONDS);
+  const stale = await failStaleJobs(boss, db, staleSeconds());
   if (stale.retried + stale.exhausted > 0) {
     console.error(`[kerfline] failed ${stale.retried + stale.exhausted} job(s) whose worker stopped (${stale.retried} to be retried)`);
   }
@@ -146,7 +147,7 @@ export type WorkerPlan = { handler: JobHandler; count: number; pollSeconds: numb
 
 /**
  * Starts this process's workers: `count` per kind, one per dead-letter queue, and the
- * housekeeping worker, which this process asks for every 15 s (pg-boss throttling keeps it to
+ * housekeeping worker, which this process asks for four times per KERFLINE_JOB_STALE_SECONDS (pg-boss throttling keeps it to
  * one round per slot however many processes ask). Returns the function that stops asking.
  */
 export async function startJobWorkers(boss: PgBoss, db: Database, plans: WorkerPlan[]): Promise<() => void> {
@@ -163,8 +164,8 @@ export async function startJobWorkers(boss: PgBoss, db: Database, plans: WorkerP
   const lastSwept = new Map<JobKind, number>();
   await boss.work(HOUSEKEEPING, { pollingIntervalSeconds: 5 }, () => housekeeping(boss, db, handlers, lastSwept));
   const ask = () =>
-    boss.sendThrottled(HOUSEKEEPING, {}, {}, HOUSEKEEPING_EVERY_SECONDS, HOUSEKEEPING).catch((e) => console.error("[kerfline] housekeeping:", e));
+    boss.sendThrottled(HOUSEKEEPING, {}, {}, housekeepingEverySeconds(), HOUSEKEEPING).catch((e) => console.error("[kerfline] housekeeping:", e));
   void ask();
-  const timer = setInterval(ask, HOUSEKEEPING_EVERY_SECONDS * 1000);
+  const timer = setInterval(ask, housekeepingEverySeconds() * 1000);
   return () => clearInterval(timer);
 }

@@ -147,8 +147,9 @@ export type WorkerPlan = { handler: JobHandler; count: number; pollSeconds: numb
 
 /**
  * Starts this process's workers: `count` per kind, one per dead-letter queue, and the
- * housekeeping worker, which this process asks for four times per KERFLINE_JOB_STALE_SECONDS (pg-boss throttling keeps it to
- * one round per slot however many processes ask). Returns the function that stops asking.
+ * housekeeping worker, which this process asks for four times per KERFLINE_JOB_STALE_SECONDS
+ * (pg-boss throttling keeps it to one round per slot however many processes ask). Returns the
+ * function that stops asking.
  */
 export async function startJobWorkers(boss: PgBoss, db: Database, plans: WorkerPlan[]): Promise<() => void> {
   const handlers = plans.map((p) => p.handler);

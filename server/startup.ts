@@ -28,6 +28,12 @@ export async function startServer(): Promise<void> {
     const { incomingDir } = await import("./files/storage-paths");
     const swept = await sweepIncoming(incomingDir(), opened.kind === "pglite" ? 0 : 3600_000);
     if (swept) console.log(`[kerfline] removed ${swept} unfinished upload part(s) left by an earlier stop`);
+    // TEMPORARY (until the job queue's sweeps take it): remove abandoned resumable uploads on a timer.
+    const uploads = await import("./uploads/tus-server");
+    setInterval(
+      () => void uploads.sweepAbandonedUploads().catch((e) => console.error("[kerfline] upload sweep failed:", e)),
+      uploads.uploadSweepEveryMs(),
+    ).unref();
     startTilingWorkers(opened.db);
     startExportWorker(opened.db);
     const { startMail } = await import("./mail/start-mail");

@@ -7,7 +7,8 @@ import type { Readable } from "node:stream";
 import { DeleteObjectsCommand, GetObjectCommand } from "@aws-sdk/client-s3";
 import { FileStore } from "@tus/file-store";
 import { S3Store } from "@tus/s3-store";
-import type { DataStore, Upload } from "@tus/server";
+import { MemoryKvStore, type DataStore, type Upload } from "@tus/server";
+import type { MetadataValue } from "@tus/s3-store";
 import { env } from "../env";
 import { incomingDir } from "../files/storage-paths";
 import { s3Client, s3Settings } from "../storage/s3-client";
@@ -70,10 +71,16 @@ function fileUploadStore(): UploadStore {
 
 function s3UploadStore(): UploadStore {
   const { bucket, client } = s3Settings();
+  // Our own handle on the store's metadata cache, to forget an upload we delete ourselves.
+  const cache = new MemoryKvStore<MetadataValue>();
   const datastore = new S3Store({
+    cache,
     partSize: UPLOAD_CHUNK_BYTES,
     expirationPeriodInMilliseconds: expiryMs(),
-    s3ClientConfig: { bucket, ...client },
+    // Checksums only where S3 requires them: the SDK's default sends streamed bodies as
+    // aws-chunked with a trailing checksum, which several S3-compatible stores (s3rver among
+    // them) store as part of the object, adding bytes to every incomplete part.
+    s3ClientConfig: { bucket, ...client, requestChecksumCalculation: "WHEN_REQUIRED", responseChecksumValidation: "WHEN_REQUIRED" },
   });
   return {
     datastore,
@@ -95,6 +102,7 @@ function s3UploadStore(): UploadStore {
       await datastore.remove(id).catch(() => undefined);
       const keys = [id, `${id}.info`, `${id}.part`].map((Key) => ({ Key }));
       await s3Client().send(new DeleteObjectsCommand({ Bucket: bucket, Delete: { Objects: keys, Quiet: true } }));
+      await cache.delete(id);
     },
     sweep: () => datastore.deleteExpired(),
   };

@@ -74,7 +74,9 @@ async function checkLaterRequest(store: UploadStore, req: Request, id: string): 
   if (upload.metadata?.[OWNER_KEY] !== actor.userId) throw new NotFoundError("That upload");
   if (req.method !== "PATCH") return;
   await loadDie(await database(), actor, upload.metadata.dieId ?? "", "edit");
-  if (upload.offset === 0 && body && !(await looksLikeImage(body, upload.size))) {
+  // Only a PATCH that really starts the file (any other offset is tus's to refuse with 409).
+  const startsFile = upload.offset === 0 && req.headers.get("upload-offset") === "0";
+  if (startsFile && body && !(await looksLikeImage(body, upload.size))) {
     await store.discard(id);
     throw new AppError(415, UNSUPPORTED);
   }

@@ -329,6 +329,7 @@ describe("on S3 storage", () => {
     expect(last.status).toBe(200);
     expect(last.body.bytes).toBe(jpeg.length);
     expect(await uploadObjects()).toEqual([]);
+    expect((await tus.head(loc)).status).toBe(404);
     expect(await count(die, clients.owner)).toBe(1);
   });
 

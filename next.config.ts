@@ -6,7 +6,7 @@ const common = Object.entries(COMMON_SECURITY_HEADERS).map(([key, value]) => ({ 
 const nextConfig: NextConfig = {
   // PGlite ships wasm and data files: keep it external so they are not copied into the
   // publicly served static folder (see DEVELOPERS.md).
-  serverExternalPackages: ["@electric-sql/pglite", "sharp", "pg", "smtp-server", "mailparser", "nodemailer"],
+  serverExternalPackages: ["@electric-sql/pglite", "sharp", "pg", "smtp-server", "mailparser", "nodemailer", "@tus/server", "@tus/file-store", "@tus/s3-store"],
   // A separate build folder per checkout user (KERFLINE_DIST_DIR) lets parallel work build and
   // serve without replacing each other's running build. Defaults to Next's own ".next".
   distDir: process.env.KERFLINE_DIST_DIR || ".next",

@@ -6,6 +6,7 @@ import { Button } from "@/components/ui/button";
 import { FormMessage, TextField } from "@/components/ui/field";
 import { ILLUMINATIONS, ILLUMINATION_LABELS } from "@/lib/validation/micrographs";
 import type { MicrographDto } from "@/lib/dto/micrographs";
+import { useResumableUpload, type UploadState } from "./use-resumable-upload";
 
 type Values = {
   label: string;
@@ -17,32 +18,22 @@ type Values = {
   scaleUmPerPx: string;
 };
 
-/** Sends the form with XMLHttpRequest, the one browser API that reports upload progress. */
-function send(dieId: string, form: FormData, onProgress: (loaded: number, total: number) => void): Promise<MicrographDto> {
-  return new Promise((resolve, reject) => {
-    const xhr = new XMLHttpRequest();
-    xhr.open("POST", `/api/dies/${dieId}/micrographs`);
-    xhr.upload.onprogress = (e) => e.lengthComputable && onProgress(e.loaded, e.total);
-    xhr.onload = () => {
-      let body: { error?: string } = {};
-      try {
-        body = JSON.parse(xhr.responseText);
-      } catch {
-        /* not JSON */
-      }
-      if (xhr.status === 202) resolve(body as MicrographDto);
-      else reject(new Error(body.error ?? `Upload failed (${xhr.status}).`));
-    };
-    xhr.onerror = () => reject(new Error("The upload was interrupted: check the connection and try again."));
-    xhr.send(form);
-  });
+/** What the upload is doing, in words (a lost connection says where it will resume). */
+function progressWords(s: Exclude<UploadState, { phase: "idle" }>): string {
+  if (s.phase === "reconnecting") return `Connection lost — resuming from ${s.acceptedPercent} %`;
+  if (s.phase === "checking") return "Checking the file…";
+  return s.resumed ? "Resuming the earlier upload of this file" : "Uploading";
 }
 
-/** The upload form: file plus capture data, with a byte progress bar while it streams. */
+/**
+ * The upload form: file plus capture data, with a byte progress bar while it streams. The file
+ * goes by the resumable tus protocol: a dropped connection resumes where it stopped.
+ */
 export function UploadMicrograph({ dieId, onUploaded, onCancel }: { dieId: string; onUploaded: (m: MicrographDto) => void; onCancel: () => void }) {
   const [file, setFile] = useState<File | null>(null);
-  const [progress, setProgress] = useState<{ loaded: number; total: number } | null>(null);
   const [error, setError] = useState<string | null>(null);
+  const upload = useResumableUpload(dieId);
+  const progress = upload.state.phase === "idle" ? null : upload.state;
   const { register, handleSubmit, formState } = useForm<Values>({
     defaultValues: {
       label: "",
@@ -60,15 +51,11 @@ export function UploadMicrograph({ dieId, onUploaded, onCancel }: { dieId: strin
       onSubmit={handleSubmit(async (v) => {
         if (!file) return setError("Choose a micrograph file first.");
         setError(null);
-        const form = new FormData();
-        for (const [k, val] of Object.entries(v)) if (val !== "") form.append(k, val);
-        form.append("file", file);
+        const fields = Object.fromEntries(Object.entries(v).filter(([, val]) => val !== ""));
         try {
-          const m = await send(dieId, form, (loaded, total) => setProgress({ loaded, total }));
-          onUploaded(m);
+          onUploaded(await upload.send(file, fields));
         } catch (e) {
           setError((e as Error).message);
-          setProgress(null);
         }
       })}
     >
@@ -114,8 +101,8 @@ export function UploadMicrograph({ dieId, onUploaded, onCancel }: { dieId: strin
       </fieldset>
       {progress && (
         <div className="flex flex-col gap-1">
-          <div className="flex justify-between text-xs text-ink-300">
-            <span>Uploading</span>
+          <div className="flex justify-between text-xs text-ink-300" role="status" aria-live="polite">
+            <span className={progress.phase === "reconnecting" ? "text-amber-300" : undefined}>{progressWords(progress)}</span>
             <span>
               {(progress.loaded / 1024 ** 2).toFixed(1)} / {(progress.total / 1024 ** 2).toFixed(1)} MB
             </span>
@@ -125,7 +112,14 @@ export function UploadMicrograph({ dieId, onUploaded, onCancel }: { dieId: strin
       )}
       <FormMessage message={error} />
       <div className="flex justify-end gap-2">
-        <Button onClick={onCancel}>Cancel</Button>
+        <Button
+          onClick={async () => {
+            await upload.cancel();
+            onCancel();
+          }}
+        >
+          Cancel
+        </Button>
         <Button type="submit" variant="primary" disabled={formState.isSubmitting}>
           {formState.isSubmitting ? "Uploading…" : "Upload"}
         </Button>

@@ -13,10 +13,10 @@ export type ReceivedUpload = {
   file: { tempPath: string; bytes: number; format: RasterFormat; clientName: string };
 };
 
-const UNSUPPORTED = "Only JPEG, PNG, TIFF (including BigTIFF) and WebP micrographs are accepted; this file is none of those.";
+export const UNSUPPORTED = "Only JPEG, PNG, TIFF (including BigTIFF) and WebP micrographs are accepted; this file is none of those.";
 
 /** A client file name for display: its last path part, without control characters. */
-function displayName(raw: string): string {
+export function displayName(raw: string): string {
   const base = raw.split(/[\\/]/).pop() ?? "";
   return base
     .replace(/[\u0000-\u001f\u007f]/g, "")
@@ -142,7 +142,7 @@ export async function receiveUpload(req: Request, opts: { maxBytes: number; inco
   return { fields, file: file! };
 }
 
-function formatBytes(n: number): string {
+export function formatBytes(n: number): string {
   if (n >= 1024 ** 3) return `${(n / 1024 ** 3).toFixed(n % 1024 ** 3 === 0 ? 0 : 1)} GB`;
   if (n >= 1024 ** 2) return `${(n / 1024 ** 2).toFixed(0)} MB`;
   return `${n} bytes`;

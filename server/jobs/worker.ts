@@ -1,5 +1,6 @@
 import "server-only";
 import { env } from "../env";
+import { sweepAbandonedUploads } from "../uploads/tus-server";
 import os from "node:os";
 import type PgBoss from "pg-boss";
 import { sql } from "drizzle-orm";
@@ -121,14 +122,6 @@ export async function failStaleJobs(boss: PgBoss, db: Database, staleSeconds: nu
   return { retried, exhausted: rows.length - retried };
 }
 
-/**
- * Resumable uploads left unfinished for KERFLINE_UPLOAD_EXPIRY_HOURS are removed here with
- * their bytes. The resumable-upload code provides the body; until then there is nothing to sweep.
- */
-async function sweepAbandonedUploads(): Promise<number> {
-  return 0;
-}
-
 /** One housekeeping round: dead workers' jobs, then each kind's sweep when due, then abandoned uploads. */
 async function housekeeping(boss: PgBoss, db: Database, handlers: JobHandler[], lastSwept: Map<JobKind, number>): Promise<void> {
   const stale = await failStaleJobs(boss, db, staleSeconds());
@@ -140,7 +133,11 @@ async function housekeeping(boss: PgBoss, db: Database, handlers: JobHandler[], 
     lastSwept.set(h.kind, Date.now());
     await h.sweep.run(db).catch((e) => console.error(`[kerfline] ${h.kind} housekeeping failed:`, e));
   }
-  await sweepAbandonedUploads();
+  const removed = await sweepAbandonedUploads().catch((e) => {
+    console.error("[kerfline] upload sweep failed:", e);
+    return 0;
+  });
+  if (removed) console.log(`[kerfline] removed ${removed} abandoned resumable upload(s)`);
 }
 
 export type WorkerPlan = { handler: JobHandler; count: number; pollSeconds: number };

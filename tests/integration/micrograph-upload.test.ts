@@ -2,8 +2,9 @@ import fs from "node:fs";
 import path from "node:path";
 import { beforeAll, describe, expect, inject, it } from "vitest";
 import { demoWorld, freshCase } from "./fixtures";
-import { makeJpeg, makePng, pngDeclaring, uploadForm } from "../support/images";
+import { makeJpeg, makePng, uploadForm } from "../support/images";
 import { waitForStatus } from "../support/micrographs";
+import { badMicrographs } from "../support/bad-micrographs";
 
 // Bad uploads: each refused with a clear status and message, leaving no row and no file.
 let world: Awaited<ReturnType<typeof demoWorld>>;
@@ -40,44 +41,9 @@ function filesLeft(): string[] {
 const count = async () => (await world.clients.owner.get<unknown[]>(`/api/dies/${dieId}/micrographs`)).body.length;
 
 type BadCase = { name: string; form: () => FormData; status: number; message: RegExp };
+// The file-level corpus is shared with the resumable-upload tests; the last two are multipart-only.
 const CORPUS: BadCase[] = [
-  { name: "a zero-byte file", form: () => uploadForm(Buffer.alloc(0), "empty.jpg"), status: 400, message: /empty/ },
-  {
-    name: "text renamed .jpg",
-    form: () => uploadForm("just some notes, not an image at all\n".repeat(4), "notes.jpg"),
-    status: 415,
-    message: /Only JPEG, PNG, TIFF/,
-  },
-  { name: "a truncated JPEG", form: () => uploadForm(jpeg.subarray(0, Math.floor(jpeg.length * 0.6)), "cut.jpg"), status: 422, message: /incomplete/ },
-  { name: "a truncated PNG", form: () => uploadForm(png.subarray(0, Math.floor(png.length * 0.6)), "cut.png"), status: 422, message: /incomplete/ },
-  { name: "a PNG declaring 100000 × 100000 px", form: () => uploadForm(pngDeclaring(100_000, 100_000), "bomb.png"), status: 413, message: /pixel/i },
-  {
-    name: "an SVG",
-    form: () => uploadForm('<svg xmlns="http://www.w3.org/2000/svg" width="10" height="10"><rect width="10" height="10"/></svg>', "die.svg"),
-    status: 415,
-    message: /Only JPEG/,
-  },
-  {
-    name: "an HTML page",
-    form: () => uploadForm("<!doctype html><html><body><script>alert(1)</script></body></html>", "die.jpg"),
-    status: 415,
-    message: /Only JPEG/,
-  },
-  {
-    name: "a TIFF with a bad header",
-    form: () => uploadForm(Buffer.concat([Buffer.from([0x49, 0x49, 0x2a, 0x00, 0xff, 0xff, 0xff, 0x7f]), Buffer.alloc(200, 7)]), "bad.tif"),
-    status: 415,
-    message: /TIFF|format|read/i,
-  },
-  { name: "a file name with ../", form: () => uploadForm(jpeg, "../../etc/die.jpg"), status: 400, message: /plain name/ },
-  { name: "a wrong field type", form: () => uploadForm(jpeg, "die.jpg", { objectiveMag: "twenty" }), status: 400, message: /objectiveMag must be a number/ },
-  { name: "an unknown illumination", form: () => uploadForm(jpeg, "die.jpg", { illumination: "uv" }), status: 400, message: /illumination must be one of/ },
-  {
-    name: "a label with a NUL character",
-    form: () => uploadForm(jpeg, "die.jpg", { label: "bright\u0000field" }),
-    status: 400,
-    message: /label contains a NUL character/,
-  },
+  ...badMicrographs(() => ({ jpeg, png })).map((b) => ({ ...b, form: () => uploadForm(b.bytes(), b.fileName, b.fields) })),
   { name: "a missing file", form: () => uploadForm(null, "", { label: "no file" }), status: 400, message: /No file was sent/ },
   {
     name: "a file in the wrong field",

@@ -105,7 +105,7 @@ describe.skipIf(engine !== "postgres")("web servers with KERFLINE_JOBS=off and t
     await new Promise<void>((r) => smtp.listen(smtpPort, "127.0.0.1", () => r()));
     databaseUrl = await freshPostgresDatabase("jobs_processes");
     dataDir = tempDataDir();
-    shared = { DATABASE_URL: databaseUrl, KERFLINE_DATA_DIR: dataDir, SMTP_URL: `smtp://127.0.0.1:${smtpPort}` };
+    shared = { DATABASE_URL: databaseUrl, KERFLINE_DATA_DIR: dataDir, SMTP_URL: `smtp://127.0.0.1:${smtpPort}`, KERFLINE_JOB_STALE_SECONDS: "10" };
     web = await startServer({ dataDir, env: { ...shared, KERFLINE_JOBS: "off", KERFLINE_SEED: "demo-records" } });
     clients = await demoClients(web.url);
     teamId = (await clients.analyst.get<{ teams: { id: string }[] }>("/api/me")).body.teams[0].id;

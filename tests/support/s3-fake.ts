@@ -4,6 +4,7 @@ import path from "node:path";
 // s3rver: a small S3-compatible server on local disk, the local fake of the S3 API for tests
 // and development (its default credentials are S3RVER / S3RVER).
 import S3rver from "s3rver";
+import { addMultipartListing } from "./s3-fake-multipart";
 
 export type FakeS3 = { endpoint: string; bucket: string; env: Record<string, string>; dir: string; stop(): Promise<void> };
 
@@ -11,6 +12,7 @@ export type FakeS3 = { endpoint: string; bucket: string; env: Record<string, str
 export async function startFakeS3(bucket = "kerfline-test"): Promise<FakeS3> {
   const dir = fs.mkdtempSync(path.join(os.tmpdir(), "kerfline-s3-"));
   const server = new S3rver({ port: 0, address: "127.0.0.1", silent: true, directory: dir, configureBuckets: [{ name: bucket, configs: [] }] });
+  addMultipartListing(server as unknown as Parameters<typeof addMultipartListing>[0], dir);
   const { port } = (await server.run()) as { port: number };
   const endpoint = `http://127.0.0.1:${port}`;
   return {

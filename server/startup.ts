@@ -8,12 +8,15 @@ import { startExportWorker } from "./jobs/export";
 
 /**
  * Runs once per server process before the first request: opens the database (taking the data
- * dir lock and applying migrations) and seeds the demo scenario into an empty database.
+ * dir lock and applying migrations), makes the object store ready and seeds the demo scenario into an empty database.
  * A second server on a locked data dir exits here with a clear message.
  */
 export async function startServer(): Promise<void> {
   try {
     const opened = await openedDatabase();
+    // The bucket (created when missing) before anything removes or stores an object.
+    const { ensureStorageReady } = await import("./storage");
+    await ensureStorageReady();
     if (opened.kind === "pglite") {
       const { failExhaustedTiling } = await import("./jobs/tiling");
       const gaveUp = await failExhaustedTiling(opened.db, true);
@@ -25,9 +28,14 @@ export async function startServer(): Promise<void> {
     const frozen = await freezeUnfrozenSignOffs(opened.db);
     if (frozen) console.log(`[kerfline] froze the signed-off revision of ${frozen} die(s) signed off before revisions existed`);
     const { sweepIncoming } = await import("./files/upload");
-    const { incomingDir } = await import("./files/storage-paths");
-    const swept = await sweepIncoming(incomingDir(), opened.kind === "pglite" ? 0 : 3600_000);
+    const { incomingDir, sweepScratch } = await import("./storage");
+    // On the embedded database this process is the only one on the data dir: all of scratch is
+    // an earlier run's leftovers. Beside other processes, only what is an hour old.
+    const olderThanMs = opened.kind === "pglite" ? 0 : 3600_000;
+    const swept = await sweepIncoming(incomingDir(), olderThanMs);
     if (swept) console.log(`[kerfline] removed ${swept} unfinished upload part(s) left by an earlier stop`);
+    const scratch = await sweepScratch(olderThanMs);
+    if (scratch) console.log(`[kerfline] removed ${scratch} scratch folder(s) left by an earlier stop`);
     startTilingWorkers(opened.db);
     startExportWorker(opened.db);
     const { startMail } = await import("./mail/start-mail");
@@ -46,7 +54,7 @@ export async function startServer(): Promise<void> {
       const { signOffDemoDieB } = await import("./seed-sign-off");
       if (await signOffDemoDieB(opened.db)) console.log("[kerfline] signed off the demo's die B as revision 1");
     }
-    console.log(`[kerfline] database ready (${opened.kind}), data dir ${env().dataDir}`);
+    console.log(`[kerfline] database ready (${opened.kind}), data dir ${env().dataDir}, storage ${env().KERFLINE_STORAGE}`);
     const { describeLinkOrigin } = await import("./http/origin");
     console.log(`[kerfline] ${describeLinkOrigin()}`);
   } catch (e) {

@@ -1,15 +1,15 @@
-import path from "node:path";
 import { z } from "zod";
 import { apiRoute } from "@/server/http/route";
 import { loadMicrograph } from "@/server/access/micrographs";
 import { uuidSchema } from "@/lib/validation/common";
-import { micrographPaths } from "@/server/files/storage-paths";
+import { micrographKeys } from "@/server/storage/keys";
+import { objectStore } from "@/server/storage";
+import { openTilePack, tileRange } from "@/server/storage/tile-pack";
 import { parseTileRequest, resolveTilePath } from "@/lib/tiles/iiif";
-import { readPyramidDescription } from "@/server/images/pyramid";
 import { AppError, BadRequestError, NotFoundError } from "@/lib/errors";
-import { serveImmutable } from "@/server/http/serve-file";
+import { serveImmutable, storedRange } from "@/server/http/serve-file";
 
-// Every segment is validated: only canonical IIIF numbers reach the file system.
+// Every segment is validated: only canonical IIIF numbers reach the pack's index.
 const params = z.object({
   micrographId: uuidSchema,
   region: z.string().max(64),
@@ -24,8 +24,11 @@ export const GET = apiRoute({ params }, async ({ db, actor, params, req }) => {
   if (!request) throw new BadRequestError("Not a canonical IIIF tile request.");
   const { row } = await loadMicrograph(db, actor, params.micrographId, "read");
   if (row.status !== "ready") throw new AppError(409, "The deep-zoom pyramid is not ready yet.");
-  const dir = micrographPaths(row.dieId, row.id).pyramid;
-  const rel = resolveTilePath(request, await readPyramidDescription(dir));
-  if (!rel) throw new NotFoundError("That tile");
-  return serveImmutable(req, path.join(dir, rel), `${row.id}/${params.region}/${params.size}`, "image/jpeg");
+  const key = micrographKeys(row.dieId, row.id).pack;
+  const pack = await openTilePack(objectStore(), key);
+  if (!pack) throw new NotFoundError("That tile");
+  const rel = resolveTilePath(request, pack.index.pyramid);
+  const range = rel && tileRange(pack, rel);
+  if (!range) throw new NotFoundError("That tile");
+  return serveImmutable(req, storedRange(key, range), `${row.id}/${params.region}/${params.size}`, "image/jpeg");
 });

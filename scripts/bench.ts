@@ -4,9 +4,11 @@ import { benchTiling } from "./bench/tiling";
 import { benchUpload } from "./bench/upload";
 import { benchMarkup } from "./bench/markup";
 import { benchExport } from "./bench/export";
+import { benchStorage } from "./bench/storage";
 
 const only = process.argv[2];
 if (!only || only === "tiling") await benchTiling();
 if (!only || only === "upload") await benchUpload();
 if (!only || only === "markup") await benchMarkup();
 if (!only || only === "export") await benchExport();
+if (!only || only === "storage") await benchStorage();

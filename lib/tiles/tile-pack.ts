@@ -35,7 +35,8 @@ export function decodeFooter(footer: Buffer, packSize: number): { indexOffset: n
   if (footer.length !== FOOTER_BYTES || footer.toString("latin1", 0, 8) !== PACK_MAGIC) throw new Error("not a tile pack (bad footer)");
   const indexOffset = Number(footer.readBigUInt64BE(8));
   const indexLength = Number(footer.readBigUInt64BE(16));
-  if (indexLength < 2 || indexLength > MAX_INDEX_BYTES || indexOffset + indexLength + FOOTER_BYTES !== packSize) throw new Error("tile pack footer points outside the pack");
+  if (indexLength < 2 || indexLength > MAX_INDEX_BYTES || indexOffset + indexLength + FOOTER_BYTES !== packSize)
+    throw new Error("tile pack footer points outside the pack");
   return { indexOffset, indexLength };
 }
 
@@ -46,10 +47,15 @@ export function parseIndex(raw: Buffer, indexOffset: number): PackIndex {
   const v = JSON.parse(raw.toString("utf8")) as Partial<PackIndex>;
   const p = v.pyramid as Partial<PyramidDescription> | undefined;
   const pyramidOk =
-    !!p && [p.width, p.height, p.tileSize].every(positiveInt) && Array.isArray(p.scaleFactors) && p.scaleFactors.length > 0 && p.scaleFactors.every(positiveInt);
+    !!p &&
+    [p.width, p.height, p.tileSize].every(positiveInt) &&
+    Array.isArray(p.scaleFactors) &&
+    p.scaleFactors.length > 0 &&
+    p.scaleFactors.every(positiveInt);
   if (v.version !== 1 || !pyramidOk || !v.tiles || typeof v.tiles !== "object") throw new Error("tile pack index is malformed");
   for (const [name, span] of Object.entries(v.tiles)) {
-    const ok = Array.isArray(span) && span.length === 2 && Number.isSafeInteger(span[0]) && span[0] >= 0 && positiveInt(span[1]) && span[0] + span[1] <= indexOffset;
+    const ok =
+      Array.isArray(span) && span.length === 2 && Number.isSafeInteger(span[0]) && span[0] >= 0 && positiveInt(span[1]) && span[0] + span[1] <= indexOffset;
     if (!ok) throw new Error(`tile pack index entry ${name} is out of range`);
   }
   return v as PackIndex;

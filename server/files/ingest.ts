@@ -67,7 +67,10 @@ export async function ingestMicrograph(
     });
   } catch (e) {
     await fs.rm(file.tempPath, { force: true });
-    if (stored) await objectStore().remove(stored).catch(() => {});
+    if (stored)
+      await objectStore()
+        .remove(stored)
+        .catch(() => {});
     throw e;
   }
   // Stored (a hard link or a copy in local mode, an upload on S3): the temporary file goes.

@@ -60,7 +60,7 @@ async function runExport(db: Database, exportId: string): Promise<void> {
   let info;
   try {
     if (!original) throw new Error("The micrograph's original file is missing from storage.");
-    const file = path.join(work, "export.png");
+    const file = path.join(/*turbopackIgnore: true*/ work, "export.png");
     info = await renderAnnotatedPngFile(
       {
         original: original.path,

@@ -49,17 +49,17 @@ async function tileMicrograph(db: Database, micrographId: string): Promise<void>
   const original = await localCopy(keys.original!);
   try {
     if (!original) throw new Error("the original file is missing from storage");
-    const preview = path.join(work, "preview.jpg");
+    const preview = path.join(/*turbopackIgnore: true*/ work, "preview.jpg");
     const size = await buildPreview(original.path, preview, 2048, cap);
     await store.putFile(keys.preview, preview, "image/jpeg");
     await setTilingState(db, m.id, { previewWidth: size.width, previewHeight: size.height, progress: 2 });
     const report = progressReporter(db, m.id);
-    const folder = path.join(work, "pyramid");
+    const folder = path.join(/*turbopackIgnore: true*/ work, "pyramid");
     const pyramid = await buildPyramid(original.path, folder, { pixelCap: cap, onProgress: (pc) => report(Math.max(2, Math.min(98, pc))) });
-    const thumbnail = path.join(work, "thumb.jpg");
+    const thumbnail = path.join(/*turbopackIgnore: true*/ work, "thumb.jpg");
     await buildThumbnail(original.path, thumbnail, 256, cap);
     await store.putFile(keys.thumbnail, thumbnail, "image/jpeg");
-    const pack = path.join(work, "pyramid.tilepack");
+    const pack = path.join(/*turbopackIgnore: true*/ work, "pyramid.tilepack");
     await writeTilePack(folder, pyramid, pack);
     await fs.rm(folder, { recursive: true, force: true }); // the folder's bytes are in the pack now: halve the scratch peak
     await store.putFile(keys.pack, pack, "application/octet-stream");

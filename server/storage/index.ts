@@ -51,7 +51,7 @@ export async function sweepScratch(olderThanMs: number): Promise<number> {
   let removed = 0;
   for (const name of names) {
     if (name === "incoming") continue; // swept by the upload sweeper, which knows its own rules
-    const p = path.join(dir, name);
+    const p = path.join(/*turbopackIgnore: true*/ dir, name);
     const s = await fs.stat(p).catch(() => null);
     if (!s || Date.now() - s.mtimeMs < olderThanMs) continue;
     await fs.rm(p, { recursive: true, force: true });
@@ -81,7 +81,7 @@ export async function localCopy(key: string): Promise<LocalFile | null> {
   }
   if (!(await store.stat(key))) return null;
   const dir = await scratchFolder("download");
-  const p = path.join(dir, path.basename(key));
+  const p = path.join(/*turbopackIgnore: true*/ dir, path.basename(key));
   const release = () => fs.rm(dir, { recursive: true, force: true });
   try {
     await store.download(key, p);

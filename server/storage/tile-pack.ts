@@ -16,7 +16,7 @@ export async function writeTilePack(folder: string, pyramid: PyramidDescription,
   const entries = await readdir(folder, { recursive: true, withFileTypes: true });
   const names = entries
     .filter((e) => e.isFile() && e.name.endsWith(".jpg"))
-    .map((e) => path.relative(folder, path.join(e.parentPath, e.name)).split(path.sep).join("/"))
+    .map((e) => path.relative(folder, path.join(/*turbopackIgnore: true*/ e.parentPath, e.name)).split(path.sep).join("/"))
     .sort();
   const out = fs.createWriteStream(outFile);
   const closed = new Promise<void>((resolve, reject) => {
@@ -28,7 +28,7 @@ export async function writeTilePack(folder: string, pyramid: PyramidDescription,
     const tiles: Record<string, [number, number]> = {};
     let offset = 0;
     for (const name of names) {
-      const bytes = await readFile(path.join(folder, ...name.split("/")));
+      const bytes = await readFile(path.join(/*turbopackIgnore: true*/ folder, ...name.split("/")));
       tiles[name] = [offset, bytes.length];
       await write(bytes);
       offset += bytes.length;

@@ -50,12 +50,20 @@ describe("storage in an S3-compatible bucket", () => {
     const d = await owner.request<{ id: string }>("POST", `/api/cases/${c.body.id}/dies`, { name: "bucket die" });
     const dieId = d.body.id;
     const image = await makeJpeg(1500, 1000);
+    // Bad input first: refused with its reason, and nothing reaches the bucket.
+    const cut = await analyst.upload<{ error: string }>(`/api/dies/${dieId}/micrographs`, uploadForm(image.subarray(0, 4000), "cut.jpg"));
+    expect(cut.status).toBe(422);
+    expect(await bucketKeys(`originals/${dieId}/`)).toEqual([]);
     const up = await analyst.upload<{ id: string }>(`/api/dies/${dieId}/micrographs`, uploadForm(image, "bucket.jpg", { scaleUmPerPx: "1" }));
     expect(up.status).toBe(202);
     const id = up.body.id;
     await waitForStatus(analyst, id, "ready");
     expect(await bucketKeys(`originals/${dieId}/`)).toEqual([`originals/${dieId}/${id}.jpg`]);
-    expect(await bucketKeys(`tiles/${dieId}/`)).toEqual([`tiles/${dieId}/${id}-preview.jpg`, `tiles/${dieId}/${id}-thumb.jpg`, `tiles/${dieId}/${id}.tilepack`]);
+    expect(await bucketKeys(`tiles/${dieId}/`)).toEqual([
+      `tiles/${dieId}/${id}-preview.jpg`,
+      `tiles/${dieId}/${id}-thumb.jpg`,
+      `tiles/${dieId}/${id}.tilepack`,
+    ]);
 
     const info = await analyst.get<{ width: number; height: number }>(`/api/micrographs/${id}/iiif/info.json`);
     expect(info.status).toBe(200);
@@ -67,7 +75,7 @@ describe("storage in an S3-compatible bucket", () => {
     expect(tile.status).toBe(200);
     expect(tile.headers.get("cache-control")).toBe("private, max-age=31536000, immutable");
     const body = Buffer.from(await tile.arrayBuffer());
-    expect(Number(tile.headers.get("content-length"))).toBe(body.length);
+    // No content-length check: `next start` sends a streamed route-handler body chunked and drops it.
     expect(await sharp(body).metadata()).toMatchObject({ format: "jpeg", width: 512, height: 512 });
     const etag = tile.headers.get("etag")!;
     const again = await fetch(tileUrl, { headers: { cookie, "if-none-match": etag } });
@@ -93,7 +101,11 @@ describe("storage in an S3-compatible bucket", () => {
     // The report is built on request from the stored preview (nothing stored for it).
     const report = await fetch(`${server.url}/api/dies/${dieId}/report.pdf`, { headers: { cookie } });
     expect(report.status).toBe(200);
-    expect(Buffer.from(await report.arrayBuffer()).subarray(0, 5).toString("latin1")).toBe("%PDF-");
+    expect(
+      Buffer.from(await report.arrayBuffer())
+        .subarray(0, 5)
+        .toString("latin1"),
+    ).toBe("%PDF-");
 
     expect((await owner.request("DELETE", `/api/dies/${dieId}`)).status).toBe(204);
     for (const area of ["originals", "tiles", "exports"]) expect(await bucketKeys(`${area}/${dieId}/`)).toEqual([]);

@@ -11,10 +11,10 @@ import type { PyramidDescription } from "./iiif";
  * reader needs two range reads (footer, index) before it can serve any tile with one more.
  * Our own layout: no packaged format is "an IIIF pyramid in one range-readable object".
  */
-export const PACK_MAGIC = "KFTPACK1";
+const PACK_MAGIC = "KFTPACK1";
 export const FOOTER_BYTES = 24;
 /** An index larger than this is refused: a 100,000 × 100,000 px pyramid's is about 3 MB. */
-export const MAX_INDEX_BYTES = 64 * 1024 * 1024;
+const MAX_INDEX_BYTES = 64 * 1024 * 1024;
 
 export type PackIndex = {
   readonly version: 1;

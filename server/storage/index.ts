@@ -21,7 +21,7 @@ const g = globalThis as unknown as { __kerflineStore?: Store };
  * before they are stored. Anything in it may be wiped at any time between jobs (start-up does);
  * in local mode it shares the store's file system, so a put is a rename.
  */
-export function scratchDir(...parts: string[]): string {
+function scratchDir(...parts: string[]): string {
   return path.join(/*turbopackIgnore: true*/ env().dataDir, "scratch", ...parts);
 }
 

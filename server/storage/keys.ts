@@ -17,10 +17,10 @@ const checkId = (id: string) => {
   return id.toLowerCase();
 };
 
-export const EXTENSION = { jpeg: "jpg", png: "png", tiff: "tif", bigtiff: "tif", webp: "webp" } as const;
-export type StoredFormat = keyof typeof EXTENSION;
+const EXTENSION = { jpeg: "jpg", png: "png", tiff: "tif", bigtiff: "tif", webp: "webp" } as const;
+type StoredFormat = keyof typeof EXTENSION;
 
-export const AREAS = ["originals", "tiles", "exports"] as const;
+const AREAS = ["originals", "tiles", "exports"] as const;
 
 /** The keys of one micrograph's objects; `original` is null while its format is unknown. */
 export function micrographKeys(dieId: string, micrographId: string, format?: string | null) {

@@ -88,6 +88,20 @@ describe.each(["local", "s3"])("%s object store", (kind) => {
     expect(await store.list("nothing/here/")).toEqual([]);
   });
 
+  it("lists and removes more keys than one listing page holds (1000, S3 API reference)", async () => {
+    const store = stores[kind]();
+    const keys = Array.from({ length: 1003 }, (_, i) => `tiles/d8/${String(i).padStart(4, "0")}.jpg`);
+    let next = 0;
+    await Promise.all(
+      Array.from({ length: 8 }, async () => {
+        while (next < keys.length) await store.putBuffer(keys[next++], Buffer.from("t"));
+      }),
+    );
+    expect(await store.list("tiles/d8/")).toEqual(keys);
+    await store.removePrefix("tiles/d8/");
+    expect(await store.list("tiles/d8/")).toEqual([]);
+  });
+
   it("downloads an object to a local file", async () => {
     const store = stores[kind]();
     await store.putBuffer("originals/d4/o.bin", Buffer.from("original bytes"));

@@ -16,7 +16,8 @@ export async function startServer(): Promise<void> {
     const opened = await openedDatabase();
     // The bucket (created when missing) before anything removes or stores an object.
     const { ensureStorageReady } = await import("./storage");
-    await ensureStorageReady();
+    const packed = await ensureStorageReady();
+    if (packed) console.log(`[kerfline] packed ${packed} pyramid folder(s) of the earlier data-dir layout into tile packs`);
     if (opened.kind === "pglite") {
       const { failExhaustedTiling } = await import("./jobs/tiling");
       const gaveUp = await failExhaustedTiling(opened.db, true);

@@ -11,7 +11,7 @@ import { planRender } from "@/lib/export/render-plan";
 import { renderAnnotatedPngFile } from "@/server/images/render-png";
 import { safeFileName } from "@/lib/markup/attachment";
 import { exportKey, micrographKeys } from "../storage/keys";
-import { localCopy, objectStore, scratchFolder } from "../storage";
+import { localCopy, objectStore, scratchFolder, type LocalFile } from "../storage";
 import { env } from "../env";
 import { startWorkers, type JobHandler } from "./worker";
 
@@ -56,9 +56,10 @@ async function runExport(db: Database, exportId: string): Promise<void> {
   };
   // Rendered in scratch from a local copy of the original, then stored; scratch goes either way.
   const work = await scratchFolder("export");
-  const original = await localCopy(micrographKeys(row.dieId, m.id, m.format).original!);
+  let original: LocalFile | null = null;
   let info;
   try {
+    original = await localCopy(micrographKeys(row.dieId, m.id, m.format).original!);
     if (!original) throw new Error("The micrograph's original file is missing from storage.");
     const file = path.join(/*turbopackIgnore: true*/ work, "export.png");
     info = await renderAnnotatedPngFile(

@@ -6,7 +6,7 @@ import { micrographForJob, setTilingState } from "@/server/access/job-records";
 import type { Database } from "@/db/client";
 import { buildPreview, buildPyramid, buildThumbnail } from "@/server/images/pyramid";
 import { derivedKeys, micrographKeys } from "../storage/keys";
-import { localCopy, objectStore, scratchFolder } from "../storage";
+import { localCopy, objectStore, scratchFolder, type LocalFile } from "../storage";
 import { forgetTilePack, writeTilePack } from "../storage/tile-pack";
 import { env } from "../env";
 import { giveUpExhaustedJobs } from "./queue";
@@ -46,8 +46,9 @@ async function tileMicrograph(db: Database, micrographId: string): Promise<void>
   const store = objectStore();
   await setTilingState(db, m.id, { status: "tiling" });
   const work = await scratchFolder("tiling");
-  const original = await localCopy(keys.original!);
+  let original: LocalFile | null = null;
   try {
+    original = await localCopy(keys.original!);
     if (!original) throw new Error("the original file is missing from storage");
     const preview = path.join(/*turbopackIgnore: true*/ work, "preview.jpg");
     const size = await buildPreview(original.path, preview, 2048, cap);

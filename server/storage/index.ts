@@ -35,10 +35,17 @@ export function objectStore(): Store {
   return g.__kerflineStore;
 }
 
-/** Start-up: the bucket exists (created when missing) and the scratch folder is there. */
-export async function ensureStorageReady(): Promise<void> {
+/**
+ * Start-up: the scratch folder is there and the bucket exists (created when missing); in local
+ * mode a data dir of the earlier layout gets its pyramid folders packed. Returns how many.
+ */
+export async function ensureStorageReady(): Promise<number> {
   await fs.mkdir(scratchDir(), { recursive: true });
-  await objectStore().ensureBucket?.();
+  const store = objectStore();
+  await store.ensureBucket?.();
+  if (store.kind !== "local") return 0;
+  const { packLegacyPyramids } = await import("./legacy-layout");
+  return packLegacyPyramids(store, env().dataDir, scratchDir("legacy"));
 }
 
 /**

@@ -5,6 +5,7 @@ import { benchUpload } from "./bench/upload";
 import { benchMarkup } from "./bench/markup";
 import { benchExport } from "./bench/export";
 import { benchServe } from "./bench/serve";
+import { benchStorage } from "./bench/storage";
 
 const only = process.argv[2];
 if (!only || only === "tiling") await benchTiling();
@@ -12,3 +13,4 @@ if (!only || only === "upload") await benchUpload();
 if (!only || only === "markup") await benchMarkup();
 if (!only || only === "export") await benchExport();
 if (!only || only === "serve") await benchServe();
+if (!only || only === "storage") await benchStorage();

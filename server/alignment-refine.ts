@@ -8,7 +8,8 @@ import { judgeRefinement, MIN_MATCH_STRENGTH } from "@/lib/alignment/refinement-
 import type { GreyImage } from "@/lib/alignment/resample";
 import { configureSharp, sharpInputOptions } from "@/server/images/limits";
 import { BadRequestError } from "@/lib/errors";
-import { micrographPaths } from "./files/storage-paths";
+import { micrographKeys } from "./storage/keys";
+import { localCopy } from "./storage";
 import type { MicrographRow } from "@/db/schema";
 import type { Transform } from "@/lib/geometry/types";
 
@@ -18,12 +19,14 @@ const WORK_SIDE = 1024;
 /** A micrograph's preview as a greyscale raster with its own px → die µm transform. */
 async function placedPreview(row: MicrographRow, imageToDie: Affine2x3) {
   configureSharp();
-  const file = micrographPaths(row.dieId, row.id).preview;
-  const { data, info } = await sharp(file, sharpInputOptions())
+  const file = await localCopy(micrographKeys(row.dieId, row.id).preview);
+  if (!file) throw new BadRequestError("Both micrographs need their preview before refining: wait until they are processed.");
+  const { data, info } = await sharp(file.path, sharpInputOptions())
     .resize({ width: WORK_SIDE, height: WORK_SIDE, fit: "inside", withoutEnlargement: true })
     .greyscale()
     .raw()
-    .toBuffer({ resolveWithObject: true });
+    .toBuffer({ resolveWithObject: true })
+    .finally(file.release);
   const image: GreyImage = { width: info.width, height: info.height, data };
   // Work px → full-resolution px, then the micrograph's transform.
   const toFull: Affine2x3 = [

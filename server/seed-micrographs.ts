@@ -11,7 +11,7 @@ import { NV24R_LAYOUT } from "@/lib/demo-die/layout";
 import { DIE_B_DATE_CODE, withDateCode } from "@/lib/demo-die/date-code";
 import type { Look } from "@/lib/demo-die/render-svg";
 import { ingestMicrograph } from "./files/ingest";
-import { incomingDir } from "./files/storage-paths";
+import { incomingDir } from "./storage";
 
 const CAPTURES = {
   bright_field: { label: "NV-24R 10x bright field", objectiveMag: "10", numericalAperture: "0.3", cameraPixelPitchUm: "2.5" },

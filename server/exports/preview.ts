@@ -5,7 +5,7 @@ import { loadDie } from "@/server/access/dies";
 import { checkRenderable } from "@/server/access/exports";
 import { loadDieMicrograph, loadDieSources, loadThreadMarks, shapesOfKinds, titleBlockFor } from "@/server/access/export-sources";
 import { userDisplayName } from "@/server/access/users";
-import { copySize, type RenderFiles } from "./render-files";
+import { copySize, renderSource, type RenderFiles } from "./render-files";
 import { NotFoundError } from "@/lib/errors";
 import { previewPlan } from "@/lib/export/preview-plan";
 import { renderAnnotatedPngBuffer } from "@/server/images/render-png";
@@ -23,19 +23,21 @@ export async function previewExport(db: Db, actor: Actor, dieId: string, req: Ex
   const src = await loadDieSources(db, dieId);
   if (!src) throw new NotFoundError("That die");
   const { m, image, plan: full } = checkRenderable(await loadDieMicrograph(db, dieId, req.micrographId), { ...die, extentUm: src.die.extentUm }, req);
-  const copyFile = files.copy(m);
-  const copy = await copySize(copyFile);
-  const { plan, fromCopy } = previewPlan(image, copy, full);
   const me = await userDisplayName(db, actor.userId);
+  const threads = req.threads ? await loadThreadMarks(db, dieId) : [];
+  // Local files from here on (downloads on S3): released whatever happens.
+  const copyFile = await files.copy(m);
+  const { plan, fromCopy } = previewPlan(image, await copySize(copyFile), full);
+  const source = await renderSource(files, m, copyFile, fromCopy);
   const { png } = await renderAnnotatedPngBuffer({
-    original: fromCopy ? copyFile : files.original(m),
+    original: source.path,
     pixelCap: files.pixelCap,
     plan,
     shapes: shapesOfKinds(src.shapes, req.kinds),
-    threads: req.threads ? await loadThreadMarks(db, dieId) : [],
+    threads,
     labels: req.labels,
     title: titleBlockFor(src, m, full.umPerPx, me ?? "unknown"),
-  });
+  }).finally(source.release);
   const { width, height } = await sharp(png).metadata();
   return {
     width: full.width,

@@ -7,7 +7,7 @@ import { planRender } from "@/lib/export/render-plan";
 import { previewPlan } from "@/lib/export/preview-plan";
 import { withShownPadStates } from "@/lib/markup/pad-state";
 import { ILLUMINATION_LABELS } from "@/lib/validation/micrographs";
-import { copySize, type RenderFiles } from "./render-files";
+import { copySize, renderSource, type RenderFiles } from "./render-files";
 
 /** Width of the report's overview image: sharp enough for print at the page's text width. */
 const OVERVIEW_WIDTH_PX = 1600;
@@ -21,18 +21,19 @@ export function overviewRenderer(files: RenderFiles): OverviewRenderer {
     const planned = planRender(image, src.die, { widthPx: OVERVIEW_WIDTH_PX });
     if (!planned.ok) return null;
     // The tiler's downscaled copy is enough for a page-wide overview, and far quicker to read than the original.
-    const copyFile = files.copy(m);
+    const copyFile = await files.copy(m);
     const { plan, fromCopy } = previewPlan(image, await copySize(copyFile), planned.plan, OVERVIEW_WIDTH_PX);
     const title = titleBlockFor(src, m, plan.umPerPx, author);
+    const source = await renderSource(files, m, copyFile, fromCopy);
     const { png, info } = await renderAnnotatedPngBuffer({
-      original: fromCopy ? copyFile : files.original(m),
+      original: source.path,
       pixelCap: files.pixelCap,
       plan,
       shapes: withShownPadStates(src.shapes),
       threads: [],
       labels: true,
       title,
-    });
+    }).finally(source.release);
     return {
       png,
       caption: `${m.label} (${ILLUMINATION_LABELS[m.illumination]}), whole die at ${planned.plan.umPerPx.toPrecision(3)} µm/px; scale bar ${info.scaleBar.label}.${planned.plan.warnings.length ? ` ${planned.plan.warnings.join(" ")}` : ""}`,

@@ -1,18 +1,22 @@
 import "server-only";
-import fs from "node:fs/promises";
-import path from "node:path";
-import { env } from "../env";
+import { objectStore } from "../storage";
+import { derivedKeys, diePrefixes, micrographKeys } from "../storage/keys";
+import { forgetTilePack } from "../storage/tile-pack";
 
 /**
- * Removes every file a die owns (originals, tiles, exports) after its rows are gone.
- * Files are laid out per die so one recursive removal leaves no orphans.
+ * Removes every object a die owns (originals, tiles, exports) after its rows are gone.
+ * Objects are keyed per die, so one prefix removal per area leaves no orphans.
  */
 export async function removeDieFiles(dieIds: string[]): Promise<void> {
-  const root = env().dataDir;
   for (const id of dieIds) {
     if (!/^[0-9a-f-]{36}$/i.test(id)) continue;
-    for (const area of ["originals", "tiles", "exports"]) {
-      await fs.rm(path.join(/*turbopackIgnore: true*/ root, area, id), { recursive: true, force: true });
-    }
+    for (const prefix of diePrefixes(id)) await objectStore().removePrefix(prefix);
   }
+}
+
+/** Removes one micrograph's objects after its row is gone: original, pack, preview, thumbnail. */
+export async function removeMicrographFiles(dieId: string, micrographId: string, format: string | null): Promise<void> {
+  const original = micrographKeys(dieId, micrographId, format).original;
+  await Promise.all([...derivedKeys(dieId, micrographId), ...(original ? [original] : [])].map((k) => objectStore().remove(k)));
+  forgetTilePack(micrographKeys(dieId, micrographId).pack);
 }

@@ -13,14 +13,16 @@ import type { Database } from "@/db/client";
 import { AppError } from "@/lib/errors";
 import { env } from "../env";
 import { zodFailure } from "../http/route";
-import { micrographPaths } from "./storage-paths";
+import { micrographKeys } from "../storage/keys";
+import { objectStore } from "../storage";
 import { notifyJobs } from "../jobs/queue";
 
 /**
  * Accepts a received micrograph file: validates the capture data, checks the file arrived
  * whole and its header (format, pixel count under the cap, before any decoding), then records
- * it and queues tiling in one transaction while moving the file into originals/. Any refusal
- * deletes the file; nothing is left behind. The upload route and the demo seed both come here.
+ * it in the object store under the original's key, then records it and queues tiling in one
+ * transaction. Any refusal or failure deletes the temporary file and the stored object;
+ * nothing is left behind. The upload route, the resumable uploads and the demo seed come here.
  */
 export async function ingestMicrograph(
   db: Database,
@@ -30,7 +32,7 @@ export async function ingestMicrograph(
   fields: Record<string, string>,
 ): Promise<MicrographDto> {
   const id = crypto.randomUUID();
-  let finalPath: string | null = null;
+  let stored: string | null = null;
   try {
     const parsed = captureSchema.safeParse(fields);
     if (!parsed.success) throw zodFailure(parsed.error, "capture data");
@@ -43,9 +45,8 @@ export async function ingestMicrograph(
       (c.cameraPixelPitchUm && c.objectiveMag
         ? scaleFromCapture({ cameraPixelPitchUm: c.cameraPixelPitchUm, objectiveMag: c.objectiveMag, adapterMag: c.adapterMag })
         : null);
-    const paths = micrographPaths(dieId, id, probe.format);
-    finalPath = paths.original!;
-    await fs.mkdir(paths.originalsDir, { recursive: true });
+    stored = micrographKeys(dieId, id, probe.format).original!;
+    await objectStore().putFile(stored, file.tempPath);
     await db.transaction(async (tx) => {
       await insertMicrograph(tx, actor, dieId, {
         id,
@@ -63,13 +64,17 @@ export async function ingestMicrograph(
         storedName: `${id}`,
         originalName: file.clientName,
       });
-      await fs.rename(file.tempPath, finalPath!);
     });
   } catch (e) {
     await fs.rm(file.tempPath, { force: true });
-    if (finalPath) await fs.rm(finalPath, { force: true });
+    if (stored)
+      await objectStore()
+        .remove(stored)
+        .catch(() => {});
     throw e;
   }
+  // Stored (a hard link or a copy in local mode, an upload on S3): the temporary file goes.
+  await fs.rm(file.tempPath, { force: true });
   notifyJobs();
   return getMicrograph(db, actor, id);
 }

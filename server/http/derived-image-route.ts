@@ -3,9 +3,9 @@ import { z } from "zod";
 import { apiRoute } from "./route";
 import { loadMicrograph } from "@/server/access/micrographs";
 import { uuidSchema } from "@/lib/validation/common";
-import { micrographPaths } from "../files/storage-paths";
+import { micrographKeys } from "../storage/keys";
 import { AppError } from "@/lib/errors";
-import { serveImmutable } from "./serve-file";
+import { serveImmutable, storedBody } from "./serve-file";
 
 /**
  * GET handler for a micrograph's preview (made first, so the die opens before the pyramid is
@@ -16,7 +16,7 @@ export function derivedImageRoute(kind: "preview" | "thumbnail") {
     const { row } = await loadMicrograph(db, actor, params.micrographId, "read");
     const made = kind === "preview" ? !!row.previewWidth : row.status === "ready";
     if (!made) throw new AppError(409, "Not made yet: the micrograph is still being processed.");
-    const p = micrographPaths(row.dieId, row.id);
-    return serveImmutable(req, kind === "preview" ? p.preview : p.thumbnail, `${row.id}-${kind}`, "image/jpeg");
+    const k = micrographKeys(row.dieId, row.id);
+    return serveImmutable(req, await storedBody(kind === "preview" ? k.preview : k.thumbnail), `${row.id}-${kind}`, "image/jpeg");
   });
 }

@@ -1,14 +1,29 @@
 import "server-only";
-import fs from "node:fs";
 import { Readable } from "node:stream";
 import { NotFoundError } from "@/lib/errors";
+import { objectStore } from "../storage";
+import type { ByteRange } from "../storage/object-store";
+
+/** Bytes to send from the object store: a whole object or one range of it (a tile in a pack). */
+export type StoredBody = { size: number; open(): Promise<Readable | null> };
+
+/** A whole stored object as a body, or null when there is no such object. */
+export async function storedBody(key: string): Promise<StoredBody | null> {
+  const s = await objectStore().stat(key);
+  return s && { size: s.size, open: () => objectStore().read(key) };
+}
+
+/** One byte range of a stored object as a body. */
+export function storedRange(key: string, range: ByteRange): StoredBody {
+  return { size: range.end - range.start + 1, open: () => objectStore().read(key, range) };
+}
 
 /**
- * Streams a file that never changes under its URL (tiles, previews of a micrograph id), with
- * strong caching: `immutable`, an ETag, and 304 for a matching If-None-Match. `private`
- * because access depends on the caller's team.
+ * Streams stored bytes that never change under their URL (tiles, previews of a micrograph id),
+ * with strong caching: `immutable`, an ETag, and 304 for a matching If-None-Match (nothing is
+ * read from the store then). `private` because access depends on the caller's team.
  */
-export async function serveImmutable(req: Request, file: string, etag: string, contentType: string): Promise<Response> {
+export async function serveImmutable(req: Request, body: StoredBody | null, etag: string, contentType: string): Promise<Response> {
   const tag = `"${etag}"`;
   const headers = {
     "content-type": contentType,
@@ -16,13 +31,9 @@ export async function serveImmutable(req: Request, file: string, etag: string, c
     etag: tag,
     "x-content-type-options": "nosniff",
   };
-  let size: number;
-  try {
-    size = (await fs.promises.stat(file)).size;
-  } catch {
-    throw new NotFoundError("That tile");
-  }
+  if (!body) throw new NotFoundError("That tile");
   if (req.headers.get("if-none-match") === tag) return new Response(null, { status: 304, headers });
-  const body = Readable.toWeb(fs.createReadStream(file)) as ReadableStream;
-  return new Response(body, { status: 200, headers: { ...headers, "content-length": String(size) } });
+  const stream = await body.open();
+  if (!stream) throw new NotFoundError("That tile");
+  return new Response(Readable.toWeb(stream) as ReadableStream, { status: 200, headers: { ...headers, "content-length": String(body.size) } });
 }

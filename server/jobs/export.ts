@@ -1,5 +1,5 @@
 import "server-only";
-import { mkdir, rm } from "node:fs/promises";
+import { rm } from "node:fs/promises";
 import path from "node:path";
 import type { Database } from "@/db/client";
 import { expireExports, type ExportParams } from "@/server/access/exports";
@@ -10,8 +10,8 @@ import { loadDieMicrograph, loadDieSources, loadThreadMarks, shapesOfKinds, sour
 import { planRender } from "@/lib/export/render-plan";
 import { renderAnnotatedPngFile } from "@/server/images/render-png";
 import { safeFileName } from "@/lib/markup/attachment";
-import { micrographPaths, EXTENSION } from "../files/storage-paths";
-import { exportFilePath } from "../files/export-paths";
+import { exportKey, micrographKeys } from "../storage/keys";
+import { localCopy, objectStore, scratchFolder, type LocalFile } from "../storage";
 import { env } from "../env";
 import type { JobHandler } from "./worker";
 
@@ -43,8 +43,6 @@ async function runExport(db: Database, exportId: string): Promise<void> {
   const plan = planned.plan;
   const author = row.createdBy ? await userDisplayName(db, row.createdBy) : null;
   const title = titleBlockFor(src, m, plan.umPerPx, author ?? "unknown", row.createdAt);
-  const file = exportFilePath(row.dieId, row.id);
-  await mkdir(path.dirname(file), { recursive: true });
   await setExportState(db, exportId, { progress: 15 });
   // Stages report fractions; the row keeps whole percentages, never going back.
   let shown = 15;
@@ -56,19 +54,32 @@ async function runExport(db: Database, exportId: string): Promise<void> {
     // Chained, so no late progress write can land after the final state below.
     written = written.then(() => setExportState(db, exportId, { progress: pct })).catch(() => {});
   };
-  const info = await renderAnnotatedPngFile(
-    {
-      original: micrographPaths(row.dieId, m.id, m.format as keyof typeof EXTENSION).original,
-      pixelCap: env().KERFLINE_MAX_PIXELS,
-      plan,
-      shapes: shapesOfKinds(src.shapes, req.kinds),
-      threads: req.threads ? await loadThreadMarks(db, row.dieId) : [],
-      labels: req.labels,
-      title,
-      onProgress,
-    },
-    file,
-  );
+  // Rendered in scratch from a local copy of the original, then stored; scratch goes either way.
+  const work = await scratchFolder("export");
+  let original: LocalFile | null = null;
+  let info;
+  try {
+    original = await localCopy(micrographKeys(row.dieId, m.id, m.format).original!);
+    if (!original) throw new Error("The micrograph's original file is missing from storage.");
+    const file = path.join(/*turbopackIgnore: true*/ work, "export.png");
+    info = await renderAnnotatedPngFile(
+      {
+        original: original.path,
+        pixelCap: env().KERFLINE_MAX_PIXELS,
+        plan,
+        shapes: shapesOfKinds(src.shapes, req.kinds),
+        threads: req.threads ? await loadThreadMarks(db, row.dieId) : [],
+        labels: req.labels,
+        title,
+        onProgress,
+      },
+      file,
+    );
+    await objectStore().putFile(exportKey(row.dieId, row.id), file, "image/png");
+  } finally {
+    await original?.release();
+    await rm(work, { recursive: true, force: true });
+  }
   await written;
   const { lengthUm, label, px, x, y } = info.scaleBar;
   const result: ExportResult = {
@@ -92,7 +103,7 @@ async function runExport(db: Database, exportId: string): Promise<void> {
 async function sweepExpiredExports(db: Database): Promise<number> {
   const olderThan = new Date(Date.now() - env().KERFLINE_EXPORT_TTL_HOURS * 3600_000);
   const gone = await expireExports(db, olderThan);
-  await Promise.all(gone.map((g) => rm(exportFilePath(g.dieId, g.id), { force: true })));
+  await Promise.all(gone.map((g) => objectStore().remove(exportKey(g.dieId, g.id))));
   return gone.length;
 }
 

@@ -5,19 +5,18 @@ import os from "node:os";
 import { micrographForJob, setTilingState } from "@/server/access/job-records";
 import type { Database } from "@/db/client";
 import { buildPreview, buildPyramid, buildThumbnail } from "@/server/images/pyramid";
-import { micrographPaths, EXTENSION } from "../files/storage-paths";
+import { derivedKeys, micrographKeys } from "../storage/keys";
+import { localCopy, objectStore, scratchFolder, type LocalFile } from "../storage";
+import { forgetTilePack, writeTilePack } from "../storage/tile-pack";
 import { env } from "../env";
 import { TILE_ATTEMPTS } from "./boss";
 import type { JobHandler } from "./worker";
 
-/** Removes work folders a killed tiler left beside the pyramid (they are never served). */
-async function removeLeftovers(tilesDir: string, micrographId: string): Promise<void> {
-  const names = await fs.readdir(tilesDir).catch(() => [] as string[]);
-  await Promise.all(
-    names
-      .filter((n) => n.startsWith(`${micrographId}-`) && n.includes("-partial-"))
-      .map((n) => fs.rm(path.join(tilesDir, n), { recursive: true, force: true })),
-  );
+/** Removes a micrograph's preview, pack and thumbnail from the store (the original stays). */
+async function removeDerived(dieId: string, micrographId: string): Promise<void> {
+  const keys = derivedKeys(dieId, micrographId);
+  await Promise.all(keys.map((k) => objectStore().remove(k)));
+  forgetTilePack(micrographKeys(dieId, micrographId).pack);
 }
 
 function progressReporter(db: Database, id: string) {
@@ -33,25 +32,45 @@ function progressReporter(db: Database, id: string) {
 }
 
 /**
- * Tiles one micrograph: preview first (so the die can be opened at once), then the IIIF
- * pyramid (built aside and renamed into place), then the thumbnail. The micrograph goes
- * queued → tiling → ready, or failed with a reason the UI shows.
+ * Tiles one micrograph in a private scratch folder: preview first (stored at once, so the die
+ * can be opened), then the IIIF pyramid, packed into one object, then the thumbnail; the pack
+ * is stored last and the micrograph marked ready only after that, so a killed job leaves its
+ * work only in scratch and never a served half-pyramid. queued → tiling → ready, or failed with
+ * a reason the UI shows.
  */
 async function tileMicrograph(db: Database, micrographId: string): Promise<void> {
   const m = await micrographForJob(db, micrographId);
   if (!m || !m.format) return; // deleted meanwhile
-  const p = micrographPaths(m.dieId, m.id, m.format as keyof typeof EXTENSION);
+  const keys = micrographKeys(m.dieId, m.id, m.format);
   const cap = env().KERFLINE_MAX_PIXELS;
-  await removeLeftovers(p.tilesDir, m.id);
+  const store = objectStore();
   await setTilingState(db, m.id, { status: "tiling" });
-  const preview = await buildPreview(p.original!, p.preview, 2048, cap);
-  await setTilingState(db, m.id, { previewWidth: preview.width, previewHeight: preview.height, progress: 2 });
-  const report = progressReporter(db, m.id);
-  await buildPyramid(p.original!, p.pyramid, { pixelCap: cap, onProgress: (pc) => report(Math.max(2, Math.min(98, pc))) });
-  await buildThumbnail(p.original!, p.thumbnail, 256, cap);
+  const work = await scratchFolder("tiling");
+  let original: LocalFile | null = null;
+  try {
+    original = await localCopy(keys.original!);
+    if (!original) throw new Error("the original file is missing from storage");
+    const preview = path.join(/*turbopackIgnore: true*/ work, "preview.jpg");
+    const size = await buildPreview(original.path, preview, 2048, cap);
+    await store.putFile(keys.preview, preview, "image/jpeg");
+    await setTilingState(db, m.id, { previewWidth: size.width, previewHeight: size.height, progress: 2 });
+    const report = progressReporter(db, m.id);
+    const folder = path.join(/*turbopackIgnore: true*/ work, "pyramid");
+    const pyramid = await buildPyramid(original.path, folder, { pixelCap: cap, onProgress: (pc) => report(Math.max(2, Math.min(98, pc))) });
+    const thumbnail = path.join(/*turbopackIgnore: true*/ work, "thumb.jpg");
+    await buildThumbnail(original.path, thumbnail, 256, cap);
+    await store.putFile(keys.thumbnail, thumbnail, "image/jpeg");
+    const pack = path.join(/*turbopackIgnore: true*/ work, "pyramid.tilepack");
+    await writeTilePack(folder, pyramid, pack);
+    await fs.rm(folder, { recursive: true, force: true }); // the folder's bytes are in the pack now: halve the scratch peak
+    await store.putFile(keys.pack, pack, "application/octet-stream");
+  } finally {
+    await original?.release();
+    await fs.rm(work, { recursive: true, force: true });
+  }
   const still = await setTilingState(db, m.id, { status: "ready" });
-  // Deleted while tiling: remove what was just written, so no orphan files remain.
-  if (!still) await Promise.all([p.pyramid, p.preview, p.thumbnail].map((f) => fs.rm(f, { recursive: true, force: true })));
+  // Deleted while tiling: remove what was just stored, so no orphan objects remain.
+  if (!still) await removeDerived(m.dieId, m.id);
 }
 
 async function markFailed(db: Database, micrographId: string, message: string) {
@@ -60,15 +79,13 @@ async function markFailed(db: Database, micrographId: string, message: string) {
 
 /**
  * Tiling whose attempts ran out: the micrograph is marked failed with the reason (the user can
- * retry) and every file the attempts left — work folders, a half-written pyramid, preview and
- * thumbnail — is removed. The original stays for the retry.
+ * retry) and the preview, pack and thumbnail the attempts may have stored are removed (their
+ * work folders are in scratch, swept at start). The original stays for the retry.
  */
 async function giveUpTiling(db: Database, micrographId: string, message: string): Promise<void> {
   const m = await setTilingState(db, micrographId, { status: "failed", error: message });
   if (!m) return;
-  const p = micrographPaths(m.dieId, m.id, (m.format ?? undefined) as keyof typeof EXTENSION | undefined);
-  await removeLeftovers(p.tilesDir, m.id);
-  await Promise.all([p.pyramid, p.preview, p.thumbnail].map((f) => fs.rm(f, { recursive: true, force: true })));
+  await removeDerived(m.dieId, m.id);
 }
 
 /** How many tiling jobs one process runs at once: KERFLINE_WORKER_CONCURRENCY, else one per core it may use. */

@@ -10,7 +10,7 @@ import { S3Store } from "@tus/s3-store";
 import { MemoryKvStore, type DataStore, type Upload } from "@tus/server";
 import type { MetadataValue } from "@tus/s3-store";
 import { env } from "../env";
-import { incomingDir } from "../files/storage-paths";
+import { incomingDir } from "../storage";
 import { s3Client, s3Settings } from "../storage/s3-client";
 
 /** Where resumable uploads keep their bytes until the last one arrives and the checks run. */

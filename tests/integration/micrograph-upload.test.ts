@@ -33,7 +33,7 @@ function filesLeft(): string[] {
     };
     walk(path.join(dataDir(), area, dieId));
   }
-  const incoming = path.join(dataDir(), "originals", ".incoming");
+  const incoming = path.join(dataDir(), "scratch", "incoming");
   if (fs.existsSync(incoming)) out.push(...fs.readdirSync(incoming).map((n) => `incoming/${n}`));
   return out;
 }

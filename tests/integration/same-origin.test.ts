@@ -22,7 +22,7 @@ beforeAll(async () => {
 });
 
 const incoming = () => {
-  const dir = path.join(inject("dataDir"), "originals", ".incoming");
+  const dir = path.join(inject("dataDir"), "scratch", "incoming");
   return fs.existsSync(dir) ? fs.readdirSync(dir) : [];
 };
 

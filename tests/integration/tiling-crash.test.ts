@@ -7,6 +7,7 @@ import { demoClients } from "../support/client";
 import { uploadForm } from "../support/images";
 import { waitForStatus } from "../support/micrographs";
 import { expectedTilePaths } from "@/lib/tiles/iiif";
+import { readPackIndexFile } from "../support/tile-pack";
 
 /** A 20000 × 12000 px JPEG with structure, big enough that tiling takes seconds. */
 async function bigJpeg(): Promise<Buffer> {
@@ -54,16 +55,21 @@ describe.skipIf(inject("databaseKind") === "postgres")("tiling survives a crash 
       expect((await analyst.get(`/api/micrographs/${id}/iiif/0,0,512,512/512,512/0/default.jpg`)).status).toBe(409);
       await server.kill();
       const tilesDir = path.join(dataDir, "tiles", d.body.id);
-      expect(fs.existsSync(path.join(tilesDir, id))).toBe(false);
+      // The pyramid is one object stored last: none yet, its work only in scratch.
+      expect(fs.existsSync(path.join(tilesDir, `${id}.tilepack`))).toBe(false);
+      expect(fs.readdirSync(path.join(dataDir, "scratch")).some((n) => n.startsWith("tiling-"))).toBe(true);
 
       server = await startServer({ dataDir, env: { KERFLINE_SEED: "demo-records" } });
       ({ analyst } = await demoClients(server.url));
       const ready = await waitForStatus(analyst, id, "ready", 120_000);
       expect(ready.progress).toBe(100);
       expect(server.logs()).toMatch(/picked up 1 job/);
-      // Every tile of the IIIF 3.0 algorithm is there (sharp's whole-image spelling "full").
-      for (const p of expectedTilePaths(20000, 12000, 512)) expect(fs.existsSync(path.join(tilesDir, id, p)), p).toBe(true);
+      // Every tile of the IIIF 3.0 algorithm is in the pack (sharp's whole-image spelling "full"), no other.
+      const index = readPackIndexFile(path.join(tilesDir, `${id}.tilepack`));
+      expect(Object.keys(index.tiles).sort()).toEqual(expectedTilePaths(20000, 12000, 512).sort());
       expect(fs.readdirSync(tilesDir).filter((n) => n.includes("partial"))).toEqual([]);
+      // The killed run's work folder was swept at start, the finished one removed.
+      expect(fs.readdirSync(path.join(dataDir, "scratch")).filter((n) => n.startsWith("tiling-"))).toEqual([]);
       expect((await analyst.get(`/api/micrographs/${id}/iiif/info.json`)).status).toBe(200);
     } finally {
       await server.stop();

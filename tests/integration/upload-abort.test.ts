@@ -9,7 +9,7 @@ import { startServer, tempDataDir } from "../support/server";
 // Issue #13 item 12: a client that drops an upload half-way leaves no part file (nor an open
 // handle) behind, and part files a crash left are removed when the server starts.
 let world: Awaited<ReturnType<typeof demoWorld>>;
-const incomingDir = (dataDir: string) => path.join(dataDir, "originals", ".incoming");
+const incomingDir = (dataDir: string) => path.join(dataDir, "scratch", "incoming");
 const parts = (dataDir: string) => (fs.existsSync(incomingDir(dataDir)) ? fs.readdirSync(incomingDir(dataDir)).filter((n) => n.endsWith(".part")) : []);
 
 beforeAll(async () => {

@@ -1,10 +1,9 @@
 import { z } from "zod";
-import fs from "node:fs/promises";
 import { apiRoute, noContent } from "@/server/http/route";
 import { deleteMicrograph, getMicrograph, updateMicrograph } from "@/server/access/micrographs";
 import { uuidSchema } from "@/lib/validation/common";
 import { micrographPatchSchema } from "@/lib/validation/micrographs";
-import { micrographPaths, type EXTENSION } from "@/server/files/storage-paths";
+import { removeMicrographFiles } from "@/server/files/die-files";
 
 const params = z.object({ micrographId: uuidSchema });
 
@@ -15,7 +14,6 @@ export const PATCH = apiRoute({ params, body: micrographPatchSchema }, ({ db, ac
 /** Deletes the micrograph and then its files: original, pyramid, preview, thumbnail. */
 export const DELETE = apiRoute({ params }, async ({ db, actor, params }) => {
   const row = await deleteMicrograph(db, actor, params.micrographId);
-  const p = micrographPaths(row.dieId, row.id, (row.format ?? undefined) as keyof typeof EXTENSION | undefined);
-  await Promise.all([p.original, p.pyramid, p.preview, p.thumbnail].filter(Boolean).map((f) => fs.rm(f!, { recursive: true, force: true })));
+  await removeMicrographFiles(row.dieId, row.id, row.format);
   return noContent();
 });

@@ -6,7 +6,7 @@ import { uuidSchema } from "@/lib/validation/common";
 import { receiveUpload } from "@/server/files/upload";
 import { ingestMicrograph } from "@/server/files/ingest";
 import { env } from "@/server/env";
-import { incomingDir } from "@/server/files/storage-paths";
+import { incomingDir } from "@/server/storage";
 
 export const runtime = "nodejs";
 const params = z.object({ dieId: uuidSchema });

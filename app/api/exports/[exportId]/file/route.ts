@@ -1,10 +1,10 @@
-import fs from "node:fs";
 import { Readable } from "node:stream";
 import { z } from "zod";
 import { apiRoute } from "@/server/http/route";
 import { ConflictError, NotFoundError } from "@/lib/errors";
 import { loadExport } from "@/server/access/exports";
-import { exportFilePath } from "@/server/files/export-paths";
+import { exportKey } from "@/server/storage/keys";
+import { objectStore } from "@/server/storage";
 import { attachmentDisposition } from "@/lib/markup/attachment";
 import { uuidSchema } from "@/lib/validation/common";
 
@@ -15,16 +15,14 @@ export const GET = apiRoute({ params }, async ({ db, actor, params }) => {
   const { row } = await loadExport(db, actor, params.exportId);
   if (row.status !== "done")
     throw new ConflictError(row.status === "failed" ? `This export failed: ${row.error ?? "no reason given"}` : "This export is still being rendered.");
-  const file = exportFilePath(row.dieId, row.id);
-  const size = await fs.promises
-    .stat(file)
-    .then((s) => s.size)
-    .catch(() => null);
-  if (size === null) throw new NotFoundError("That export's file");
-  return new Response(Readable.toWeb(fs.createReadStream(file)) as ReadableStream, {
+  const key = exportKey(row.dieId, row.id);
+  const stored = await objectStore().stat(key);
+  const body = stored && (await objectStore().read(key));
+  if (!stored || !body) throw new NotFoundError("That export's file");
+  return new Response(Readable.toWeb(body) as ReadableStream, {
     headers: {
       "Content-Type": "image/png",
-      "Content-Length": String(size),
+      "Content-Length": String(stored.size),
       "Content-Disposition": attachmentDisposition(row.fileName ?? "export.png"),
       "Cache-Control": "private, no-store",
       "X-Content-Type-Options": "nosniff",

@@ -1,17 +1,16 @@
-import fs from "node:fs";
-import path from "node:path";
 import { z } from "zod";
 import { apiRoute } from "@/server/http/route";
 import { loadMicrograph } from "@/server/access/micrographs";
 import { uuidSchema } from "@/lib/validation/common";
-import { micrographPaths } from "@/server/files/storage-paths";
+import { micrographKeys } from "@/server/storage/keys";
+import { objectStore } from "@/server/storage";
+import { openTilePack, tileRange } from "@/server/storage/tile-pack";
 import { parseTileRequest, resolveTilePath } from "@/lib/tiles/iiif";
-import { readPyramidDescription } from "@/server/images/pyramid";
 import { AppError, BadRequestError, NotFoundError } from "@/lib/errors";
-import { serveImmutable } from "@/server/http/serve-file";
+import { serveImmutable, storedRange } from "@/server/http/serve-file";
 import { approveTileReads } from "@/server/http/fast-tiles";
 
-// Every segment is validated: only canonical IIIF numbers reach the file system.
+// Every segment is validated: only canonical IIIF numbers reach the pack's index.
 const params = z.object({
   micrographId: uuidSchema,
   region: z.string().max(64),
@@ -26,17 +25,21 @@ export const GET = apiRoute({ params }, async ({ db, actor, params, req }) => {
   if (!request) throw new BadRequestError("Not a canonical IIIF tile request.");
   const { row } = await loadMicrograph(db, actor, params.micrographId, "read");
   if (row.status !== "ready") throw new AppError(409, "The deep-zoom pyramid is not ready yet.");
-  const dir = micrographPaths(row.dieId, row.id).pyramid;
-  const description = await readPyramidDescription(dir);
-  const rel = resolveTilePath(request, description);
-  if (!rel) throw new NotFoundError("That tile");
+  const key = micrographKeys(row.dieId, row.id).pack;
+  const store = objectStore();
+  const pack = await openTilePack(store, key);
+  if (!pack) throw new NotFoundError("That tile");
+  const rel = resolveTilePath(request, pack.index.pyramid);
+  const range = rel && tileRange(pack, rel);
+  if (!range) throw new NotFoundError("That tile");
+  // The next tiles of this pyramid for this session may take the fast path (server/http/fast-tiles.ts).
   approveTileReads(req.headers.get("cookie"), row.id, {
-    description,
-    open: async (r) => {
-      const file = path.join(dir, r);
-      const st = await fs.promises.stat(file).catch(() => null);
-      return st ? { body: fs.createReadStream(file), size: st.size } : null;
+    description: pack.index.pyramid,
+    open: async (tile) => {
+      const r = tileRange(pack, tile);
+      const body = r && (await store.read(key, r));
+      return body ? { body, size: r.length } : null;
     },
   });
-  return serveImmutable(req, path.join(dir, rel), `${row.id}/${params.region}/${params.size}`, "image/jpeg");
+  return serveImmutable(req, storedRange(key, range), `${row.id}/${params.region}/${params.size}`, "image/jpeg");
 });

@@ -32,7 +32,7 @@ const g = globalThis as unknown as {
 const approvals = (g.__kerflineTileApprovals ??= new Map<string, Approval>());
 
 /** The session cookie's value(s) in a Cookie header (Auth.js may split a large one into `.0`, `.1`…). */
-export function sessionKeyOf(cookieHeader: string | null | undefined): string | null {
+function sessionKeyOf(cookieHeader: string | null | undefined): string | null {
   if (!cookieHeader) return null;
   const parts = cookieHeader
     .split(";")

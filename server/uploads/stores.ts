@@ -27,12 +27,12 @@ export type UploadStore = {
 };
 
 /** Parts sent to S3 (the store's minimum is 5 MiB); the dialog's chunks are the same size. */
-export const UPLOAD_CHUNK_BYTES = 8 * 1024 ** 2;
+const UPLOAD_CHUNK_BYTES = 8 * 1024 ** 2;
 
 const expiryMs = () => env().KERFLINE_UPLOAD_EXPIRY_HOURS * 3600_000;
 
 /** The data dir's scratch folder for uploads: nothing in it is a record, all of it may be wiped. */
-export const localUploadsDir = () => path.join(/*turbopackIgnore: true*/ env().dataDir, "uploads");
+const localUploadsDir = () => path.join(/*turbopackIgnore: true*/ env().dataDir, "uploads");
 
 function fileUploadStore(): UploadStore {
   const directory = localUploadsDir();

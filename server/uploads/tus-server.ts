@@ -26,7 +26,7 @@ import { createUploadStore, type UploadStore } from "./stores";
  * decided before any byte is stored; after the last byte the file goes through ingestMicrograph,
  * the same checks and recording as the multipart route, and the upload itself is removed.
  */
-export const UPLOADS_PATH = "/api/uploads";
+const UPLOADS_PATH = "/api/uploads";
 /** Metadata key holding the creator; the client cannot set it (the metadata schema is strict). */
 const OWNER_KEY = "owner";
 

@@ -5,7 +5,7 @@ import type { ApiClient } from "./client";
 export const TUS_VERSION = { "Tus-Resumable": "1.0.0" };
 
 /** Upload-Metadata (§Creation): comma-separated "key base64(value)" pairs. */
-export function uploadMetadata(m: Record<string, string>): string {
+function uploadMetadata(m: Record<string, string>): string {
   return Object.entries(m)
     .map(([k, v]) => `${k} ${Buffer.from(v, "utf8").toString("base64")}`)
     .join(",");

@@ -1,6 +1,6 @@
 import "server-only";
 import { env } from "../env";
-import { sweepAbandonedUploads } from "../uploads/tus-server";
+import { sweepAbandonedUploads } from "../uploads/stores";
 import os from "node:os";
 import type PgBoss from "pg-boss";
 import { sql } from "drizzle-orm";

@@ -108,7 +108,22 @@ function s3UploadStore(): UploadStore {
   };
 }
 
-/** The store for the configured storage (KERFLINE_STORAGE). */
-export function createUploadStore(): UploadStore {
-  return env().KERFLINE_STORAGE === "s3" ? s3UploadStore() : fileUploadStore();
+const g = globalThis as unknown as { __kerflineUploadStore?: UploadStore };
+
+/**
+ * The process's one store for the configured storage (KERFLINE_STORAGE), shared by the tus
+ * server and the housekeeping sweep (on globalThis: they load this module separately).
+ */
+export function uploadStore(): UploadStore {
+  g.__kerflineUploadStore ??= env().KERFLINE_STORAGE === "s3" ? s3UploadStore() : fileUploadStore();
+  return g.__kerflineUploadStore;
+}
+
+/**
+ * Removes resumable uploads left unfinished past KERFLINE_UPLOAD_EXPIRY_HOURS (their bytes and
+ * info); returns how many. Safe to run at any time and from any process sharing the store. Here,
+ * not beside the tus server, so a worker process does not load the HTTP and session code.
+ */
+export function sweepAbandonedUploads(): Promise<number> {
+  return uploadStore().sweep();
 }

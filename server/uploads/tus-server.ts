@@ -17,7 +17,7 @@ import { displayName, formatBytes, UNSUPPORTED } from "../files/upload";
 import { assertSameOrigin, errorResponse, zodFailure } from "../http/route";
 import { requireActor } from "../http/session";
 import { PeekableBody } from "./peekable-body";
-import { createUploadStore, type UploadStore } from "./stores";
+import { uploadStore, type UploadStore } from "./stores";
 
 /**
  * Resumable micrograph uploads over the tus 1.0.0 protocol (https://tus.io/protocols/resumable-upload):
@@ -45,7 +45,7 @@ function contextOf(req: Request): RequestContext {
 
 function tus(): Tus {
   if (g.__kerflineTus) return g.__kerflineTus;
-  const store = createUploadStore();
+  const store = uploadStore();
   const server = new Server({
     path: UPLOADS_PATH,
     datastore: store.datastore,
@@ -214,12 +214,4 @@ async function asJsonError(req: Request, res: Response): Promise<Response> {
   headers.set("Content-Type", "application/json");
   headers.delete("Content-Length");
   return new Response(req.method === "HEAD" ? null : body, { status: res.status, headers });
-}
-
-/**
- * Removes resumable uploads left unfinished past KERFLINE_UPLOAD_EXPIRY_HOURS (their bytes and
- * info); returns how many. Safe to run at any time and from any process sharing the store.
- */
-export function sweepAbandonedUploads(): Promise<number> {
-  return tus().store.sweep();
 }

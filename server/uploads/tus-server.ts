@@ -1,7 +1,8 @@
 import "server-only";
 import crypto from "node:crypto";
 import fs from "node:fs/promises";
-import { Server, type Upload } from "@tus/server";
+import { MemoryLocker, Server, type Locker, type Upload } from "@tus/server";
+import type { Pool } from "pg";
 import { AppError, BadRequestError, NotFoundError, PayloadTooLargeError, UnauthorizedError } from "@/lib/errors";
 import { detectRasterFormat, MAGIC_BYTES_NEEDED } from "@/lib/tiles/magic-bytes";
 import { uuidSchema } from "@/lib/validation/common";
@@ -10,7 +11,7 @@ import { findUnsafeText } from "@/lib/validation/unsafe-text";
 import { splitUploadMetadata, uploadTargetSchema } from "@/lib/validation/uploads";
 import type { Actor } from "../access/context";
 import { loadDie } from "../access/dies";
-import { database } from "../database";
+import { database, openedDatabase } from "../database";
 import { env } from "../env";
 import { ingestMicrograph } from "../files/ingest";
 import { displayName, formatBytes, UNSUPPORTED } from "../files/upload";
@@ -18,6 +19,7 @@ import { assertSameOrigin, errorResponse, zodFailure } from "../http/route";
 import { requireActor } from "../http/session";
 import { PeekableBody } from "./peekable-body";
 import { uploadStore, type UploadStore } from "./stores";
+import { SharedUploadLocker } from "./shared-locker";
 
 /**
  * Resumable micrograph uploads over the tus 1.0.0 protocol (https://tus.io/protocols/resumable-upload):
@@ -43,12 +45,21 @@ function contextOf(req: Request): RequestContext {
   return found;
 }
 
+/** One process on the embedded database: the memory locker; on PostgreSQL, one shared by every web server. */
+async function uploadLocker(): Promise<Locker> {
+  const opened = await openedDatabase();
+  if (opened.kind !== "postgres") return new MemoryLocker();
+  // drizzle's node-postgres database keeps its pool as `$client`.
+  return new SharedUploadLocker((opened.db as unknown as { $client: Pool }).$client);
+}
+
 function tus(): Tus {
   if (g.__kerflineTus) return g.__kerflineTus;
   const store = uploadStore();
   const server = new Server({
     path: UPLOADS_PATH,
     datastore: store.datastore,
+    locker: uploadLocker(),
     namingFunction: () => `${store.prefix}${crypto.randomUUID()}`,
     // A relative Location (tus clients resolve it against the endpoint): right behind any proxy.
     generateUrl: (_req, { path, id }) => `${path}/${id.slice(store.prefix.length)}`,

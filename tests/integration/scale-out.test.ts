@@ -9,6 +9,7 @@ import { freePort, startServer, tempDataDir, type RunningServer } from "../suppo
 import { ApiClient, DEMO_EMAILS } from "../support/client";
 import { startFakeS3, type FakeS3 } from "../support/s3-fake";
 import { freshPostgresDatabase } from "../support/postgres";
+import { tusClient } from "../support/tus-client";
 import { addPad, square } from "./review-support";
 
 // The README's "Scaling out" set-up, run for real: one PostgreSQL 15 server, one S3-compatible
@@ -216,6 +217,34 @@ describe.skipIf(!databaseUrl)("scale-out: PostgreSQL + S3 + two web servers + tw
     await new Promise((r) => setTimeout(r, 3000));
     expect(mails.filter((m) => m.to.includes(DEMO_EMAILS.analyst)).length).toBe(1);
   });
+
+  it("resumes an upload begun on A through B (tus over the shared bucket and lock)", async () => {
+    const onA = new ApiClient(webA.url);
+    const onB = new ApiClient(webB.url);
+    await onA.signIn(DEMO_EMAILS.analyst);
+    await onB.signIn(DEMO_EMAILS.analyst);
+    const teamId = (await onA.get<{ teams: { id: string; name: string }[] }>("/api/me")).body.teams.find((t) => t.name === "Fjordlight Failure Lab")!.id;
+    const c = await onA.request<{ id: string }>("POST", `/api/teams/${teamId}/cases`, { title: "Resumed upload case" });
+    const d = await onA.request<{ id: string }>("POST", `/api/cases/${c.body.id}/dies`, { name: "resumed die", widthUm: 1000, heightUm: 1000 });
+    const jpeg = await sharp({ create: { width: 1200, height: 900, channels: 3, background: "#000", noise: { type: "gaussian", mean: 120, sigma: 30 } } })
+      .jpeg({ quality: 90 })
+      .toBuffer();
+    const half = Math.floor(jpeg.length / 2);
+    const created = await tusClient(onA).create(jpeg.length, { dieId: d.body.id, filename: "resumed.jpg", scaleUmPerPx: "0.5" });
+    expect(created.status).toBe(201);
+    const location = created.location!;
+    expect((await tusClient(onA).patch(location, 0, jpeg.subarray(0, half))).offset).toBe(half);
+    // tus 1.0.0 §HEAD: the other server reports the offset the first one stored.
+    expect((await tusClient(onB).head(location)).offset).toBe(half);
+    const done = await tusClient(onB).patch<{ id: string; bytes: number }>(location, half, jpeg.subarray(half));
+    expect(done.status).toBe(200);
+    expect(done.body.bytes).toBe(jpeg.length);
+    const m = await until("the resumed micrograph to tile", async () => {
+      const r = (await onA.get<{ status: string }>(`/api/micrographs/${done.body.id}`)).body;
+      return r.status === "ready" ? r : undefined;
+    });
+    expect(m.status).toBe("ready");
+  }, 180_000);
 
   it("leaves nothing on the web servers' disks but scratch", () => {
     for (const web of [webA, webB]) {

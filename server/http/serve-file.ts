@@ -2,7 +2,6 @@ import "server-only";
 import { Readable } from "node:stream";
 import { NotFoundError } from "@/lib/errors";
 import { objectStore } from "../storage";
-import type { ByteRange } from "../storage/object-store";
 
 /** Bytes to send from the object store: a whole object or one range of it (a tile in a pack). */
 export type StoredBody = { size: number; open(): Promise<Readable | null> };
@@ -11,11 +10,6 @@ export type StoredBody = { size: number; open(): Promise<Readable | null> };
 export async function storedBody(key: string): Promise<StoredBody | null> {
   const s = await objectStore().stat(key);
   return s && { size: s.size, open: () => objectStore().read(key) };
-}
-
-/** One byte range of a stored object as a body. */
-export function storedRange(key: string, range: ByteRange): StoredBody {
-  return { size: range.end - range.start + 1, open: () => objectStore().read(key, range) };
 }
 
 /**

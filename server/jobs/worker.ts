@@ -152,8 +152,11 @@ export async function startJobWorkers(boss: PgBoss, db: Database, plans: WorkerP
   const handlers = plans.map((p) => p.handler);
   for (const { handler, count, pollSeconds } of plans) {
     for (let i = 0; i < count; i++) {
-      const id = await boss.work<JobData>(handler.kind, { includeMetadata: true, pollingIntervalSeconds: pollSeconds }, ([job]) =>
-        runAttempt(db, handler, job),
+      // pg-boss waits a polling interval after every fetch, even one that found a job: asking it
+      // again at once when a job ends drains a backlog (a burst of mail) at full speed.
+      let id = "";
+      id = await boss.work<JobData>(handler.kind, { includeMetadata: true, pollingIntervalSeconds: pollSeconds }, ([job]) =>
+        runAttempt(db, handler, job).finally(() => boss.notifyWorker(id)),
       );
       localWorkers().set(id, handler.kind);
     }

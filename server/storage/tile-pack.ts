@@ -2,7 +2,7 @@ import "server-only";
 import fs from "node:fs";
 import { readdir, readFile } from "node:fs/promises";
 import path from "node:path";
-import type { Readable } from "node:stream";
+import { Readable } from "node:stream";
 import type { PyramidDescription } from "@/lib/tiles/iiif";
 import { decodeFooter, encodeFooter, FOOTER_BYTES, parseIndex, type PackIndex } from "@/lib/tiles/tile-pack";
 import type { ObjectStore } from "./object-store";
@@ -93,4 +93,43 @@ export function tileRange(pack: OpenPack, tilePath: string): { start: number; en
   const span = Object.hasOwn(pack.index.tiles, tilePath) ? pack.index.tiles[tilePath] : undefined;
   if (!span) return null;
   return { start: span[0], end: span[0] + span[1] - 1, length: span[1] };
+}
+
+/**
+ * Hot tiles of packs in an S3-compatible store, kept in memory (bounded by bytes, least recently
+ * used out first). On the data dir the operating system's page cache keeps the tiles people are
+ * looking at in memory; a bucket has nothing of the kind, so without this every tile of a die
+ * many people pan over would be one more request to the store. Tiles never change under a pack's
+ * key and ETag, so nothing here can go stale.
+ */
+const HOT_TILE_BYTES = 96 * 1024 ** 2;
+const hotTiles = new Map<string, Buffer>();
+let hotBytes = 0;
+
+/** Opens one tile of a pack: from memory when hot (S3), else one range read of the store. */
+export async function readTile(store: ObjectStore, pack: OpenPack, tilePath: string): Promise<{ body: Readable; size: number } | null> {
+  const range = tileRange(pack, tilePath);
+  if (!range) return null;
+  if (store.kind === "local") {
+    const body = await store.read(pack.key, range);
+    return body ? { body, size: range.length } : null;
+  }
+  const id = `${pack.key}@${pack.etag}:${tilePath}`;
+  let bytes = hotTiles.get(id);
+  if (bytes) {
+    hotTiles.delete(id);
+    hotTiles.set(id, bytes);
+  } else {
+    const body = await store.read(pack.key, range);
+    if (!body) return null;
+    bytes = await readAll(body, `tile pack ${pack.key}`);
+    hotTiles.set(id, bytes);
+    hotBytes += bytes.length;
+    while (hotBytes > HOT_TILE_BYTES) {
+      const [oldest, b] = hotTiles.entries().next().value!;
+      hotTiles.delete(oldest);
+      hotBytes -= b.length;
+    }
+  }
+  return { body: Readable.from([bytes]), size: bytes.length };
 }

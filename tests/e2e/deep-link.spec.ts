@@ -1,5 +1,5 @@
 import { expect, test } from "@playwright/test";
-import { signInAs, waitForStillView } from "./helpers";
+import { signInAs, waitForStillView, gotoLive } from "./helpers";
 
 // A link to a thread (`/dies/{id}?thread=…`, as mailed with a mention) opens that thread. The
 // page must render the same on the server and in the browser (no hydration error), and a click
@@ -40,7 +40,7 @@ test("a remark link renders without hydration errors and the first click back to
     await route.continue();
   });
   errors.length = 0;
-  await page.goto(`/dies/${dieId}?thread=${threadId}`);
+  await gotoLive(page, `/dies/${dieId}?thread=${threadId}`);
   const heading = page.getByRole("heading", { name: /Remark \d+ on a region/ });
   await expect(heading).toBeVisible();
   await page.getByRole("button", { name: "← All remarks" }).click();

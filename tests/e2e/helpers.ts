@@ -43,3 +43,9 @@ export async function closeExtraContexts({ browser, context }: { browser: Browse
       .map((c) => c.close()),
   );
 }
+
+/** A full page load, then the moment its controls are live (html[data-hydrated], set by the root provider). */
+export async function gotoLive(page: Page, url: string) {
+  await page.goto(url);
+  await page.locator("html[data-hydrated]").waitFor({ state: "attached" });
+}

@@ -1,5 +1,5 @@
 import { expect, test, type Page } from "@playwright/test";
-import { signInAs } from "./helpers";
+import { signInAs, gotoLive } from "./helpers";
 
 // Rosa 1908; Grover, Inductance Calculations, 1946: L = 2e-7·l·[ln(2l/r) − 0.75] H for a round
 // wire in free space, computed here from the published formula, independent of the app.
@@ -146,7 +146,7 @@ test("the analyst reads the symmetry report of a die with an axis and one pad mo
     ]);
     return d.id;
   });
-  await page.goto(`/dies/${dieId}`);
+  await gotoLive(page, `/dies/${dieId}`);
   await page.getByRole("tab", { name: "Symmetry" }).click();
   const report = page.getByRole("region", { name: "Symmetry report" });
   await page.getByLabel("Tolerance (µm)").fill("1");

@@ -1,6 +1,6 @@
 import { expect, test, type Page } from "@playwright/test";
 import fs from "node:fs";
-import { signInAs, waitForStillView } from "./helpers";
+import { signInAs, waitForStillView, gotoLive } from "./helpers";
 import { NV24R_LAYOUT } from "../../lib/demo-die/layout";
 
 // Deep links without hydration errors, the resizable side panel and its tables, the readable
@@ -125,7 +125,7 @@ test("a link to a remark opens it without a hydration error", async ({ page }) =
   });
   const errors = collectErrors(page);
   for (let i = 0; i < 2; i++) {
-    await page.goto(`/dies/${dieId}?thread=${threadId}`);
+    await gotoLive(page, `/dies/${dieId}?thread=${threadId}`);
     await expect(page.getByText("Deep-link check: is the mixer core symmetric?")).toBeVisible({ timeout: 30_000 });
     // This die has no micrograph, so no viewer to wait for: wait for the page's requests instead.
     await page.waitForLoadState("networkidle");

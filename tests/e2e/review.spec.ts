@@ -1,5 +1,5 @@
 import { expect, test, type Browser, type Page } from "@playwright/test";
-import { closeExtraContexts, signInAs, waitForStillView } from "./helpers";
+import { closeExtraContexts, signInAs, waitForStillView, gotoLive } from "./helpers";
 import { NV24R_LAYOUT, padByLabel } from "../../lib/demo-die/layout";
 import { demoMicrographOptions } from "../../server/images/demo-die";
 import { placeDie, pxPerUmForWidth } from "../../lib/demo-die/placement";
@@ -149,12 +149,12 @@ test.describe.serial("check of the demo die", () => {
       },
       { caseId, name: `NV-24R die for review ${Date.now()}` },
     );
-    await analyst.goto(`/dies/${freshId}`);
+    await gotoLive(analyst, `/dies/${freshId}`);
     await analyst.getByRole("tab", { name: "Check & remarks" }).click();
     await analyst.getByRole("region", { name: "Check status" }).getByLabel("Message").fill("Pad map complete.");
     await analyst.getByRole("button", { name: "Send to checker" }).click();
     await expect(analyst.getByRole("region", { name: "Check status" }).getByText("With checker").first()).toBeVisible();
-    await reviewer.goto(`/dies/${freshId}`);
+    await gotoLive(reviewer, `/dies/${freshId}`);
     await reviewer.getByRole("tab", { name: "Check & remarks" }).click();
     await reviewer.getByRole("region", { name: "Check status" }).getByLabel("Message").fill("Checked against the bond diagram.");
     await reviewer.getByRole("button", { name: "Sign off" }).click();

@@ -1,7 +1,7 @@
 import { execFileSync } from "node:child_process";
 import fs from "node:fs";
 import { expect, test, type Browser, type Page } from "@playwright/test";
-import { closeExtraContexts, signInAs } from "./helpers";
+import { closeExtraContexts, signInAs, gotoLive } from "./helpers";
 
 // Sign-off that holds, in Chromium: the analyst sends a die to the checker, the reviewer
 // raises a remark and returns it, the analyst fixes and sends it again, the reviewer closes the
@@ -28,7 +28,7 @@ async function api<T>(page: Page, method: string, path: string, body?: unknown):
 }
 
 async function openCheck(page: Page, dieId: string, load = true) {
-  if (load) await page.goto(`/dies/${dieId}`);
+  if (load) await gotoLive(page, `/dies/${dieId}`);
   await page.getByRole("tab", { name: CHECK_TAB }).click();
   return page.getByRole("region", { name: "Check status" });
 }
@@ -105,7 +105,7 @@ test.describe.serial("sign-off that holds", () => {
     // The reviewer picks the pad in the markup table (the die has no photo yet), raises a
     // remark on it and returns the die.
     const reviewer = await as(browser, "reviewer");
-    await reviewer.goto(`/dies/${dieId}`);
+    await gotoLive(reviewer, `/dies/${dieId}`);
     await reviewer.getByRole("tab", { name: "Markup" }).click();
     await reviewer.getByRole("region", { name: "Markup table" }).getByRole("button", { name: "Pad", exact: true }).click();
     check = await openCheck(reviewer, dieId, false);

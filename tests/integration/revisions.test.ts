@@ -4,6 +4,7 @@ import { demoWorld, EVERYONE, freshCase } from "./fixtures";
 import { addPad, square } from "./review-support";
 import { makeJpeg, uploadForm } from "../support/images";
 import type { ApiClient } from "../support/client";
+import { waitForStatus } from "../support/micrographs";
 
 // Revisions: what was signed off stays signed off (issue #15 §2). Hashes are checked with
 // Node's own SHA-256 over the bytes served; canonical JSON against RFC 8785 §3.2 (no white
@@ -36,6 +37,8 @@ async function markedDie() {
       .id;
   const reference = await up("reference");
   const second = await up("second");
+  // Tiled before the checks compare "before" and "after" (tiling moves the rows meanwhile).
+  for (const id of [reference, second]) await waitForStatus(world.clients.analyst, id, "ready");
   return { dieId, padId, reference, second };
 }
 

@@ -94,7 +94,8 @@ describe.skipIf(inject("databaseKind") === "postgres")("tiling survives a crash 
         server = await startServer({ dataDir, env: { KERFLINE_SEED: "demo-records" } });
         ({ analyst } = await demoClients(server.url));
       }
-      const failed = (await analyst.get<{ status: string; error?: string }>(`/api/micrographs/${id}`)).body;
+      // The start-up after the third kill fails the job; its dead letter then marks the micrograph.
+      const failed = await waitForStatus(analyst, id, "failed", 60_000);
       expect(failed.status).toBe("failed");
       expect(failed.error).toMatch(/stopped 3 times/);
       expect(server.logs()).toMatch(/gave up 1 tiling job/);

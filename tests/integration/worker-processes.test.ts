@@ -1,12 +1,10 @@
 import { spawn, type ChildProcess } from "node:child_process";
 import fs from "node:fs";
 import path from "node:path";
-import pg from "pg";
 import sharp from "sharp";
 import { SMTPServer } from "smtp-server";
 import { simpleParser } from "mailparser";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
-import { expectedTilePaths } from "@/lib/tiles/iiif";
 import { freePort, startServer, tempDataDir, type RunningServer } from "../support/server";
 import { DEMO_EMAILS, demoClients } from "../support/client";
 import { uploadForm } from "../support/images";
@@ -63,18 +61,7 @@ describe("a layout of several processes", () => {
   });
 });
 
-/** A 20000 × 12000 px JPEG with structure, big enough that tiling takes many seconds. */
-async function bigJpeg(): Promise<Buffer> {
-  const tile = await sharp({ create: { width: 400, height: 400, channels: 3, background: { r: 120, g: 140, b: 100 } } })
-    .composite([{ input: { create: { width: 200, height: 120, channels: 3, background: { r: 220, g: 200, b: 120 } } }, left: 60, top: 90 }])
-    .png()
-    .toBuffer();
-  return sharp({ create: { width: 20000, height: 12000, channels: 3, background: { r: 40, g: 50, b: 45 } }, limitInputPixels: false })
-    .composite([{ input: tile, tile: true, blend: "over" }])
-    .jpeg({ quality: 80 })
-    .toBuffer();
-}
-
+// The kill -9 of a worker mid-tiling is in scale-out.test.ts (with S3 and two web servers).
 describe.skipIf(engine !== "postgres")("web servers with KERFLINE_JOBS=off and two workers on one PostgreSQL", () => {
   const received: { to: string; messageId: string }[] = [];
   let smtp: SMTPServer;
@@ -163,49 +150,4 @@ describe.skipIf(engine !== "postgres")("web servers with KERFLINE_JOBS=off and t
     await new Promise((r) => setTimeout(r, 4_000));
     expect(received.filter((m) => m.to.includes(DEMO_EMAILS.analyst))).toHaveLength(1);
   }, 60_000);
-
-  it("finishes a tiling job on the other worker after the one holding it is killed (SIGKILL), never serving a partial pyramid", async () => {
-    const dieId = await freshDie("Killed worker");
-    const up = await clients.analyst.upload<{ id: string }>(`/api/dies/${dieId}/micrographs`, uploadForm(await bigJpeg(), "big.jpg", { scaleUmPerPx: "0.5" }));
-    expect(up.status).toBe(202);
-    const id = up.body.id;
-    // The holder, from its heartbeat (host:pid), once the pyramid is under way.
-    const db = new pg.Client({ connectionString: databaseUrl });
-    await db.connect();
-    let holder: Worker | undefined;
-    try {
-      const deadline = Date.now() + 120_000;
-      while (!holder) {
-        const m = (await clients.analyst.get<{ status: string; progress: number }>(`/api/micrographs/${id}`)).body;
-        if (m.status === "ready") throw new Error("tiling finished before the kill: make the test image larger");
-        const beat = await db.query<{ worker: string }>("select worker from job_heartbeats where queue = 'tile'");
-        const pid = Number(beat.rows[0]?.worker.split(":").pop());
-        if (m.status === "tiling" && m.progress >= 3 && pid) holder = workers.find((w) => w.proc.pid === pid);
-        if (Date.now() > deadline) throw new Error(`never saw tiling under way: ${JSON.stringify(m)}`);
-        await new Promise((r) => setTimeout(r, 100));
-      }
-    } finally {
-      await db.end();
-    }
-    holder.proc.kill("SIGKILL");
-    await holder.exited;
-    const other = workers.find((w) => w !== holder && w.proc.exitCode === null)!;
-    expect(other).toBeTruthy();
-    // Until it is ready, the pyramid is never served (IIIF info and tiles answer 409).
-    const deadline = Date.now() + 240_000;
-    for (;;) {
-      const m = (await clients.analyst.get<{ status: string; error?: string; progress: number }>(`/api/micrographs/${id}`)).body;
-      if (m.status === "ready") break;
-      expect(m.status).not.toBe("failed");
-      expect((await clients.analyst.get(`/api/micrographs/${id}/iiif/info.json`)).status).toBe(409);
-      if (Date.now() > deadline) throw new Error(`still ${m.status} (${m.progress} %) after the kill:\n${other.logs()}`);
-      await new Promise((r) => setTimeout(r, 1_000));
-    }
-    expect(other.logs()).toMatch(/failed 1 job\(s\) whose worker stopped \(1 to be retried\)/);
-    const tilesDir = path.join(dataDir, "tiles", dieId);
-    // Every tile of the IIIF 3.0 algorithm is there, and no work folder is left.
-    for (const p of expectedTilePaths(20000, 12000, 512)) expect(fs.existsSync(path.join(tilesDir, id, p)), p).toBe(true);
-    expect(fs.readdirSync(tilesDir).filter((n) => n.includes("partial"))).toEqual([]);
-    expect((await clients.analyst.get(`/api/micrographs/${id}/iiif/info.json`)).status).toBe(200);
-  }, 420_000);
 });

@@ -4,10 +4,10 @@ import { loadMicrograph } from "@/server/access/micrographs";
 import { uuidSchema } from "@/lib/validation/common";
 import { micrographKeys } from "@/server/storage/keys";
 import { objectStore } from "@/server/storage";
-import { openTilePack, tileRange } from "@/server/storage/tile-pack";
+import { openTilePack, readTile, tileRange } from "@/server/storage/tile-pack";
 import { parseTileRequest, resolveTilePath } from "@/lib/tiles/iiif";
 import { AppError, BadRequestError, NotFoundError } from "@/lib/errors";
-import { serveImmutable, storedRange } from "@/server/http/serve-file";
+import { serveImmutable } from "@/server/http/serve-file";
 import { approveTileReads } from "@/server/http/fast-tiles";
 
 // Every segment is validated: only canonical IIIF numbers reach the pack's index.
@@ -30,16 +30,9 @@ export const GET = apiRoute({ params }, async ({ db, actor, params, req }) => {
   const pack = await openTilePack(store, key);
   if (!pack) throw new NotFoundError("That tile");
   const rel = resolveTilePath(request, pack.index.pyramid);
-  const range = rel && tileRange(pack, rel);
-  if (!range) throw new NotFoundError("That tile");
+  if (!rel || !tileRange(pack, rel)) throw new NotFoundError("That tile");
   // The next tiles of this pyramid for this session may take the fast path (server/http/fast-tiles.ts).
-  approveTileReads(req.headers.get("cookie"), row.id, {
-    description: pack.index.pyramid,
-    open: async (tile) => {
-      const r = tileRange(pack, tile);
-      const body = r && (await store.read(key, r));
-      return body ? { body, size: r.length } : null;
-    },
-  });
-  return serveImmutable(req, storedRange(key, range), `${row.id}/${params.region}/${params.size}`, "image/jpeg");
+  approveTileReads(req.headers.get("cookie"), row.id, { description: pack.index.pyramid, open: (tile) => readTile(store, pack, tile) });
+  const body = { size: tileRange(pack, rel)!.length, open: async () => (await readTile(store, pack, rel))?.body ?? null };
+  return serveImmutable(req, body, `${row.id}/${params.region}/${params.size}`, "image/jpeg");
 });

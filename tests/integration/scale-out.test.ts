@@ -1,37 +1,19 @@
 import { afterAll, beforeAll, beforeEach, describe, expect, it, onTestFailed } from "vitest";
-import { spawn, type ChildProcess } from "node:child_process";
 import fs from "node:fs";
 import path from "node:path";
 import sharp from "sharp";
-import { SMTPServer } from "smtp-server";
-import { simpleParser } from "mailparser";
-import { freePort, startServer, tempDataDir, type RunningServer } from "../support/server";
+import { startServer, tempDataDir, type RunningServer } from "../support/server";
 import { ApiClient, DEMO_EMAILS } from "../support/client";
 import { startFakeS3, type FakeS3 } from "../support/s3-fake";
 import { freshPostgresDatabase } from "../support/postgres";
 import { tusClient } from "../support/tus-client";
+import { spawnWorker, startSmtpSink, type Worker } from "../support/processes";
 import { addPad, square } from "./review-support";
 
 // The README's "Scaling out" set-up, run for real: one PostgreSQL 15 server, one S3-compatible
 // store (s3rver), two web servers with KERFLINE_JOBS=off and two `npm run worker` processes,
 // mail to an SMTP server over a socket. Runs in the PostgreSQL tier (KERFLINE_TEST_DATABASE_URL).
 const databaseUrl = process.env.KERFLINE_TEST_DATABASE_URL;
-const ROOT = path.resolve(import.meta.dirname, "../..");
-
-type Worker = { proc: ChildProcess; logs: () => string; exited: Promise<number> };
-
-function startWorker(env: Record<string, string>): Worker {
-  const proc = spawn(process.execPath, ["--conditions=react-server", "--import", "tsx", path.join(ROOT, "scripts/worker.ts")], {
-    cwd: ROOT,
-    env: { ...process.env, NODE_ENV: "production", ...env },
-    stdio: ["ignore", "pipe", "pipe"],
-  });
-  let out = "";
-  proc.stdout!.on("data", (d) => (out += d));
-  proc.stderr!.on("data", (d) => (out += d));
-  const exited = new Promise<number>((resolve) => proc.once("exit", (code) => resolve(code ?? 1)));
-  return { proc, logs: () => out, exited };
-}
 
 /** CPU time (user + system, clock ticks) a process has used so far, from /proc. */
 function cpuTicks(pid: number): number {
@@ -58,8 +40,7 @@ function filesBelow(dir: string): string[] {
 
 describe.skipIf(!databaseUrl)("scale-out: PostgreSQL + S3 + two web servers + two workers", () => {
   let s3: FakeS3;
-  let smtp: SMTPServer;
-  const mails: { to: string; subject: string }[] = [];
+  let smtp: Awaited<ReturnType<typeof startSmtpSink>>;
   let webA: RunningServer;
   let webB: RunningServer;
   const workers: Worker[] = [];
@@ -67,27 +48,12 @@ describe.skipIf(!databaseUrl)("scale-out: PostgreSQL + S3 + two web servers + tw
 
   beforeAll(async () => {
     s3 = await startFakeS3("kerfline-scale");
-    const smtpPort = await freePort();
-    smtp = new SMTPServer({
-      authOptional: true,
-      disabledCommands: ["STARTTLS", "AUTH"],
-      logger: false,
-      onData(stream, _s, cb) {
-        simpleParser(stream).then(
-          (m) => {
-            mails.push({ to: Array.isArray(m.to) ? m.to.map((t) => t.text).join(",") : (m.to?.text ?? ""), subject: m.subject ?? "" });
-            cb();
-          },
-          (e: Error) => cb(e),
-        );
-      },
-    });
-    await new Promise<void>((r) => smtp.listen(smtpPort, "127.0.0.1", () => r()));
+    smtp = await startSmtpSink();
     shared = {
       DATABASE_URL: await freshPostgresDatabase("scale_out"),
       KERFLINE_JOB_STALE_SECONDS: "10",
       AUTH_SECRET: "scale-out-test-secret-0123456789abcdef",
-      SMTP_URL: `smtp://127.0.0.1:${smtpPort}`,
+      SMTP_URL: smtp.url,
       KERFLINE_SEED: "demo-records",
       KERFLINE_MAIL_POLL_MS: "200",
       ...s3.env,
@@ -95,7 +61,7 @@ describe.skipIf(!databaseUrl)("scale-out: PostgreSQL + S3 + two web servers + tw
     // One web server first: it applies the migrations and seeds; the rest start on a ready database.
     webA = await startServer({ env: { ...shared, KERFLINE_JOBS: "off" } });
     webB = await startServer({ env: { ...shared, KERFLINE_JOBS: "off" } });
-    for (let i = 0; i < 2; i++) workers.push(startWorker({ ...shared, KERFLINE_DATA_DIR: tempDataDir("kerfline-worker-"), KERFLINE_WORKER_CONCURRENCY: "1" }));
+    for (let i = 0; i < 2; i++) workers.push(spawnWorker({ ...shared, KERFLINE_DATA_DIR: tempDataDir("kerfline-worker-"), KERFLINE_WORKER_CONCURRENCY: "1" }));
   }, 240_000);
 
   // What the workers said, when a test fails: they run in processes of their own.
@@ -105,7 +71,7 @@ describe.skipIf(!databaseUrl)("scale-out: PostgreSQL + S3 + two web servers + tw
     for (const w of workers) if (w.proc.exitCode === null) w.proc.kill("SIGKILL");
     await webA?.stop();
     await webB?.stop();
-    await new Promise<void>((r) => (smtp ? smtp.close(() => r()) : r()));
+    await smtp?.stop();
     await s3?.stop();
   });
 
@@ -212,10 +178,10 @@ describe.skipIf(!databaseUrl)("scale-out: PostgreSQL + S3 + two web servers + tw
     const words = `bond lift near VB2 ${Date.now()}`;
     const t = await reviewer.request("POST", `/api/dies/${d.body.id}/threads`, { region: square(100, 100), body: `@Demo Analyst ${words}` });
     expect(t.status).toBe(201);
-    await until("the mention mail", async () => mails.some((m) => m.to.includes(DEMO_EMAILS.analyst)), 60_000);
+    await until("the mention mail", async () => smtp.received.some((m) => m.to.includes(DEMO_EMAILS.analyst)), 60_000);
     // Several sender rounds on every process later, still one copy.
     await new Promise((r) => setTimeout(r, 3000));
-    expect(mails.filter((m) => m.to.includes(DEMO_EMAILS.analyst)).length).toBe(1);
+    expect(smtp.received.filter((m) => m.to.includes(DEMO_EMAILS.analyst)).length).toBe(1);
   });
 
   it("resumes an upload begun on A through B (tus over the shared bucket and lock)", async () => {

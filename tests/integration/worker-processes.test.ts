@@ -1,37 +1,18 @@
-import { spawn, type ChildProcess } from "node:child_process";
 import fs from "node:fs";
 import path from "node:path";
 import sharp from "sharp";
-import { SMTPServer } from "smtp-server";
-import { simpleParser } from "mailparser";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
-import { freePort, startServer, tempDataDir, type RunningServer } from "../support/server";
+import { startServer, tempDataDir, type RunningServer } from "../support/server";
 import { DEMO_EMAILS, demoClients } from "../support/client";
 import { uploadForm } from "../support/images";
 import { waitForStatus } from "../support/micrographs";
 import { freshPostgresDatabase } from "../support/postgres";
+import { spawnWorker, startSmtpSink, type Worker } from "../support/processes";
 import { square } from "./review-support";
 
 // Web servers with KERFLINE_JOBS=off and separate `npm run worker` processes on one PostgreSQL
 // database and one data dir, as the scale-out layout runs them. Real processes, real signals.
-const ROOT = path.resolve(import.meta.dirname, "../..");
 const engine = inject("databaseKind");
-
-type Worker = { proc: ChildProcess; logs: () => string; exited: Promise<number> };
-
-/** Starts `npm run worker` (the same command line) with `env`; resolves once it says it is ready. */
-function spawnWorker(env: Record<string, string>): Worker {
-  const proc = spawn(process.execPath, ["--conditions=react-server", "--import", "tsx", "scripts/worker.ts"], {
-    cwd: ROOT,
-    env: { ...process.env, NODE_ENV: "production", ...env },
-    stdio: ["ignore", "pipe", "pipe"],
-  });
-  let out = "";
-  proc.stdout!.on("data", (d) => (out += d));
-  proc.stderr!.on("data", (d) => (out += d));
-  const exited = new Promise<number>((resolve) => proc.once("exit", (code, signal) => resolve(code ?? (signal ? 128 : 1))));
-  return { proc, logs: () => out, exited };
-}
 
 async function ready(w: Worker): Promise<Worker> {
   const deadline = Date.now() + 60_000;
@@ -63,8 +44,7 @@ describe("a layout of several processes", () => {
 
 // The kill -9 of a worker mid-tiling is in scale-out.test.ts (with S3 and two web servers).
 describe.skipIf(engine !== "postgres")("web servers with KERFLINE_JOBS=off and two workers on one PostgreSQL", () => {
-  const received: { to: string; messageId: string }[] = [];
-  let smtp: SMTPServer;
+  let smtp: Awaited<ReturnType<typeof startSmtpSink>>;
   let web: RunningServer;
   let databaseUrl: string;
   let dataDir: string;
@@ -74,25 +54,10 @@ describe.skipIf(engine !== "postgres")("web servers with KERFLINE_JOBS=off and t
   let teamId: string;
 
   beforeAll(async () => {
-    const smtpPort = await freePort();
-    smtp = new SMTPServer({
-      authOptional: true,
-      disabledCommands: ["STARTTLS", "AUTH"],
-      logger: false,
-      onData(stream, _s, cb) {
-        simpleParser(stream).then(
-          (m) => {
-            received.push({ to: Array.isArray(m.to) ? m.to.map((t) => t.text).join(",") : (m.to?.text ?? ""), messageId: m.messageId ?? "" });
-            cb();
-          },
-          (e: Error) => cb(e),
-        );
-      },
-    });
-    await new Promise<void>((r) => smtp.listen(smtpPort, "127.0.0.1", () => r()));
+    smtp = await startSmtpSink();
     databaseUrl = await freshPostgresDatabase("jobs_processes");
     dataDir = tempDataDir();
-    shared = { DATABASE_URL: databaseUrl, KERFLINE_DATA_DIR: dataDir, SMTP_URL: `smtp://127.0.0.1:${smtpPort}`, KERFLINE_JOB_STALE_SECONDS: "10" };
+    shared = { DATABASE_URL: databaseUrl, KERFLINE_DATA_DIR: dataDir, SMTP_URL: smtp.url, KERFLINE_JOB_STALE_SECONDS: "10" };
     web = await startServer({ dataDir, env: { ...shared, KERFLINE_JOBS: "off", KERFLINE_SEED: "demo-records" } });
     clients = await demoClients(web.url);
     teamId = (await clients.analyst.get<{ teams: { id: string }[] }>("/api/me")).body.teams[0].id;
@@ -102,7 +67,7 @@ describe.skipIf(engine !== "postgres")("web servers with KERFLINE_JOBS=off and t
     for (const w of workers) if (w.proc.exitCode === null) w.proc.kill("SIGTERM");
     await Promise.all(workers.map((w) => w.exited));
     await web?.stop();
-    await new Promise<void>((r) => (smtp ? smtp.close(() => r()) : r()));
+    await smtp?.stop();
   });
 
   async function freshDie(title: string): Promise<string> {
@@ -142,12 +107,12 @@ describe.skipIf(engine !== "postgres")("web servers with KERFLINE_JOBS=off and t
     });
     expect(t.status).toBe(201);
     const deadline = Date.now() + 30_000;
-    while (!received.some((m) => m.to.includes(DEMO_EMAILS.analyst))) {
+    while (!smtp.received.some((m) => m.to.includes(DEMO_EMAILS.analyst))) {
       if (Date.now() > deadline) throw new Error("the mention mail never arrived");
       await new Promise((r) => setTimeout(r, 200));
     }
     // Several polling rounds of both workers later, still one copy.
     await new Promise((r) => setTimeout(r, 4_000));
-    expect(received.filter((m) => m.to.includes(DEMO_EMAILS.analyst))).toHaveLength(1);
+    expect(smtp.received.filter((m) => m.to.includes(DEMO_EMAILS.analyst))).toHaveLength(1);
   }, 60_000);
 });

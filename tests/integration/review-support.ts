@@ -42,7 +42,7 @@ export async function addPad(editor: ApiClient, dieId: string, x = 100, y = 100)
 }
 
 /** Polls the owner's local mailbox until a message to `to` that matches (and whose text holds `textIncludes`) arrives. */
-export async function waitForMail(owner: ApiClient, to: string, match: (m: MailEntry) => boolean, textIncludes = "", timeoutMs = 20_000): Promise<StoredMail> {
+export async function waitForMail(owner: ApiClient, to: string, match: (m: MailEntry) => boolean, textIncludes = "", timeoutMs = 60_000): Promise<StoredMail> {
   const deadline = Date.now() + timeoutMs;
   for (;;) {
     const list = await owner.get<MailEntry[]>("/api/mailbox");

@@ -24,11 +24,18 @@ async function bigJpeg(): Promise<Buffer> {
 type Client = Awaited<ReturnType<typeof demoClients>>["analyst"];
 
 /** Waits until the pyramid of `id` is under way (tiling, at least 3 %). */
-async function waitUnderWay(analyst: Client, id: string): Promise<void> {
+/**
+ * Waits until an attempt is under way. After a restart the row still shows the killed attempt's
+ * progress while the retry waits out its delay, so with `killedAt` it first waits for the new
+ * attempt to reset it (a kill before that would not cost an attempt). Returns the progress seen.
+ */
+async function waitUnderWay(analyst: Client, id: string, killedAt?: number): Promise<number> {
   const deadline = Date.now() + 90_000;
+  let fresh = killedAt === undefined;
   for (;;) {
     const m = (await analyst.get<{ status: string; progress: number }>(`/api/micrographs/${id}`)).body;
-    if (m.status === "tiling" && m.progress >= 3) return;
+    if (!fresh && m.progress < killedAt!) fresh = true;
+    if (fresh && m.status === "tiling" && m.progress >= 3) return m.progress;
     if (m.status === "ready") throw new Error("tiling finished before the kill: make the test image larger");
     if (Date.now() > deadline) throw new Error(`never saw tiling under way: ${JSON.stringify(m)}`);
     await new Promise((r) => setTimeout(r, 50));
@@ -88,8 +95,9 @@ describe.skipIf(inject("databaseKind") === "postgres")("tiling survives a crash 
       const up = await analyst.upload<{ id: string }>(`/api/dies/${d.body.id}/micrographs`, uploadForm(image, "big.jpg", { scaleUmPerPx: "0.5" }));
       expect(up.status).toBe(202);
       const id = up.body.id;
+      let killedAt: number | undefined;
       for (let kill = 1; kill <= 3; kill++) {
-        await waitUnderWay(analyst, id);
+        killedAt = await waitUnderWay(analyst, id, killedAt);
         await server.kill();
         server = await startServer({ dataDir, env: { KERFLINE_SEED: "demo-records" } });
         ({ analyst } = await demoClients(server.url));

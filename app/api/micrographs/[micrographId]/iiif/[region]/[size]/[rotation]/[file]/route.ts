@@ -30,9 +30,10 @@ export const GET = apiRoute({ params }, async ({ db, actor, params, req }) => {
   const pack = await openTilePack(store, key);
   if (!pack) throw new NotFoundError("That tile");
   const rel = resolveTilePath(request, pack.index.pyramid);
-  if (!rel || !tileRange(pack, rel)) throw new NotFoundError("That tile");
+  const range = rel && tileRange(pack, rel);
+  if (!rel || !range) throw new NotFoundError("That tile");
   // The next tiles of this pyramid for this session may take the fast path (server/http/fast-tiles.ts).
   approveTileReads(req.headers.get("cookie"), row.id, { description: pack.index.pyramid, open: (tile) => readTile(store, pack, tile) });
-  const body = { size: tileRange(pack, rel)!.length, open: async () => (await readTile(store, pack, rel))?.body ?? null };
+  const body = { size: range.length, open: async () => (await readTile(store, pack, rel))?.body ?? null };
   return serveImmutable(req, body, `${row.id}/${params.region}/${params.size}`, "image/jpeg");
 });

@@ -1,7 +1,7 @@
 import "server-only";
 import { objectStore } from "../storage";
 import { derivedKeys, diePrefixes, micrographKeys } from "../storage/keys";
-import { forgetTilePack } from "../storage/tile-pack";
+import { forgetTilePack, forgetTilePacksUnder } from "../storage/tile-pack";
 
 /**
  * Removes every object a die owns (originals, tiles, exports) after its rows are gone.
@@ -10,7 +10,10 @@ import { forgetTilePack } from "../storage/tile-pack";
 export async function removeDieFiles(dieIds: string[]): Promise<void> {
   for (const id of dieIds) {
     if (!/^[0-9a-f-]{36}$/i.test(id)) continue;
-    for (const prefix of diePrefixes(id)) await objectStore().removePrefix(prefix);
+    for (const prefix of diePrefixes(id)) {
+      await objectStore().removePrefix(prefix);
+      forgetTilePacksUnder(prefix);
+    }
   }
 }
 

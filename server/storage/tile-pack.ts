@@ -83,9 +83,19 @@ export async function openTilePack(store: ObjectStore, key: string): Promise<Ope
   return opened;
 }
 
-/** Forgets a pack's index (after removing the pack). */
+/** Forgets a pack's index and its hot tiles (after removing the pack), so nothing of it is served from memory. */
 export function forgetTilePack(key: string): void {
-  cache.delete(key);
+  forgetTilePacksUnder(key);
+}
+
+/** Forgets every pack whose key starts with the prefix (a deleted die's tiles/<die>/). */
+export function forgetTilePacksUnder(prefix: string): void {
+  for (const k of [...cache.keys()]) if (k.startsWith(prefix)) cache.delete(k);
+  for (const [id, b] of [...hotTiles]) {
+    if (!id.startsWith(prefix)) continue;
+    hotTiles.delete(id);
+    hotBytes -= b.length;
+  }
 }
 
 /** One tile of an opened pack as a byte range of the pack, or null when the pack has no such tile. */

@@ -108,6 +108,9 @@ describe("storage in an S3-compatible bucket", () => {
     ).toBe("%PDF-");
 
     expect((await owner.request("DELETE", `/api/dies/${dieId}`)).status).toBe(204);
+    // The tile was approved for the fast path and is hot in memory; deletion forgets both, so
+    // it is gone at once, not after the approval lapses (ground truth: the die no longer exists).
+    expect((await fetch(tileUrl, { headers: { cookie } })).status).toBe(404);
     for (const area of ["originals", "tiles", "exports"]) expect(await bucketKeys(`${area}/${dieId}/`)).toEqual([]);
 
     // Nothing but scratch (emptied after every job) and the embedded database's own files.

@@ -8,7 +8,7 @@ import { captureGrid, type CaptureOrder } from "@/lib/mosaic/grid";
  */
 export function CapturePathDiagram({ rows, cols, order }: { rows: number; cols: number; order: CaptureOrder }) {
   if (!Number.isInteger(rows) || !Number.isInteger(cols) || rows < 1 || cols < 1 || rows > 50 || cols > 50) return null;
-  const cell = Math.max(8, Math.min(36, Math.floor(240 / Math.max(rows, cols))));
+  const cell = Math.max(8, Math.min(44, Math.floor(260 / Math.max(rows, cols))));
   const cells = captureGrid(rows, cols, order);
   const centre = (r: number, c: number) => [c * cell + cell / 2 + 1, r * cell + cell / 2 + 1] as const;
   const path = cells.map((g) => centre(g.row, g.col).join(",")).join(" ");

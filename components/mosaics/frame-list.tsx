@@ -73,7 +73,11 @@ export function FrameList({
           <p id="frame-order-help" className="text-xs text-ink-400">
             Sorted by file name. Move a frame with its buttons, or focus a row and press Alt+↑ / Alt+↓.
           </p>
-          <ol aria-label="Frames in capture order" aria-describedby="frame-order-help" className="flex max-h-56 flex-col overflow-y-auto rounded-md border border-ink-800">
+          <ol
+            aria-label="Frames in capture order"
+            aria-describedby="frame-order-help"
+            className="flex max-h-56 flex-col overflow-y-auto rounded-md border border-ink-800"
+          >
             {frames.map((f, i) => (
               <li
                 key={f.key}
@@ -84,8 +88,10 @@ export function FrameList({
                 aria-label={`Frame ${i + 1}: ${f.file.name}`}
                 onKeyDown={(e) => {
                   if (disabled || !e.altKey) return;
-                  if (e.key === "ArrowUp") (e.preventDefault(), move(i, -1));
-                  if (e.key === "ArrowDown") (e.preventDefault(), move(i, 1));
+                  const by = e.key === "ArrowUp" ? -1 : e.key === "ArrowDown" ? 1 : 0;
+                  if (!by) return;
+                  e.preventDefault();
+                  move(i, by);
                 }}
                 className="flex items-center gap-2 border-b border-ink-800 px-2 py-1 text-xs last:border-b-0 focus:bg-ink-800 focus:outline-none"
               >
@@ -100,10 +106,20 @@ export function FrameList({
                     <Button className="px-1.5 py-0.5 text-xs" aria-label={`Move ${f.file.name} up`} disabled={disabled || i === 0} onClick={() => move(i, -1)}>
                       ↑
                     </Button>
-                    <Button className="px-1.5 py-0.5 text-xs" aria-label={`Move ${f.file.name} down`} disabled={disabled || i === frames.length - 1} onClick={() => move(i, 1)}>
+                    <Button
+                      className="px-1.5 py-0.5 text-xs"
+                      aria-label={`Move ${f.file.name} down`}
+                      disabled={disabled || i === frames.length - 1}
+                      onClick={() => move(i, 1)}
+                    >
                       ↓
                     </Button>
-                    <Button className="px-1.5 py-0.5 text-xs" aria-label={`Remove ${f.file.name}`} disabled={disabled} onClick={() => onChange(frames.filter((x) => x.key !== f.key))}>
+                    <Button
+                      className="px-1.5 py-0.5 text-xs"
+                      aria-label={`Remove ${f.file.name}`}
+                      disabled={disabled}
+                      onClick={() => onChange(frames.filter((x) => x.key !== f.key))}
+                    >
                       ✕
                     </Button>
                   </span>

@@ -21,15 +21,29 @@ function Outlines({ api, mosaic }: { api: ViewerApi; mosaic: MosaicDto }) {
   const w = mosaic.frameWidth;
   const h = mosaic.frameHeight;
   return (
-    <svg data-testid="frame-outlines" className="pointer-events-none absolute inset-0 z-10 h-full w-full overflow-visible" aria-label="Frame outlines and pair quality">
+    <svg
+      data-testid="frame-outlines"
+      className="pointer-events-none absolute inset-0 z-10 h-full w-full overflow-visible"
+      aria-label="Frame outlines and pair quality"
+    >
       {mosaic.frames.map((f) => {
         const a = at(f.x, f.y);
         const b = at(f.x + w, f.y + h);
+        const mid = at(f.x + w / 2, f.y + h / 2);
         return (
           <g key={f.index}>
             <rect x={a.x} y={a.y} width={b.x - a.x} height={b.y - a.y} fill="none" stroke="rgba(0,0,0,0.6)" strokeWidth={3} />
-            <rect x={a.x} y={a.y} width={b.x - a.x} height={b.y - a.y} fill="none" className="stroke-sky-300" strokeWidth={1} />
-            <text x={a.x + 4} y={a.y + 14} className="fill-sky-200 text-[11px]" paintOrder="stroke" stroke="rgba(0,0,0,0.7)" strokeWidth={3}>
+            <rect x={a.x} y={a.y} width={b.x - a.x} height={b.y - a.y} fill="none" className="stroke-sky-300" strokeWidth={1.5} />
+            <text
+              x={mid.x}
+              y={mid.y}
+              textAnchor="middle"
+              dominantBaseline="central"
+              className="fill-sky-200 text-xs font-semibold"
+              paintOrder="stroke"
+              stroke="rgba(0,0,0,0.75)"
+              strokeWidth={3}
+            >
               {f.index + 1}
             </text>
           </g>
@@ -47,7 +61,16 @@ function Outlines({ api, mosaic }: { api: ViewerApi; mosaic: MosaicDto }) {
           <g key={`${p.a}-${p.b}`} className="pointer-events-auto cursor-help" data-pair={`${p.a}-${p.b}`} data-weak={weak}>
             <title>{title}</title>
             {weak ? (
-              <rect x={c.x - 6} y={c.y - 6} width={12} height={12} transform={`rotate(45 ${c.x} ${c.y})`} className="fill-amber-400 stroke-black" strokeWidth={1} strokeDasharray="2 1" />
+              <rect
+                x={c.x - 6}
+                y={c.y - 6}
+                width={12}
+                height={12}
+                transform={`rotate(45 ${c.x} ${c.y})`}
+                className="fill-amber-400 stroke-black"
+                strokeWidth={1}
+                strokeDasharray="2 1"
+              />
             ) : (
               <circle cx={c.x} cy={c.y} r={5} className="fill-emerald-400 stroke-black" strokeWidth={1} />
             )}

@@ -13,8 +13,7 @@ import { isWeakPair } from "./frame-outlines";
 
 const COLUMNS: ColumnDef<MosaicPairDto, unknown>[] = [
   { id: "pair", header: "Frames", accessorFn: (p) => `${p.a + 1}–${p.b + 1}`, sortingFn: (x, y) => x.original.a - y.original.a || x.original.b - y.original.b },
-  { id: "dx", header: "dx (px)", accessorFn: (p) => p.dx, cell: (c) => (c.getValue() as number).toFixed(1) },
-  { id: "dy", header: "dy (px)", accessorFn: (p) => p.dy, cell: (c) => (c.getValue() as number).toFixed(1) },
+  { id: "shift", header: "dx, dy (px)", accessorFn: (p) => `${p.dx.toFixed(1)}, ${p.dy.toFixed(1)}`, enableSorting: false },
   { id: "peak", header: "Peak", accessorFn: (p) => p.peak, cell: (c) => (c.getValue() as number).toFixed(3) },
   {
     id: "used",
@@ -63,7 +62,11 @@ function StitchAgain({ m }: { m: MicrographDto }) {
       </label>
       <label className="flex flex-col gap-1 text-xs text-ink-300">
         Order
-        <select value={order} onChange={(e) => setOrder(e.target.value as typeof order)} className="rounded-md border border-ink-700 bg-ink-900 px-2 py-1 text-sm">
+        <select
+          value={order}
+          onChange={(e) => setOrder(e.target.value as typeof order)}
+          className="rounded-md border border-ink-700 bg-ink-900 px-2 py-1 text-sm"
+        >
           <option value="serpentine">Serpentine</option>
           <option value="rows">Rows</option>
         </select>
@@ -89,7 +92,8 @@ export function MosaicPanel({ micrograph: m, editable }: { micrograph: Micrograp
     <section aria-label="Mosaic" className="flex flex-col gap-2">
       <h2 className="text-sm font-semibold">Mosaic</h2>
       <p className="text-xs text-ink-300">
-        {mo.rows} × {mo.cols} frames of {mo.frameWidth} × {mo.frameHeight} px, {mo.order === "serpentine" ? "serpentine" : "row by row"}, {mo.overlapPercent} % overlap
+        {mo.rows} × {mo.cols} frames of {mo.frameWidth} × {mo.frameHeight} px, {mo.order === "serpentine" ? "serpentine" : "row by row"}, {mo.overlapPercent} %
+        overlap
         {mo.flatField ? ", flat-field corrected" : ""}.
         {mo.residualPx && (
           <>

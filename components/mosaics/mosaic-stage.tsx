@@ -3,7 +3,7 @@
 import type { MicrographDto, MosaicStage } from "@/lib/dto/micrographs";
 
 /** The stages a mosaic goes through, in order, with the words the user reads. */
-export const STAGE_STEPS = [
+const STAGE_STEPS = [
   { stage: "checking", label: "Checking frames" },
   { stage: "registering", label: "Registering pairs" },
   { stage: "placing", label: "Placing frames" },
@@ -32,7 +32,10 @@ export function MosaicStageLine({ m }: { m: MicrographDto }) {
     <span className="flex flex-col gap-1" data-testid="mosaic-stage">
       <span className="text-ink-300">
         {prefix}
-        {step.label} {percent} % <span className="text-ink-500">(stage {Math.min(index + 1, STAGE_STEPS.length)} of {STAGE_STEPS.length})</span>
+        {step.label} {percent} %{" "}
+        <span className="text-ink-500">
+          (stage {Math.min(index + 1, STAGE_STEPS.length)} of {STAGE_STEPS.length})
+        </span>
       </span>
       <progress aria-label={`${step.label} progress of ${m.label}`} max={100} value={percent} className="h-1.5 w-full accent-kerf-500" />
     </span>
@@ -40,7 +43,8 @@ export function MosaicStageLine({ m }: { m: MicrographDto }) {
 }
 
 /** Whether the list should show the stage instead of the ordinary tiling status. */
-export const showsStage = (m: MicrographDto) => !!m.mosaic && m.status !== "failed" && (m.mosaic.restitching || (m.status !== "ready" && m.mosaic.stage !== "done"));
+export const showsStage = (m: MicrographDto) =>
+  !!m.mosaic && m.status !== "failed" && (m.mosaic.restitching || (m.status !== "ready" && m.mosaic.stage !== "done"));
 
 /** The stages as a checklist (the upload dialog, after the frames are sent): done, under way, to come. */
 export function MosaicStageSteps({ m }: { m: MicrographDto }) {
@@ -50,7 +54,11 @@ export function MosaicStageSteps({ m }: { m: MicrographDto }) {
       {STAGE_STEPS.map((s, i) => {
         const state = i < index ? "done" : i === index ? "current" : "waiting";
         return (
-          <li key={s.stage} data-state={state} className={`flex items-center gap-2 ${state === "waiting" ? "text-ink-500" : state === "done" ? "text-ok-400" : "text-ink-100"}`}>
+          <li
+            key={s.stage}
+            data-state={state}
+            className={`flex items-center gap-2 ${state === "waiting" ? "text-ink-500" : state === "done" ? "text-ok-400" : "text-ink-100"}`}
+          >
             <span aria-hidden="true" className="w-4 text-center">
               {state === "done" ? "✓" : state === "current" ? "›" : "·"}
             </span>

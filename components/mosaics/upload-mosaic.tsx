@@ -1,7 +1,7 @@
 "use client";
 
 import { useState } from "react";
-import { useForm } from "react-hook-form";
+import { useForm, useWatch } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { z } from "zod";
 import { Button } from "@/components/ui/button";
@@ -47,16 +47,17 @@ export function UploadMosaic({
   const [frames, setFrames] = useState<PickedFrame[]>([]);
   const [error, setError] = useState<string | null>(null);
   const upload = useMosaicUpload(dieId);
-  const { register, handleSubmit, watch, formState } = useForm<Values, unknown, Output>({
+  const { register, handleSubmit, control, formState } = useForm<Values, unknown, Output>({
     resolver: zodResolver(formSchema),
     defaultValues: {
       grid: { rows: "3", cols: "3", order: "serpentine", overlapPercent: "20", flatField: true },
       capture: { label: "", illumination: "bright_field", scaleUmPerPx: "" },
     },
   });
-  const rows = Number(watch("grid.rows"));
-  const cols = Number(watch("grid.cols"));
-  const order = watch("grid.order") === "rows" ? "rows" : "serpentine";
+  const [rawRows, rawCols, rawOrder] = useWatch({ control, name: ["grid.rows", "grid.cols", "grid.order"] });
+  const rows = Number(rawRows);
+  const cols = Number(rawCols);
+  const order = rawOrder === "rows" ? "rows" : "serpentine";
   const need = Number.isInteger(rows * cols) ? rows * cols : 0;
   const busy = formState.isSubmitting;
   const s = upload.state;
@@ -66,7 +67,8 @@ export function UploadMosaic({
       noValidate
       className="flex flex-col gap-3"
       onSubmit={handleSubmit(async (v) => {
-        if (frames.length !== v.grid.rows * v.grid.cols) return setError(`A ${v.grid.rows} × ${v.grid.cols} mosaic needs ${v.grid.rows * v.grid.cols} frames; ${frames.length} chosen.`);
+        if (frames.length !== v.grid.rows * v.grid.cols)
+          return setError(`A ${v.grid.rows} × ${v.grid.cols} mosaic needs ${v.grid.rows * v.grid.cols} frames; ${frames.length} chosen.`);
         setError(null);
         try {
           onDone(
@@ -82,55 +84,69 @@ export function UploadMosaic({
         }
       })}
     >
-      <FrameList frames={frames} onChange={setFrames} progress={s.phase === "sending" ? s.frames : null} disabled={busy} />
+      <FrameList
+        frames={frames}
+        onChange={setFrames}
+        progress={s.phase === "sending" ? s.frames : s.phase === "idle" ? null : frames.map(() => 1)}
+        disabled={busy}
+      />
       <p className={`text-xs ${frames.length === need ? "text-ok-400" : "text-ink-400"}`} role="status">
         {frames.length} of {need || "?"} frames chosen
       </p>
-      <div className="flex gap-4">
-        <div className="grid flex-1 grid-cols-2 gap-3">
-          <TextField id="mosaic-rows" label="Rows" inputMode="numeric" error={e.grid?.rows?.message} {...register("grid.rows")} />
-          <TextField id="mosaic-cols" label="Columns" inputMode="numeric" error={e.grid?.cols?.message} {...register("grid.cols")} />
-          <div className="col-span-2 flex flex-col gap-1">
-            <label htmlFor="mosaic-order" className="text-xs font-medium text-ink-300">
-              Capture order
+      <fieldset disabled={busy} className="flex flex-col gap-3 disabled:opacity-70">
+        <div className="flex gap-4">
+          <div className="grid flex-1 grid-cols-2 gap-3">
+            <TextField id="mosaic-rows" label="Rows" inputMode="numeric" error={e.grid?.rows?.message} {...register("grid.rows")} />
+            <TextField id="mosaic-cols" label="Columns" inputMode="numeric" error={e.grid?.cols?.message} {...register("grid.cols")} />
+            <div className="col-span-2 flex flex-col gap-1">
+              <label htmlFor="mosaic-order" className="text-xs font-medium text-ink-300">
+                Capture order
+              </label>
+              <select id="mosaic-order" className={SELECT} {...register("grid.order")}>
+                <option value="serpentine">Serpentine (rows alternate direction)</option>
+                <option value="rows">Rows (each row left to right)</option>
+              </select>
+            </div>
+            <TextField
+              id="mosaic-overlap"
+              className="col-span-2"
+              label="Nominal overlap (%)"
+              inputMode="decimal"
+              hint={`Between ${OVERLAP_RANGE.min} and ${OVERLAP_RANGE.max} % of a frame`}
+              error={e.grid?.overlapPercent?.message}
+              {...register("grid.overlapPercent")}
+            />
+          </div>
+          <CapturePathDiagram rows={rows} cols={cols} order={order} />
+        </div>
+        <TextField id="mosaic-label" label="Label" hint="e.g. 50x bright field, whole die" error={e.capture?.label?.message} {...register("capture.label")} />
+        <div className="grid grid-cols-2 gap-3">
+          <div className="flex flex-col gap-1">
+            <label htmlFor="mosaic-illumination" className="text-xs font-medium text-ink-300">
+              Illumination
             </label>
-            <select id="mosaic-order" className={SELECT} {...register("grid.order")}>
-              <option value="serpentine">Serpentine (rows alternate direction)</option>
-              <option value="rows">Rows (each row left to right)</option>
+            <select id="mosaic-illumination" className={SELECT} {...register("capture.illumination")}>
+              {ILLUMINATIONS.map((i) => (
+                <option key={i} value={i}>
+                  {ILLUMINATION_LABELS[i]}
+                </option>
+              ))}
             </select>
           </div>
           <TextField
-            id="mosaic-overlap"
-            className="col-span-2"
-            label="Nominal overlap (%)"
+            id="mosaic-scale"
+            label="Scale (µm per pixel)"
             inputMode="decimal"
-            hint={`Between ${OVERLAP_RANGE.min} and ${OVERLAP_RANGE.max} % of a frame`}
-            error={e.grid?.overlapPercent?.message}
-            {...register("grid.overlapPercent")}
+            hint="Or calibrate later"
+            error={e.capture?.scaleUmPerPx?.message}
+            {...register("capture.scaleUmPerPx")}
           />
         </div>
-        <CapturePathDiagram rows={rows} cols={cols} order={order} />
-      </div>
-      <TextField id="mosaic-label" label="Label" hint="e.g. 50x bright field, whole die" error={e.capture?.label?.message} {...register("capture.label")} />
-      <div className="grid grid-cols-2 gap-3">
-        <div className="flex flex-col gap-1">
-          <label htmlFor="mosaic-illumination" className="text-xs font-medium text-ink-300">
-            Illumination
-          </label>
-          <select id="mosaic-illumination" className={SELECT} {...register("capture.illumination")}>
-            {ILLUMINATIONS.map((i) => (
-              <option key={i} value={i}>
-                {ILLUMINATION_LABELS[i]}
-              </option>
-            ))}
-          </select>
-        </div>
-        <TextField id="mosaic-scale" label="Scale (µm per pixel)" inputMode="decimal" hint="Or calibrate later" error={e.capture?.scaleUmPerPx?.message} {...register("capture.scaleUmPerPx")} />
-      </div>
-      <label className="flex items-center gap-2 text-sm text-ink-200">
-        <input type="checkbox" {...register("grid.flatField")} className="accent-kerf-500" />
-        Correct uneven illumination (flat field from the frames&apos; median)
-      </label>
+        <label className="flex items-center gap-2 text-sm text-ink-200">
+          <input type="checkbox" {...register("grid.flatField")} className="accent-kerf-500" />
+          Correct uneven illumination (flat field from the frames&apos; median)
+        </label>
+      </fieldset>
       {s.phase === "sending" && (
         <div className="flex flex-col gap-1" role="status" aria-live="polite">
           <span className="text-xs text-ink-300">

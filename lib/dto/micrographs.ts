@@ -37,8 +37,7 @@ export type MicrographDto = {
 };
 
 /** Where a mosaic's job is: the stitch stages, then the ordinary tiling, then done (or failed). */
-export const MOSAIC_STAGES = ["checking", "registering", "placing", "composing", "tiling", "done", "failed"] as const;
-export type MosaicStage = (typeof MOSAIC_STAGES)[number];
+export type MosaicStage = "checking" | "registering" | "placing" | "composing" | "tiling" | "done" | "failed";
 
 /** One frame of a mosaic: its grid cell and its top-left corner in mosaic px. */
 export type MosaicFrameDto = { index: number; row: number; col: number; x: number; y: number };

@@ -4,14 +4,21 @@ import { z } from "zod";
 export const MAX_MOSAIC_FRAMES = 400;
 /** Nominal overlap between neighbouring frames, percent of a frame (the registration searches only inside it). */
 export const OVERLAP_RANGE = { min: 5, max: 60 } as const;
-export const CAPTURE_ORDERS = ["rows", "serpentine"] as const;
+const CAPTURE_ORDERS = ["rows", "serpentine"] as const;
 
 // Multipart fields arrive as strings; the form sends numbers. Both pass through the same checks.
 const whole = (label: string, max: number) =>
-  z.coerce.number(`${label} must be a number`).int(`${label} must be a whole number`).min(1, `${label} must be at least 1`).max(max, `${label} must be at most ${max}`);
+  z.coerce
+    .number(`${label} must be a number`)
+    .int(`${label} must be a whole number`)
+    .min(1, `${label} must be at least 1`)
+    .max(max, `${label} must be at most ${max}`);
 
 const onOff = z.preprocess(
-  (v) => (typeof v === "string" ? ({ true: true, on: true, "1": true, false: false, off: false, "0": false } as Record<string, boolean>)[v.trim().toLowerCase()] ?? v : v),
+  (v) =>
+    typeof v === "string"
+      ? (({ true: true, on: true, "1": true, false: false, off: false, "0": false } as Record<string, boolean>)[v.trim().toLowerCase()] ?? v)
+      : v,
   z.boolean("flatField must be true or false"),
 );
 
@@ -31,7 +38,6 @@ export const mosaicGridSchema = z
   })
   .refine((g) => g.rows * g.cols >= 2, { message: "a mosaic needs at least two frames", path: ["cols"] })
   .refine((g) => g.rows * g.cols <= MAX_MOSAIC_FRAMES, { message: `a mosaic takes at most ${MAX_MOSAIC_FRAMES} frames`, path: ["cols"] });
-export type MosaicGrid = z.infer<typeof mosaicGridSchema>;
 
 /** POST /api/micrographs/{id}/mosaic/restitch: stitch the same frames again with another overlap, order or shading choice. */
 export const restitchSchema = z
@@ -45,7 +51,9 @@ export const restitchSchema = z
       .optional(),
     flatField: z.boolean("flatField must be true or false").optional(),
   })
-  .refine((b) => b.order !== undefined || b.overlapPercent !== undefined || b.flatField !== undefined, { message: "change the order, the overlap or flatField" });
+  .refine((b) => b.order !== undefined || b.overlapPercent !== undefined || b.flatField !== undefined, {
+    message: "change the order, the overlap or flatField",
+  });
 export type Restitch = z.infer<typeof restitchSchema>;
 
 /** The multipart fields of a mosaic upload that describe the grid; the rest are a micrograph's capture data. */

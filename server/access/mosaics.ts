@@ -4,12 +4,8 @@ import { micrographs, mosaics, type MicrographRow, type MosaicRow } from "@/db/s
 import type { MosaicDto, MosaicFrameDto, MosaicPairDto, MosaicStage } from "@/lib/dto/micrographs";
 import type { Transform } from "@/lib/geometry/types";
 import { frameFromScale } from "@/lib/geometry/affine";
-import { ConflictError } from "@/lib/errors";
-import type { Restitch } from "@/lib/validation/mosaics";
 import { queueJob } from "./job-queue";
-import { loadMicrograph } from "./micrographs";
-import { recordAudit } from "./audit";
-import type { Actor, Db } from "./context";
+import type { Db } from "./context";
 
 /**
  * The stage the user sees. After the stitch the row says "tiling" and the ordinary tile job
@@ -49,40 +45,14 @@ export async function mosaicsOf(db: Db, micrographIds: string[]): Promise<Map<st
   return new Map(rows.map((r) => [r.micrographId, r]));
 }
 
-export type NewMosaic = Pick<MosaicRow, "micrographId" | "rows" | "cols" | "order" | "overlapPercent" | "flatField" | "frameWidth" | "frameHeight" | "frameFormat">;
+export type NewMosaic = Pick<
+  MosaicRow,
+  "micrographId" | "rows" | "cols" | "order" | "overlapPercent" | "flatField" | "frameWidth" | "frameHeight" | "frameFormat"
+>;
 
 /** Records a mosaic's grid beside its micrograph row, in the caller's transaction (the micrograph insert checked the rights). */
 export async function insertMosaic(db: Db, m: NewMosaic): Promise<void> {
   await db.insert(mosaics).values({ ...m, stage: "checking", stageProgress: 0 });
-}
-
-/**
- * Stitch again with another overlap, order or shading choice (owner/analyst). The result being
- * served stays until the new one is stored; 409 while the micrograph is not ready or a stitch is
- * already under way.
- */
-export async function restitchMosaic(db: Db, actor: Actor, micrographId: string, change: Restitch): Promise<void> {
-  await db.transaction(async (tx) => {
-    const { row, die } = await loadMicrograph(tx, actor, micrographId, "edit");
-    const [m] = await tx.select().from(mosaics).where(eq(mosaics.micrographId, micrographId));
-    if (!m) throw new ConflictError("This micrograph was not stitched from frames.");
-    if (row.status !== "ready" || m.restitching) throw new ConflictError(`Stitch again once the current stitch is finished; this one is ${m.restitching ? "being stitched again" : row.status}.`);
-    const next = { order: change.order ?? m.order, overlapPercent: change.overlapPercent ?? m.overlapPercent, flatField: change.flatField ?? m.flatField };
-    await tx
-      .update(mosaics)
-      .set({ ...next, restitching: true, stage: "checking", stageProgress: 0, updatedAt: new Date() })
-      .where(eq(mosaics.micrographId, micrographId));
-    await queueJob(tx, "stitch", micrographId);
-    await recordAudit(tx, actor, {
-      teamId: die.teamId,
-      action: "micrograph.restitched",
-      entityType: "micrograph",
-      entityId: micrographId,
-      dieId: row.dieId,
-      before: { order: m.order, overlapPercent: m.overlapPercent, flatField: m.flatField },
-      after: next,
-    });
-  });
 }
 
 // ---- What the stitch job reads and writes (no actor: the rights were checked when it was queued).
@@ -95,14 +65,36 @@ export async function mosaicForJob(db: Db, micrographId: string): Promise<{ micr
 
 /** Moves the stage shown to the user; false when the mosaic is gone. */
 export async function setMosaicStage(db: Db, micrographId: string, stage: MosaicStage, stageProgress: number): Promise<boolean> {
-  const rows = await db.update(mosaics).set({ stage, stageProgress, updatedAt: new Date() }).where(eq(mosaics.micrographId, micrographId)).returning({ id: mosaics.micrographId });
+  const rows = await db
+    .update(mosaics)
+    .set({ stage, stageProgress, updatedAt: new Date() })
+    .where(eq(mosaics.micrographId, micrographId))
+    .returning({ id: mosaics.micrographId });
   return rows.length > 0;
+}
+
+/**
+ * A stitch again moves frame 0 within the composed image (another overlap changes the margins):
+ * the image → die transform is shifted so frame 0's corner lands where it did, and the markup
+ * drawn in the die frame stays on the same features.
+ */
+export function keepFrameZero(t: Transform | null, was: MosaicFrameDto | undefined, now: MosaicFrameDto | undefined): Transform | null {
+  if (!t || !was || !now) return t;
+  const [[a, b, tx], [c, d, ty]] = t;
+  const dx = was.x - now.x;
+  const dy = was.y - now.y;
+  return [
+    [a, b, tx + a * dx + b * dy],
+    [c, d, ty + c * dx + d * dy],
+  ];
 }
 
 export type StitchResult = {
   width: number;
   height: number;
   bytes: number;
+  /** tiff or bigtiff, as the composed file's header says. */
+  format: string;
   frames: MosaicFrameDto[];
   pairs: MosaicPairDto[];
   residualPx: { rms: number; max: number };
@@ -122,10 +114,22 @@ export async function recordStitch(db: Db, micrographId: string, r: StitchResult
   return db.transaction(async (tx) => {
     const [m] = await tx.select().from(micrographs).where(eq(micrographs.id, micrographId));
     if (!m) return false;
-    const transform = m.isReference && m.scaleUmPerPx ? (frameFromScale(m.scaleUmPerPx, r.height) as Transform) : m.transform;
+    const [before] = await tx.select({ frames: mosaics.frames }).from(mosaics).where(eq(mosaics.micrographId, micrographId));
+    const transform = tiled
+      ? keepFrameZero(m.transform, before?.frames[0], r.frames[0])
+      : m.isReference && m.scaleUmPerPx
+        ? (frameFromScale(m.scaleUmPerPx, r.height) as Transform)
+        : m.transform;
     await tx
       .update(micrographs)
-      .set({ width: r.width, height: r.height, bytes: r.bytes, format: "tiff", transform, ...(r.preview ? { previewWidth: r.preview.width, previewHeight: r.preview.height, updatedAt: new Date() } : { status: "queued" as const, progress: 0 }) })
+      .set({
+        width: r.width,
+        height: r.height,
+        bytes: r.bytes,
+        format: r.format,
+        transform,
+        ...(r.preview ? { previewWidth: r.preview.width, previewHeight: r.preview.height, updatedAt: new Date() } : { status: "queued" as const, progress: 0 }),
+      })
       .where(eq(micrographs.id, micrographId));
     await tx
       .update(mosaics)
@@ -158,7 +162,11 @@ export async function failStitch(db: Db, micrographId: string, message: string):
     return null;
   }
   await db.update(mosaics).set({ stage: "failed", updatedAt: new Date() }).where(eq(mosaics.micrographId, micrographId));
-  const [row] = await db.update(micrographs).set({ status: "failed", error: message, updatedAt: new Date() }).where(eq(micrographs.id, micrographId)).returning();
+  const [row] = await db
+    .update(micrographs)
+    .set({ status: "failed", error: message, updatedAt: new Date() })
+    .where(eq(micrographs.id, micrographId))
+    .returning();
   return row ?? null;
 }
 

@@ -39,10 +39,13 @@ async function checkFrames(frames: ReceivedFrame[]) {
     const probe = await probeImage(f.tempPath, cap).catch((e: unknown) => {
       throw e instanceof AppError ? new BadRequestError(`${name}: ${e.message}`) : e;
     });
-    if (probe.width < MIN_FRAME_SIDE || probe.height < MIN_FRAME_SIDE) throw new BadRequestError(`${name}: frames must be at least ${MIN_FRAME_SIDE} px on each side.`);
+    if (probe.width < MIN_FRAME_SIDE || probe.height < MIN_FRAME_SIDE)
+      throw new BadRequestError(`${name}: frames must be at least ${MIN_FRAME_SIDE} px on each side.`);
     if (!first) first = probe;
     else if (probe.width !== first.width || probe.height !== first.height) {
-      throw new BadRequestError(`${name}: it is ${probe.width} × ${probe.height} px, but frame 1 is ${first.width} × ${first.height} px; every frame of a mosaic must be the same size.`);
+      throw new BadRequestError(
+        `${name}: it is ${probe.width} × ${probe.height} px, but frame 1 is ${first.width} × ${first.height} px; every frame of a mosaic must be the same size.`,
+      );
     } else if (probe.format !== first.format) {
       throw new BadRequestError(`${name}: it is ${probe.format}, but frame 1 is ${first.format}; every frame of a mosaic must be in the same format.`);
     }
@@ -122,7 +125,13 @@ export async function ingestMosaic(db: Database, actor: Actor, dieId: string, fr
     });
   } catch (e) {
     await dropFrames(frames);
-    await Promise.all(stored.map((k) => objectStore().remove(k).catch(() => {})));
+    await Promise.all(
+      stored.map((k) =>
+        objectStore()
+          .remove(k)
+          .catch(() => {}),
+      ),
+    );
     throw e;
   }
   await dropFrames(frames);

@@ -94,7 +94,12 @@ export async function receiveFrames(
       };
       if (name !== "file") return refuse(new BadRequestError(`unexpected file field “${name}”: send every frame in a part named “file”.`));
       if (/[\\/]/.test(clientName) || clientName === "..") return refuse(new BadRequestError("the file name must be a plain name, without folders or “..”."));
-      const frame: ReceivedFrame = { tempPath: path.join(opts.incomingDir, `${crypto.randomUUID()}.part`), bytes: 0, format: "jpeg", clientName: displayName(clientName) };
+      const frame: ReceivedFrame = {
+        tempPath: path.join(opts.incomingDir, `${crypto.randomUUID()}.part`),
+        bytes: 0,
+        format: "jpeg",
+        clientName: displayName(clientName),
+      };
       frames.push(frame);
       const out = fs.createWriteStream(frame.tempPath, { flags: "wx" });
       open.add(out);

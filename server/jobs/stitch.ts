@@ -88,12 +88,13 @@ async function stitch(db: Database, micrographId: string): Promise<void> {
       width: probe.width,
       height: probe.height,
       bytes: (await fs.stat(outPath)).size,
+      format: probe.format,
       frames: layout.frames,
       pairs: layout.pairs,
       residualPx: layout.residualPx,
       warnings: layout.warnings,
     };
-    const keys = micrographKeys(m.dieId, m.id, "tiff");
+    const keys = micrographKeys(m.dieId, m.id, probe.format);
     const store = objectStore();
     if (again) {
       await setMosaicStage(db, m.id, "tiling", 0);

@@ -51,15 +51,31 @@ const replace = (i: number, bytes: () => Buffer, name?: string) => () => frames.
 const BAD: Bad[] = [
   { name: "three frames for a 2 × 2 grid", form: () => mosaicForm(GRID, frames.slice(0, 3)), message: /2 × 2 mosaic needs 4 frames.*3 arrived/ },
   { name: "five frames for a 2 × 2 grid", form: () => mosaicForm(GRID, [...frames, frames[0]]), message: /needs 4 frames.*5 arrived/ },
-  { name: "a frame of another size", form: () => mosaicForm(GRID, replace(2, () => otherSize)()), message: /Frame 3 \(IMG_0003\.jpg\): it is 300 × 240 px, but frame 1 is 320 × 240/ },
-  { name: "a frame of another format", form: () => mosaicForm(GRID, replace(1, () => png, "IMG_0002.png")()), message: /Frame 2 \(IMG_0002\.png\): .*same format/ },
+  {
+    name: "a frame of another size",
+    form: () => mosaicForm(GRID, replace(2, () => otherSize)()),
+    message: /Frame 3 \(IMG_0003\.jpg\): it is 300 × 240 px, but frame 1 is 320 × 240/,
+  },
+  {
+    name: "a frame of another format",
+    form: () => mosaicForm(GRID, replace(1, () => png, "IMG_0002.png")()),
+    message: /Frame 2 \(IMG_0002\.png\): .*same format/,
+  },
   { name: "an overlap under 5 %", form: () => mosaicForm({ ...GRID, overlapPercent: "4" }, frames), message: /overlapPercent must be between 5 and 60/ },
   { name: "an overlap over 60 %", form: () => mosaicForm({ ...GRID, overlapPercent: "61" }, frames), message: /overlapPercent must be between 5 and 60/ },
   { name: "an unknown capture order", form: () => mosaicForm({ ...GRID, order: "zigzag" }, frames), message: /order must be rows or serpentine/ },
   { name: "zero rows", form: () => mosaicForm({ ...GRID, rows: "0" }, frames), message: /rows must be at least 1/ },
   { name: "a grid of one frame", form: () => mosaicForm({ ...GRID, rows: "1", cols: "1" }, frames.slice(0, 1)), message: /at least two frames/ },
-  { name: "a truncated frame", form: () => mosaicForm(GRID, replace(3, () => frames[3].bytes.subarray(0, frames[3].bytes.length >> 1))()), message: /Frame 4 \(IMG_0004\.jpg\): .*incomplete/ },
-  { name: "a text file as a frame", form: () => mosaicForm(GRID, replace(1, () => Buffer.from("not an image at all, just notes\n".repeat(3)))()), message: /Frame 2 \(IMG_0002\.jpg\): Only JPEG, PNG, TIFF/ },
+  {
+    name: "a truncated frame",
+    form: () => mosaicForm(GRID, replace(3, () => frames[3].bytes.subarray(0, frames[3].bytes.length >> 1))()),
+    message: /Frame 4 \(IMG_0004\.jpg\): .*incomplete/,
+  },
+  {
+    name: "a text file as a frame",
+    form: () => mosaicForm(GRID, replace(1, () => Buffer.from("not an image at all, just notes\n".repeat(3)))()),
+    message: /Frame 2 \(IMG_0002\.jpg\): Only JPEG, PNG, TIFF/,
+  },
   { name: "an empty frame", form: () => mosaicForm(GRID, replace(0, () => Buffer.alloc(0))()), message: /Frame 1 \(IMG_0001\.jpg\): the file is empty/ },
   { name: "a frame name with folders", form: () => mosaicForm(GRID, replace(2, () => frames[2].bytes, "../IMG_0003.jpg")()), message: /Frame 3 .*plain name/ },
   { name: "a bad capture field", form: () => mosaicForm({ ...GRID, illumination: "uv" }, frames), message: /illumination must be one of/ },
@@ -168,6 +184,15 @@ describe("an accepted 2 × 2 mosaic", () => {
     expect(last.mosaic).toMatchObject({ overlapPercent: 22, stage: "done", restitching: false });
     expect((await world.clients.viewer.get(`/api/micrographs/${id}/iiif/info.json`)).status).toBe(200);
     expect(last.updatedAt >= before.updatedAt).toBe(true);
+    // Markup stays on the same features: frame 0's corner maps to the same die point as before
+    // (a consistency check of the transform update, against the previous placement).
+    const die = (m: MicrographDto) => {
+      const [[a, b, tx], [c, d, ty]] = m.transform!;
+      const f = m.mosaic!.frames[0];
+      return [a * f.x + b * f.y + tx, c * f.x + d * f.y + ty];
+    };
+    expect(die(last)[0]).toBeCloseTo(die(before)[0], 9);
+    expect(die(last)[1]).toBeCloseTo(die(before)[1], 9);
   });
 
   it("removes the frames with the micrograph", async () => {

@@ -32,7 +32,9 @@ async function dieLikeImage(width: number, height: number, seed: number): Promis
     const w = 8 + Math.floor(rnd() * 60);
     const h = 8 + Math.floor(rnd() * 60);
     const shade = 120 + Math.floor(rnd() * 120);
-    rects.push(`<rect x="${Math.floor(rnd() * width)}" y="${Math.floor(rnd() * height)}" width="${w}" height="${h}" fill="rgb(${shade},${shade - 10},${shade - 40})"/>`);
+    rects.push(
+      `<rect x="${Math.floor(rnd() * width)}" y="${Math.floor(rnd() * height)}" width="${w}" height="${h}" fill="rgb(${shade},${shade - 10},${shade - 40})"/>`,
+    );
   }
   const svg = Buffer.from(`<svg xmlns="http://www.w3.org/2000/svg" width="${width}" height="${height}">${rects.join("")}</svg>`);
   const base = await sharp(px, { raw: { width, height, channels: 3 } })
@@ -48,7 +50,18 @@ async function dieLikeImage(width: number, height: number, seed: number): Promis
  * (fraction of a frame) plus an integer jitter of up to `jitter` px. Frame names are natural-
  * sorted file names (IMG_0001.jpg …).
  */
-export async function cutMosaic(opts: { rows: number; cols: number; frameWidth: number; frameHeight: number; overlap: number; jitter?: number; order?: "rows" | "serpentine"; seed?: number }): Promise<CutFrame[]> {
+export async function cutMosaic(opts: {
+  rows: number;
+  cols: number;
+  frameWidth: number;
+  frameHeight: number;
+  overlap: number;
+  jitter?: number;
+  order?: "rows" | "serpentine";
+  seed?: number;
+  /** A featureless (flat grey) area of the source image, to make a pair's overlap blank. */
+  blank?: { x: number; y: number; width: number; height: number };
+}): Promise<CutFrame[]> {
   const { rows, cols, frameWidth: fw, frameHeight: fh, overlap } = opts;
   const rnd = random((opts.seed ?? 7) + 1);
   const j = opts.jitter ?? 0;
@@ -57,6 +70,11 @@ export async function cutMosaic(opts: { rows: number; cols: number; frameWidth: 
   const width = stepX * (cols - 1) + fw + 2 * j;
   const height = stepY * (rows - 1) + fh + 2 * j;
   const source = await (await dieLikeImage(width, height, opts.seed ?? 7)).raw().toBuffer();
+  if (opts.blank) {
+    const b = opts.blank;
+    for (let y = Math.max(0, b.y); y < Math.min(height, b.y + b.height); y++)
+      source.fill(110, (y * width + Math.max(0, b.x)) * 3, (y * width + Math.min(width, b.x + b.width)) * 3);
+  }
   const frames: CutFrame[] = [];
   for (let row = 0; row < rows; row++) {
     for (let step = 0; step < cols; step++) {

@@ -19,10 +19,10 @@ export function DieTab() {
     <div className="flex flex-col gap-5">
       <DieDetails die={die} umPerPx={umPerPx} />
       <section aria-label="Micrographs" className="flex flex-col gap-2">
-        <div className="flex items-center justify-between">
+        <div className="flex flex-wrap items-center justify-between gap-2">
           <h2 className="text-sm font-semibold">Micrographs</h2>
           {editable && (
-            <span className="flex gap-2">
+            <span className="flex gap-2 whitespace-nowrap">
               <UploadMosaicButton />
               <Button variant="primary" onClick={() => setUploadOpen(true)}>
                 Upload micrograph

@@ -2,7 +2,7 @@ import { z } from "zod";
 import { apiRoute } from "@/server/http/route";
 import { uuidSchema } from "@/lib/validation/common";
 import { restitchSchema } from "@/lib/validation/mosaics";
-import { restitchMosaic } from "@/server/access/mosaics";
+import { restitchMosaic } from "@/server/access/mosaic-restitch";
 import { getMicrograph } from "@/server/access/micrographs";
 import { notifyJobs } from "@/server/jobs/queue";
 

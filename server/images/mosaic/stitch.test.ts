@@ -189,3 +189,49 @@ describe("stitchMosaic against a ground truth it did not see", () => {
     expect(worst).toBeLessThanOrEqual(2);
   });
 });
+
+describe("composition memory", () => {
+  it("grows the process's RSS by far less than the mosaic's size while composing", async () => {
+    const spec: GridSpec = {
+      ...BASE,
+      frameWidth: 1024,
+      frameHeight: 768,
+      overlapPercent: 10,
+      jitter: 0.01,
+      rows: 10,
+      cols: 3,
+      order: "rows",
+      seed: 8,
+      format: "jpeg",
+    };
+    const size = sceneSizeFor(spec);
+    const scene = await dieLikeScene(size.width, size.height, 108);
+    const folder = path.join(dir, "memory");
+    fs.mkdirSync(folder);
+    const { framePaths } = await cutFrames(scene, spec, folder);
+    let base = 0;
+    let peak = 0;
+    const layout = await stitchMosaic({
+      framePaths,
+      rows: spec.rows,
+      cols: spec.cols,
+      order: spec.order,
+      overlapPercent: spec.overlapPercent,
+      flatField: true,
+      outPath: path.join(folder, "mosaic.tif"),
+      workDir: folder,
+      onProgress: (stage, percent) => {
+        if (stage !== "composing") return;
+        const rss = process.memoryUsage.rss();
+        if (percent === 0) base = rss;
+        peak = Math.max(peak, rss);
+      },
+    });
+    const canvas = layout.width * layout.height * 3;
+    console.info(
+      `composing ${layout.width}×${layout.height} (${(canvas / 2 ** 20).toFixed(0)} MB of pixels): RSS grew ${((peak - base) / 2 ** 20).toFixed(1)} MB`,
+    );
+    expect(base).toBeGreaterThan(0);
+    expect(peak - base).toBeLessThan(canvas / 4);
+  });
+});

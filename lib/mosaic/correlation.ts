@@ -85,9 +85,10 @@ export type Overlap = { ncc: number; pixels: number };
 /**
  * Pearson correlation of frame a's and frame b's pixels that coincide when b's top-left sits
  * at a's top-left + (tx, ty) (integers): b(v) is compared with a(v + t) over the part both
- * patches hold. Insensitive to a gain and offset between the frames.
+ * patches hold (every `rowStep`-th row of it). Insensitive to a gain and offset between the
+ * frames.
  */
-export function overlapNcc(a: GreyPatch, b: GreyPatch, tx: number, ty: number): Overlap {
+export function overlapNcc(a: GreyPatch, b: GreyPatch, tx: number, ty: number, rowStep = 1): Overlap {
   const vx0 = Math.max(b.x0, a.x0 - tx);
   const vy0 = Math.max(b.y0, a.y0 - ty);
   const vx1 = Math.min(b.x0 + b.width, a.x0 + a.width - tx);
@@ -102,7 +103,9 @@ export function overlapNcc(a: GreyPatch, b: GreyPatch, tx: number, ty: number): 
   let sab = 0;
   const ad = a.data;
   const bd = b.data;
-  for (let y = 0; y < h; y++) {
+  let n = 0;
+  for (let y = 0; y < h; y += rowStep) {
+    n += w;
     let ia = (vy0 + y + ty - a.y0) * a.width + (vx0 + tx - a.x0);
     let ib = (vy0 + y - b.y0) * b.width + (vx0 - b.x0);
     for (let x = 0; x < w; x++, ia++, ib++) {
@@ -115,10 +118,48 @@ export function overlapNcc(a: GreyPatch, b: GreyPatch, tx: number, ty: number): 
       sab += p * q;
     }
   }
-  const n = w * h;
   const va = saa - (sa * sa) / n;
   const vb = sbb - (sb * sb) / n;
   const cov = sab - (sa * sb) / n;
   const ncc = va > 1e-9 && vb > 1e-9 ? cov / Math.sqrt(va * vb) : 0;
-  return { ncc, pixels: n };
+  return { ncc, pixels: w * h };
+}
+
+/**
+ * NCC of the two overlaps after a high-pass filter (each pixel minus the mean of its right and
+ * lower neighbours): shading, vignetting and brightness are smooth and drop out, so a blank
+ * overlap scores about 0 however its illumination varies, while real structure scores high.
+ * Used to decide whether a measured translation can be trusted.
+ */
+export function overlapEdgeNcc(a: GreyPatch, b: GreyPatch, tx: number, ty: number): Overlap {
+  const vx0 = Math.max(b.x0, a.x0 - tx);
+  const vy0 = Math.max(b.y0, a.y0 - ty);
+  const w = Math.min(b.x0 + b.width, a.x0 + a.width - tx) - vx0 - 1;
+  const h = Math.min(b.y0 + b.height, a.y0 + a.height - ty) - vy0 - 1;
+  if (w <= 0 || h <= 0) return { ncc: -1, pixels: 0 };
+  let sa = 0;
+  let sb = 0;
+  let saa = 0;
+  let sbb = 0;
+  let sab = 0;
+  const ad = a.data;
+  const bd = b.data;
+  for (let y = 0; y < h; y++) {
+    let ia = (vy0 + y + ty - a.y0) * a.width + (vx0 + tx - a.x0);
+    let ib = (vy0 + y - b.y0) * b.width + (vx0 - b.x0);
+    for (let x = 0; x < w; x++, ia++, ib++) {
+      const p = 2 * ad[ia] - ad[ia + 1] - ad[ia + a.width];
+      const q = 2 * bd[ib] - bd[ib + 1] - bd[ib + b.width];
+      sa += p;
+      sb += q;
+      saa += p * p;
+      sbb += q * q;
+      sab += p * q;
+    }
+  }
+  const n = w * h;
+  const va = saa - (sa * sa) / n;
+  const vb = sbb - (sb * sb) / n;
+  const cov = sab - (sa * sb) / n;
+  return { ncc: va > 1e-9 && vb > 1e-9 ? cov / Math.sqrt(va * vb) : 0, pixels: n };
 }

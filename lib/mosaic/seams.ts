@@ -1,7 +1,11 @@
 import type { MosaicFrame } from "./types";
 
-/** Per-frame blend weights, separable: weight(x, y) = wx[x] · wy[y] in frame px. */
-export type BlendWeights = { wx: Float32Array; wy: Float32Array };
+/**
+ * Per-frame blend weights, separable: weight(x, y) = wx[x] · wy[y] in frame px. The core
+ * [coreX0, coreX1) × [coreY0, coreY1) is where the weight is 1: the part of the mosaic this
+ * frame alone shows (its neighbours weigh at most the floor there).
+ */
+export type BlendWeights = { wx: Float32Array; wy: Float32Array; coreX0: number; coreX1: number; coreY0: number; coreY1: number };
 
 /** Longest linear blend either side of a seam, in px. */
 const MAX_BLEND_HALF_WIDTH = 16;
@@ -28,6 +32,14 @@ function ramp(origin: number, size: number, before: Seam | null, after: Seam | n
   return w;
 }
 
+/** The run of full weight (contiguous: the weight rises, stays at 1, then falls). */
+function core(w: Float32Array): [number, number] {
+  const first = w.indexOf(1);
+  if (first < 0) return [0, 0];
+  const last = w.lastIndexOf(1);
+  return [first, last + 1];
+}
+
 /**
  * Blend weights that hand each frame the part of the mosaic up to the middle of its overlaps
  * with its grid neighbours, with a short linear cross-fade across every seam (at most
@@ -43,10 +55,11 @@ export function blendWeights(frames: MosaicFrame[], frameWidth: number, frameHei
     const right = cell(f.row, f.col + 1);
     const up = cell(f.row - 1, f.col);
     const down = cell(f.row + 1, f.col);
-    weights[f.index] = {
-      wx: ramp(f.x, frameWidth, left ? seamBetween(left.x, f.x, frameWidth) : null, right ? seamBetween(f.x, right.x, frameWidth) : null),
-      wy: ramp(f.y, frameHeight, up ? seamBetween(up.y, f.y, frameHeight) : null, down ? seamBetween(f.y, down.y, frameHeight) : null),
-    };
+    const wx = ramp(f.x, frameWidth, left ? seamBetween(left.x, f.x, frameWidth) : null, right ? seamBetween(f.x, right.x, frameWidth) : null);
+    const wy = ramp(f.y, frameHeight, up ? seamBetween(up.y, f.y, frameHeight) : null, down ? seamBetween(f.y, down.y, frameHeight) : null);
+    const [coreX0, coreX1] = core(wx);
+    const [coreY0, coreY1] = core(wy);
+    weights[f.index] = { wx, wy, coreX0, coreX1, coreY0, coreY1 };
   }
   return weights;
 }

@@ -6,7 +6,8 @@ export type MosaicFrame = { index: number; row: number; col: number; x: number; 
 /**
  * The translation between two neighbouring frames: b's top-left minus a's, in px (a, b are
  * frame indexes in capture order). `peak` is the normalised cross-correlation of the two
- * frames' overlap at that translation (1 = identical, about 0 = unrelated). `used` says
+ * frames' high-passed overlaps at that translation (1 = identical, about 0 = blank or
+ * unrelated). `used` says
  * whether the measured translation was kept or replaced by the stage model.
  */
 export type MosaicPair = { a: number; b: number; dx: number; dy: number; peak: number; used: "measured" | "stage_model" };

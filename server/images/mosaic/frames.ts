@@ -35,6 +35,19 @@ export async function decodeFrame(path: string, channels: FrameChannels, width: 
   return data;
 }
 
+/** Fixed-point 1.0 of a gain (14 fraction bits: gains up to 4 fit a Uint16Array). */
+const GAIN_SHIFT = 14;
+const GAIN_ONE = 1 << GAIN_SHIFT;
+
+/** Corrects a decoded frame's shading in place: every sample times its gain, rounded and clamped. */
+export function applyGain(pixels: Buffer, gain: Uint16Array): void {
+  const half = GAIN_ONE >> 1;
+  for (let i = 0; i < pixels.length; i++) {
+    const v = (pixels[i] * gain[i] + half) >> GAIN_SHIFT;
+    pixels[i] = v > 255 ? 255 : v;
+  }
+}
+
 /** Side of the thumbnails the shading is estimated on. */
 const SHADING_GRID = 32;
 /** At most this many frames, evenly spread over the capture, enter the median. */
@@ -45,15 +58,16 @@ const SHADING_FRAMES = 64;
  * of small thumbnails of the frames (what stays the same while the scene changes is the
  * illumination and optics), smoothed by a least-squares quadratic surface per channel so that
  * what is left of the scene in the median cannot print into the mosaic. Returns the gain
- * per pixel and channel (mean / shading), row-major like the frame, as 32-bit floats.
+ * per pixel and channel (mean / shading), row-major like the frame, in fixed point
+ * (GAIN_ONE = 1) so that applying it is integer arithmetic.
  */
-export async function shadingGain(framePaths: string[], channels: FrameChannels, width: number, height: number): Promise<Float32Array> {
+export async function shadingGain(framePaths: string[], channels: FrameChannels, width: number, height: number): Promise<Uint16Array> {
   const step = Math.max(1, framePaths.length / SHADING_FRAMES);
   const picked: string[] = [];
   for (let k = 0; k < framePaths.length && picked.length < SHADING_FRAMES; k += step) picked.push(framePaths[Math.floor(k)]);
   const g = SHADING_GRID;
   const thumbs = await Promise.all(picked.map((p) => pipeline(p, channels).resize(g, g, { fit: "fill", kernel: "linear" }).raw({ depth: "uchar" }).toBuffer()));
-  const gain = new Float32Array(width * height * channels);
+  const gain = new Uint16Array(width * height * channels);
   const values = new Float64Array(thumbs.length);
   for (let c = 0; c < channels; c++) {
     const median = new Float64Array(g * g);
@@ -72,7 +86,7 @@ export async function shadingGain(framePaths: string[], channels: FrameChannels,
       for (let x = 0; x < width; x++) {
         const u = (x + 0.5) / width - 0.5;
         const shade = a + b * u + cy * v + d * u * u + e * u * v + f * v * v;
-        gain[(y * width + x) * channels + c] = mean / Math.max(1, shade);
+        gain[(y * width + x) * channels + c] = Math.min(65535, Math.round((GAIN_ONE * mean) / Math.max(1, shade)));
       }
     }
   }
@@ -94,25 +108,18 @@ function quadraticSurface(grid: Float64Array, g: number): ((x: number, y: number
   return Object.assign((x: number, y: number) => terms(x - 0.5, y - 0.5).reduce((s, t, k) => s + t * coef[k], 0), { coef });
 }
 
-/** A grey copy (channel mean, shading-corrected when a gain is given) of one rectangle of a frame. */
-export function greyRect(
-  pixels: Buffer,
-  width: number,
-  channels: FrameChannels,
-  gain: Float32Array | null,
-  x0: number,
-  y0: number,
-  w: number,
-  h: number,
-): GreyPatch {
+/**
+ * A grey copy of one rectangle of a frame for registration: the frame itself when grey, the
+ * green channel of a colour frame (the channel a colour sensor samples most densely; one read
+ * per pixel instead of three).
+ */
+export function greyRect(pixels: Buffer, width: number, channels: FrameChannels, x0: number, y0: number, w: number, h: number): GreyPatch {
   const data = new Float32Array(w * h);
   for (let y = 0; y < h; y++) {
-    for (let x = 0; x < w; x++) {
-      const i = ((y0 + y) * width + x0 + x) * channels;
-      let s = 0;
-      for (let c = 0; c < channels; c++) s += pixels[i + c] * (gain ? gain[i + c] : 1);
-      data[y * w + x] = s / channels;
-    }
+    const i0 = ((y0 + y) * width + x0) * channels;
+    const d0 = y * w;
+    if (channels === 1) for (let x = 0; x < w; x++) data[d0 + x] = pixels[i0 + x];
+    else for (let x = 0, i = i0 + 1; x < w; x++, i += 3) data[d0 + x] = pixels[i];
   }
   return { data, x0, y0, width: w, height: h };
 }

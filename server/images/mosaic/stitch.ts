@@ -7,7 +7,7 @@ import { applyStageModel, placeFrames, type MeasuredPair } from "@/lib/mosaic/pl
 import { registerPair } from "@/lib/mosaic/register-pair";
 import type { MosaicLayout, StitchStage } from "@/lib/mosaic/types";
 import { composeMosaic } from "./compose";
-import { decodeFrame, greyRect, mosaicChannels, shadingGain, type FrameChannels } from "./frames";
+import { applyGain, decodeFrame, greyRect, mosaicChannels, shadingGain, type FrameChannels } from "./frames";
 import { probeImage } from "../limits";
 
 export type StitchInput = {
@@ -37,8 +37,8 @@ type Strips = { right?: GreyPatch; bottom?: GreyPatch };
  * (lib/mosaic/register-pair.ts), replaces weak pairs by the stage model and places the frames
  * by weighted least squares (lib/mosaic/placement.ts), then composes the mosaic band by band
  * (compose.ts) into `outPath`, an uncompressed strip BigTIFF that buildPyramid tiles like any
- * upload. Each frame is decoded once (plus a thumbnail when shading is corrected); its raw
- * pixels wait in `workDir` for composition, and registration keeps only edge strips of the
+ * upload. Each frame is decoded once (plus a thumbnail when shading is corrected) and
+ * corrected for shading; its raw pixels wait in `workDir` for composition, and registration keeps only edge strips of the
  * previous grid row. Frame 0 is at the origin of the fit; the mosaic's origin is then moved
  * to the top-left of the frames' bounding box.
  */
@@ -81,7 +81,6 @@ export async function stitchMosaic(input: StitchInput): Promise<MosaicLayout> {
       channels,
       width,
       height,
-      gain,
       outPath: input.outPath,
       onProgress: (p) => report("composing", p),
     });
@@ -97,7 +96,7 @@ type RegisterContext = StitchInput & {
   fw: number;
   fh: number;
   channels: FrameChannels;
-  gain: Float32Array | null;
+  gain: Uint16Array | null;
   rawPaths: string[];
 };
 
@@ -119,13 +118,17 @@ async function registerAll(ctx: RegisterContext, progress: (percent: number) => 
   const kept = new Map<number, Strips>();
   const measured: MeasuredPair[] = [];
   const writes: Promise<void>[] = [];
-  // One frame decodes while the previous one is measured.
-  const decode = (k: number) => (k < gridOrder.length ? decodeFrame(framePaths[gridOrder[k]], channels, fw, fh) : Promise.resolve(null));
-  let next = decode(0);
+  // Two frames decode ahead while the current one is measured.
+  const decode = (k: number) => {
+    const p = k < gridOrder.length ? decodeFrame(framePaths[gridOrder[k]], channels, fw, fh) : Promise.resolve(null);
+    p.catch(() => {}); // awaited in its turn; this only keeps an early failure from going unhandled
+    return p;
+  };
+  const ahead = [decode(0), decode(1)];
   for (let k = 0; k < gridOrder.length; k++) {
-    const pixels = (await next)!;
-    next = decode(k + 1);
-    next.catch(() => {}); // awaited on the next turn
+    const pixels = (await ahead.shift())!;
+    ahead.push(decode(k + 2));
+    if (gain) applyGain(pixels, gain);
     const index = gridOrder[k];
     const row = Math.floor(k / cols);
     const col = k % cols;
@@ -135,20 +138,20 @@ async function registerAll(ctx: RegisterContext, progress: (percent: number) => 
     const strips: Strips = {};
     if (col > 0) {
       const left = kept.get(k - 1)!;
-      const mine = greyRect(pixels, fw, channels, gain, 0, 0, stripW, fh);
+      const mine = greyRect(pixels, fw, channels, 0, 0, stripW, fh);
       const m = registerPair(left.right!, mine, { nominal: { dx: nominalX, dy: 0 }, search }, factor);
       measured.push({ a: gridOrder[k - 1], b: index, direction: "horizontal", nominal: { dx: nominalX, dy: 0 }, ...m });
       delete left.right;
     }
     if (row > 0) {
       const up = kept.get(k - cols)!;
-      const mine = greyRect(pixels, fw, channels, gain, 0, 0, fw, stripH);
+      const mine = greyRect(pixels, fw, channels, 0, 0, fw, stripH);
       const m = registerPair(up.bottom!, mine, { nominal: { dx: 0, dy: nominalY }, search }, factor);
       measured.push({ a: gridOrder[k - cols], b: index, direction: "vertical", nominal: { dx: 0, dy: nominalY }, ...m });
       kept.delete(k - cols);
     }
-    if (col < cols - 1) strips.right = greyRect(pixels, fw, channels, gain, fw - stripW, 0, stripW, fh);
-    if (row < rows - 1) strips.bottom = greyRect(pixels, fw, channels, gain, 0, fh - stripH, fw, stripH);
+    if (col < cols - 1) strips.right = greyRect(pixels, fw, channels, fw - stripW, 0, stripW, fh);
+    if (row < rows - 1) strips.bottom = greyRect(pixels, fw, channels, 0, fh - stripH, fw, stripH);
     kept.set(k, strips);
     progress(Math.floor((100 * (k + 1)) / gridOrder.length));
   }

@@ -111,7 +111,7 @@ export function MosaicPanel({ micrograph: m, editable }: { micrograph: Micrograp
         </ul>
       )}
       {mo.pairs.length > 0 && <DataTable data={mo.pairs} columns={COLUMNS} filterLabel="Filter pairs" empty="No pairs." scrollable />}
-      {editable && <StitchAgain m={m} />}
+      {editable && m.status === "ready" && <StitchAgain m={m} />}
     </section>
   );
 }

@@ -59,7 +59,7 @@ function child(script: string, args: string[]): Run {
 const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)];
 
 /** Prints stitch+tile time / tile time (target ≤ 2) and the stitch run's peak RSS (target < 1.5 GB); exits 1 on a miss. */
-export async function benchMosaic(rounds = 2) {
+export async function benchMosaic(rounds = 3) {
   const { framePaths, reference } = await fixture();
   const work = fs.mkdtempSync(path.join(os.tmpdir(), "kerfline-bench-mosaic-"));
   const list = path.join(work, "frames.json");

@@ -35,18 +35,9 @@ export async function decodeFrame(path: string, channels: FrameChannels, width: 
   return data;
 }
 
-/** Fixed-point 1.0 of a gain (14 fraction bits: gains up to 4 fit a Uint16Array). */
-const GAIN_SHIFT = 14;
+/** Fraction bits of a fixed-point gain (gains up to 4 fit a Uint16Array). */
+export const GAIN_SHIFT = 14;
 const GAIN_ONE = 1 << GAIN_SHIFT;
-
-/** Corrects a decoded frame's shading in place: every sample times its gain, rounded and clamped. */
-export function applyGain(pixels: Buffer, gain: Uint16Array): void {
-  const half = GAIN_ONE >> 1;
-  for (let i = 0; i < pixels.length; i++) {
-    const v = (pixels[i] * gain[i] + half) >> GAIN_SHIFT;
-    pixels[i] = v > 255 ? 255 : v;
-  }
-}
 
 /** Side of the thumbnails the shading is estimated on. */
 const SHADING_GRID = 32;
@@ -67,7 +58,8 @@ export async function shadingGain(framePaths: string[], channels: FrameChannels,
   for (let k = 0; k < framePaths.length && picked.length < SHADING_FRAMES; k += step) picked.push(framePaths[Math.floor(k)]);
   const g = SHADING_GRID;
   const thumbs = await Promise.all(picked.map((p) => pipeline(p, channels).resize(g, g, { fit: "fill", kernel: "linear" }).raw({ depth: "uchar" }).toBuffer()));
-  const gain = new Uint16Array(width * height * channels);
+  // Shared memory: the shading worker (gain-worker.ts) reads it too.
+  const gain = new Uint16Array(new SharedArrayBuffer(width * height * channels * 2));
   const values = new Float64Array(thumbs.length);
   for (let c = 0; c < channels; c++) {
     const median = new Float64Array(g * g);
@@ -111,15 +103,26 @@ function quadraticSurface(grid: Float64Array, g: number): ((x: number, y: number
 /**
  * A grey copy of one rectangle of a frame for registration: the frame itself when grey, the
  * green channel of a colour frame (the channel a colour sensor samples most densely; one read
- * per pixel instead of three).
+ * per pixel instead of three), times the shading gain when there is one.
  */
-export function greyRect(pixels: Buffer, width: number, channels: FrameChannels, x0: number, y0: number, w: number, h: number): GreyPatch {
+export function greyRect(
+  pixels: Uint8Array,
+  width: number,
+  channels: FrameChannels,
+  gain: Uint16Array | null,
+  x0: number,
+  y0: number,
+  w: number,
+  h: number,
+): GreyPatch {
   const data = new Float32Array(w * h);
+  const unit = 1 / GAIN_ONE;
+  const offset = channels === 1 ? 0 : 1;
   for (let y = 0; y < h; y++) {
-    const i0 = ((y0 + y) * width + x0) * channels;
+    const i0 = ((y0 + y) * width + x0) * channels + offset;
     const d0 = y * w;
-    if (channels === 1) for (let x = 0; x < w; x++) data[d0 + x] = pixels[i0 + x];
-    else for (let x = 0, i = i0 + 1; x < w; x++, i += 3) data[d0 + x] = pixels[i];
+    if (gain) for (let x = 0, i = i0; x < w; x++, i += channels) data[d0 + x] = pixels[i] * gain[i] * unit;
+    else for (let x = 0, i = i0; x < w; x++, i += channels) data[d0 + x] = pixels[i];
   }
   return { data, x0, y0, width: w, height: h };
 }

@@ -7,7 +7,8 @@ import { applyStageModel, placeFrames, type MeasuredPair } from "@/lib/mosaic/pl
 import { registerPair } from "@/lib/mosaic/register-pair";
 import type { MosaicLayout, StitchStage } from "@/lib/mosaic/types";
 import { composeMosaic } from "./compose";
-import { applyGain, decodeFrame, greyRect, mosaicChannels, shadingGain, type FrameChannels } from "./frames";
+import { startGainWorker, type GainWorker } from "./gain-worker";
+import { GAIN_SHIFT, decodeFrame, greyRect, mosaicChannels, shadingGain, type FrameChannels } from "./frames";
 import { probeImage } from "../limits";
 
 export type StitchInput = {
@@ -117,7 +118,11 @@ async function registerAll(ctx: RegisterContext, progress: (percent: number) => 
   const stripH = Math.min(fh, fh - nominalY + search.y);
   const kept = new Map<number, Strips>();
   const measured: MeasuredPair[] = [];
-  const writes: Promise<void>[] = [];
+  const frameBytes = fw * fh * channels;
+  // Frames in flight share a few buffers in shared memory (the shading worker writes them).
+  const pool = Array.from({ length: 3 }, () => new SharedArrayBuffer(frameBytes));
+  const released: Promise<void>[] = [];
+  const worker: GainWorker | null = gain ? startGainWorker(gain.buffer as SharedArrayBuffer, GAIN_SHIFT) : null;
   // Two frames decode ahead while the current one is measured.
   const decode = (k: number) => {
     const p = k < gridOrder.length ? decodeFrame(framePaths[gridOrder[k]], channels, fw, fh) : Promise.resolve(null);
@@ -125,36 +130,46 @@ async function registerAll(ctx: RegisterContext, progress: (percent: number) => 
     return p;
   };
   const ahead = [decode(0), decode(1)];
-  for (let k = 0; k < gridOrder.length; k++) {
-    const pixels = (await ahead.shift())!;
-    ahead.push(decode(k + 2));
-    if (gain) applyGain(pixels, gain);
-    const index = gridOrder[k];
-    const row = Math.floor(k / cols);
-    const col = k % cols;
-    const written = writeFile(ctx.rawPaths[index], pixels);
-    written.catch(() => {}); // awaited below; this only keeps an early failure from going unhandled
-    writes.push(written);
-    const strips: Strips = {};
-    if (col > 0) {
-      const left = kept.get(k - 1)!;
-      const mine = greyRect(pixels, fw, channels, 0, 0, stripW, fh);
-      const m = registerPair(left.right!, mine, { nominal: { dx: nominalX, dy: 0 }, search }, factor);
-      measured.push({ a: gridOrder[k - 1], b: index, direction: "horizontal", nominal: { dx: nominalX, dy: 0 }, ...m });
-      delete left.right;
+  try {
+    for (let k = 0; k < gridOrder.length; k++) {
+      const decoded = (await ahead.shift())!;
+      ahead.push(decode(k + 2));
+      if (released.length >= pool.length) await released[released.length - pool.length];
+      const shared = pool[k % pool.length];
+      const pixels = new Uint8Array(shared, 0, frameBytes);
+      pixels.set(decoded);
+      const index = gridOrder[k];
+      const row = Math.floor(k / cols);
+      const col = k % cols;
+      const strip = (x0: number, y0: number, w: number, h: number) => greyRect(pixels, fw, channels, gain, x0, y0, w, h);
+      const mineLeft = col > 0 ? strip(0, 0, stripW, fh) : null;
+      const mineTop = row > 0 ? strip(0, 0, fw, stripH) : null;
+      const strips: Strips = {};
+      if (col < cols - 1) strips.right = strip(fw - stripW, 0, stripW, fh);
+      if (row < rows - 1) strips.bottom = strip(0, fh - stripH, fw, stripH);
+      kept.set(k, strips);
+      // The strips are taken; the whole frame is corrected and saved beside the measuring.
+      const corrected = worker ? worker.apply(shared, frameBytes) : Promise.resolve();
+      const saved = corrected.then(() => writeFile(ctx.rawPaths[index], pixels));
+      saved.catch(() => {}); // awaited below; this only keeps an early failure from going unhandled
+      released.push(saved);
+      if (mineLeft) {
+        const left = kept.get(k - 1)!;
+        const m = registerPair(left.right!, mineLeft, { nominal: { dx: nominalX, dy: 0 }, search }, factor);
+        measured.push({ a: gridOrder[k - 1], b: index, direction: "horizontal", nominal: { dx: nominalX, dy: 0 }, ...m });
+        delete left.right;
+      }
+      if (mineTop) {
+        const m = registerPair(kept.get(k - cols)!.bottom!, mineTop, { nominal: { dx: 0, dy: nominalY }, search }, factor);
+        measured.push({ a: gridOrder[k - cols], b: index, direction: "vertical", nominal: { dx: 0, dy: nominalY }, ...m });
+        kept.delete(k - cols);
+      }
+      progress(Math.floor((100 * (k + 1)) / gridOrder.length));
     }
-    if (row > 0) {
-      const up = kept.get(k - cols)!;
-      const mine = greyRect(pixels, fw, channels, 0, 0, fw, stripH);
-      const m = registerPair(up.bottom!, mine, { nominal: { dx: 0, dy: nominalY }, search }, factor);
-      measured.push({ a: gridOrder[k - cols], b: index, direction: "vertical", nominal: { dx: 0, dy: nominalY }, ...m });
-      kept.delete(k - cols);
-    }
-    if (col < cols - 1) strips.right = greyRect(pixels, fw, channels, fw - stripW, 0, stripW, fh);
-    if (row < rows - 1) strips.bottom = greyRect(pixels, fw, channels, 0, fh - stripH, fw, stripH);
-    kept.set(k, strips);
-    progress(Math.floor((100 * (k + 1)) / gridOrder.length));
+    await Promise.all(released);
+  } finally {
+    await Promise.allSettled(released);
+    await worker?.close();
   }
-  await Promise.all(writes);
   return measured;
 }

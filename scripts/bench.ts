@@ -6,6 +6,7 @@ import { benchMarkup } from "./bench/markup";
 import { benchExport } from "./bench/export";
 import { benchServe } from "./bench/serve";
 import { benchStorage } from "./bench/storage";
+import { benchMosaic } from "./bench/mosaic";
 
 const only = process.argv[2];
 if (!only || only === "tiling") await benchTiling();
@@ -14,3 +15,4 @@ if (!only || only === "markup") await benchMarkup();
 if (!only || only === "export") await benchExport();
 if (!only || only === "serve") await benchServe();
 if (!only || only === "storage") await benchStorage();
+if (!only || only === "mosaic") await benchMosaic();

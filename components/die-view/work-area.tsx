@@ -7,6 +7,7 @@ import { CompareWorkArea } from "@/components/compare/compare-work-area";
 import { useDieWorkspace } from "./die-workspace-context";
 import { ViewerPane } from "./viewer-pane";
 import { WorkspaceOverlay } from "./workspace-overlay";
+import { FrameOutlines } from "@/components/mosaics/frame-outlines";
 
 /** The work area: the single view of the shown micrograph, or alignment and comparison, with markup on top. */
 export function WorkArea() {
@@ -32,6 +33,7 @@ export function WorkArea() {
           overlay={api && shown?.transform ? <WorkspaceOverlay api={api} imageToDie={shown.transform} /> : null}
         />
       )}
+      {work.kind === "view" && shown?.mosaic && shown.status === "ready" && <FrameOutlines key={shown.id} api={api} micrograph={shown} />}
       {work.kind === "view" && shown && !shown.transform && (
         <p role="status" className="absolute bottom-12 left-1/2 -translate-x-1/2 rounded bg-ink-900/95 px-3 py-1.5 text-xs text-ink-200">
           This micrograph is not in the die frame yet ({shown.scaleUmPerPx ? "align it to the reference" : "calibrate its scale"}); markup shows once it is.

@@ -4,8 +4,10 @@ import { useState } from "react";
 import type { MicrographDto } from "@/lib/dto/micrographs";
 import { Button } from "@/components/ui/button";
 import { ILLUMINATION_LABELS } from "@/lib/validation/micrographs";
+import { MosaicStageLine, showsStage } from "@/components/mosaics/mosaic-stage";
 
 function StatusLine({ m }: { m: MicrographDto }) {
+  if (showsStage(m)) return <MosaicStageLine m={m} />;
   if (m.status === "ready") return <span className="text-ok-400">Ready</span>;
   if (m.status === "failed")
     return (

@@ -5,12 +5,14 @@ export * from "./review";
 export * from "./work";
 export * from "./revisions";
 export * from "./sample";
+export * from "./mosaics";
 export * from "./relations";
 
 import type { auditEvents, exports } from "./work";
 import type { cases, dies, markup, micrographs, reviewStatusEnum } from "./dies";
 import type { comments, inboxItems, outbox, reviewEvents, threads } from "./review";
 import type { dieRevisions } from "./revisions";
+import type { mosaics } from "./mosaics";
 import type { caseSamples, custodyEvents } from "./sample";
 import type { invitations, memberships, roleEnum, teams, users } from "./people";
 
@@ -34,3 +36,4 @@ export type InboxItemRow = typeof inboxItems.$inferSelect;
 export type DieRevisionRow = typeof dieRevisions.$inferSelect;
 export type CaseSampleRow = typeof caseSamples.$inferSelect;
 export type CustodyEventRow = typeof custodyEvents.$inferSelect;
+export type MosaicRow = typeof mosaics.$inferSelect;

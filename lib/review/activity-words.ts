@@ -24,6 +24,7 @@ export const ACTIVITY_VERBS: Readonly<Record<string, string>> = {
   "micrograph.updated": "changed the capture data of",
   "micrograph.deleted": "deleted",
   "micrograph.retried": "retried the tiling of",
+  "micrograph.restitched": "stitched again",
   "micrograph.aligned": "aligned",
   "micrograph.reference_changed": "made {} the reference",
   "micrograph.reordered": "changed the order of the micrographs",

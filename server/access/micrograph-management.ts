@@ -4,7 +4,7 @@ import { micrographs } from "@/db/schema";
 import { type Actor, type Db } from "./context";
 import { assertMarkupOpen } from "./markup-lock";
 import { loadDie } from "./dies";
-import { listMicrographs, loadMicrograph } from "./micrographs";
+import { getMicrograph, listMicrographs, loadMicrograph } from "./micrographs";
 import type { MicrographDto } from "@/lib/dto/micrographs";
 import { recordAudit } from "./audit";
 import { BadRequestError } from "@/lib/errors";
@@ -35,7 +35,7 @@ export async function setReference(db: Db, actor: Actor, id: string): Promise<Mi
       after: { referenceId: id },
     });
   });
-  return (await loadMicrograph(db, actor, id, "read")).dto;
+  return getMicrograph(db, actor, id);
 }
 
 /**

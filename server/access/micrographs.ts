@@ -1,7 +1,8 @@
 import "server-only";
 import { asc, eq, sql } from "drizzle-orm";
-import { micrographs, type MicrographRow } from "@/db/schema";
-import { queueJob } from "./job-queue";
+import { micrographs, type MicrographRow, type MosaicRow } from "@/db/schema";
+import { queueJob, type JobKind } from "./job-queue";
+import { mosaicDto, mosaicNeedsStitch, mosaicsOf } from "./mosaics";
 import { type Actor, type Db } from "./context";
 import { assertMarkupOpen } from "./markup-lock";
 import { loadDie, loadDieOf } from "./dies";
@@ -14,7 +15,7 @@ import type { TeamAction, TeamRole } from "@/lib/auth/permissions";
 import type { MicrographDto } from "@/lib/dto/micrographs";
 import type { Transform } from "@/lib/geometry/types";
 
-function toDto(r: MicrographRow, role: TeamRole): MicrographDto {
+function toDto(r: MicrographRow, role: TeamRole, mosaic?: MosaicRow): MicrographDto {
   return {
     id: r.id,
     dieId: r.dieId,
@@ -38,6 +39,7 @@ function toDto(r: MicrographRow, role: TeamRole): MicrographDto {
     previewHeight: r.previewHeight,
     position: r.position,
     ...(r.error ? { error: r.error } : {}),
+    mosaic: mosaic ? mosaicDto(mosaic, r.status) : null,
     yourRole: role,
     createdAt: r.createdAt.toISOString(),
     updatedAt: r.updatedAt.toISOString(),
@@ -53,14 +55,19 @@ export async function loadMicrograph(db: Db, actor: Actor, id: string, action: T
 
 /** One micrograph as the caller may see it. */
 export async function getMicrograph(db: Db, actor: Actor, id: string): Promise<MicrographDto> {
-  return (await loadMicrograph(db, actor, id, "read")).dto;
+  const { row, die } = await loadMicrograph(db, actor, id, "read");
+  return toDto(row, die.role, (await mosaicsOf(db, [id])).get(id));
 }
 
 /** A die's micrographs in display order. */
 export async function listMicrographs(db: Db, actor: Actor, dieId: string): Promise<MicrographDto[]> {
   const { role } = await loadDie(db, actor, dieId, "read");
   const rows = await db.select().from(micrographs).where(eq(micrographs.dieId, dieId)).orderBy(asc(micrographs.position), asc(micrographs.createdAt));
-  return rows.map((r) => toDto(r, role));
+  const mosaics = await mosaicsOf(
+    db,
+    rows.map((r) => r.id),
+  );
+  return rows.map((r) => toDto(r, role, mosaics.get(r.id)));
 }
 
 export type NewMicrograph = {
@@ -83,9 +90,10 @@ export type NewMicrograph = {
 /**
  * Records an accepted upload and queues its tiling job, in the caller's transaction. The first
  * micrograph of a die becomes the reference that defines the die frame: µm from its scale,
- * y flipped, origin at its lower-left pixel corner until a die outline says otherwise.
+ * y flipped, origin at its lower-left pixel corner until a die outline says otherwise. A mosaic
+ * queues its stitch job instead (which queues the tiling when the image is composed).
  */
-export async function insertMicrograph(db: Db, actor: Actor, dieId: string, m: NewMicrograph): Promise<MicrographRow> {
+export async function insertMicrograph(db: Db, actor: Actor, dieId: string, m: NewMicrograph, job: JobKind = "tile"): Promise<MicrographRow> {
   const { teamId } = await loadDie(db, actor, dieId, "edit");
   const [{ n }] = await db
     .select({ n: sql<number>`count(*)::int` })
@@ -97,7 +105,7 @@ export async function insertMicrograph(db: Db, actor: Actor, dieId: string, m: N
     .insert(micrographs)
     .values({ ...m, dieId, isReference, transform, position: n, status: "queued", progress: 0, createdBy: actor.userId })
     .returning();
-  await queueJob(db, "tile", row.id);
+  await queueJob(db, job, row.id);
   await recordAudit(db, actor, { teamId, action: "micrograph.uploaded", entityType: "micrograph", entityId: row.id, dieId, after: row });
   return row;
 }
@@ -165,7 +173,7 @@ export async function retryTiling(db: Db, actor: Actor, id: string): Promise<Mic
   await db.transaction(async (tx) => {
     const { row, die } = await loadMicrograph(tx, actor, id, "edit");
     if (row.status !== "failed") throw new ConflictError(`Only a failed micrograph can be tiled again; this one is ${row.status}.`);
-    await queueJob(tx, "tile", id);
+    await queueJob(tx, (await mosaicNeedsStitch(tx, id)) ? "stitch" : "tile", id);
     const [after] = await tx
       .update(micrographs)
       .set({ status: "queued", progress: 0, error: null, updatedAt: new Date() })

@@ -1,6 +1,6 @@
 import "server-only";
 import { objectStore } from "../storage";
-import { derivedKeys, diePrefixes, micrographKeys } from "../storage/keys";
+import { derivedKeys, diePrefixes, micrographKeys, mosaicFramesPrefix } from "../storage/keys";
 import { forgetTilePack, forgetTilePacksUnder } from "../storage/tile-pack";
 
 /**
@@ -17,9 +17,10 @@ export async function removeDieFiles(dieIds: string[]): Promise<void> {
   }
 }
 
-/** Removes one micrograph's objects after its row is gone: original, pack, preview, thumbnail. */
+/** Removes one micrograph's objects after its row is gone: original, pack, preview, thumbnail, and a mosaic's frames. */
 export async function removeMicrographFiles(dieId: string, micrographId: string, format: string | null): Promise<void> {
   const original = micrographKeys(dieId, micrographId, format).original;
   await Promise.all([...derivedKeys(dieId, micrographId), ...(original ? [original] : [])].map((k) => objectStore().remove(k)));
+  await objectStore().removePrefix(mosaicFramesPrefix(dieId, micrographId));
   forgetTilePack(micrographKeys(dieId, micrographId).pack);
 }

@@ -16,6 +16,8 @@ export const BOSS_SCHEMA = "pgboss";
 
 /** Attempts of a tiling job, as before pg-boss: the first and two retries. */
 export const TILE_ATTEMPTS = 3;
+/** Attempts of a mosaic's stitch: a killed attempt starts again from the stored frames. */
+export const STITCH_ATTEMPTS = 3;
 /** Attempts of an export. */
 const EXPORT_ATTEMPTS = 3;
 
@@ -29,6 +31,7 @@ const EXPORT_ATTEMPTS = 3;
 function queueOptions(): Record<JobKind, Omit<PgBoss.Queue, "name">> {
   return {
     tile: { retryLimit: TILE_ATTEMPTS - 1, retryDelay: 2, retryBackoff: true, expireInSeconds: 23 * 3600, deadLetter: gaveUpQueue("tile") },
+    stitch: { retryLimit: STITCH_ATTEMPTS - 1, retryDelay: 2, retryBackoff: true, expireInSeconds: 23 * 3600, deadLetter: gaveUpQueue("stitch") },
     export: { retryLimit: EXPORT_ATTEMPTS - 1, retryDelay: 1, retryBackoff: true, expireInSeconds: 3600, deadLetter: gaveUpQueue("export") },
     mail: {
       retryLimit: MAX_SEND_ATTEMPTS - 1,

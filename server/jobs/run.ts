@@ -5,6 +5,7 @@ import { mailDelivery } from "../mail/sender";
 import { startBoss } from "./boss";
 import { exporting } from "./export";
 import { tiling, tilingWorkerCount } from "./tiling";
+import { stitching } from "./stitch";
 import { drainGaveUp, failStaleJobs, startJobWorkers, type WorkerPlan } from "./worker";
 
 /** Raised before anything starts when the processes are configured in a way that cannot work. */
@@ -37,6 +38,8 @@ function workerPlans(): WorkerPlan[] {
   const mailPoll = Math.max(0.5, env().KERFLINE_MAIL_POLL_MS / 1000);
   return [
     { handler: tiling, count: tilingWorkerCount(), pollSeconds: 1 },
+    // One stitch at a time: composition uses every core sharp is given.
+    { handler: stitching, count: 1, pollSeconds: 1 },
     // One export at a time, so a large render never takes every core from tiling.
     { handler: exporting, count: 1, pollSeconds: 1 },
     { handler: mailDelivery, count: 1, pollSeconds: mailPoll },

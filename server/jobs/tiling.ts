@@ -73,6 +73,24 @@ async function tileMicrograph(db: Database, micrographId: string): Promise<void>
   if (!still) await removeDerived(m.dieId, m.id);
 }
 
+/**
+ * Builds preview, packed pyramid and thumbnail of a local image in `work`, storing nothing: a
+ * stitch again builds them beside the pyramid being served and stores them only at the end.
+ */
+export async function buildDerivedFiles(originalPath: string, work: string, onProgress: (percent: number) => void) {
+  const cap = env().KERFLINE_MAX_PIXELS;
+  const preview = path.join(/*turbopackIgnore: true*/ work, "preview.jpg");
+  const previewSize = await buildPreview(originalPath, preview, 2048, cap);
+  const folder = path.join(/*turbopackIgnore: true*/ work, "pyramid");
+  const pyramid = await buildPyramid(originalPath, folder, { pixelCap: cap, onProgress });
+  const thumbnail = path.join(/*turbopackIgnore: true*/ work, "thumb.jpg");
+  await buildThumbnail(originalPath, thumbnail, 256, cap);
+  const pack = path.join(/*turbopackIgnore: true*/ work, "pyramid.tilepack");
+  await writeTilePack(folder, pyramid, pack);
+  await fs.rm(folder, { recursive: true, force: true });
+  return { preview, previewSize, thumbnail, pack };
+}
+
 async function markFailed(db: Database, micrographId: string, message: string) {
   await setTilingState(db, micrographId, { status: "failed", error: message });
 }

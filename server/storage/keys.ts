@@ -9,6 +9,7 @@ import "server-only";
  *   tiles/<dieId>/<micrographId>-preview.jpg      made first, shown while tiling
  *   tiles/<dieId>/<micrographId>-thumb.jpg        made last
  *   exports/<dieId>/<exportId>.png                a rendered export
+ *   mosaics/<dieId>/<micrographId>/<n>.<ext>      frame n (0-based, capture order) of a mosaic
  */
 const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
@@ -20,7 +21,7 @@ const checkId = (id: string) => {
 const EXTENSION = { jpeg: "jpg", png: "png", tiff: "tif", bigtiff: "tif", webp: "webp" } as const;
 type StoredFormat = keyof typeof EXTENSION;
 
-const AREAS = ["originals", "tiles", "exports"] as const;
+const AREAS = ["originals", "tiles", "exports", "mosaics"] as const;
 
 /** The keys of one micrograph's objects; `original` is null while its format is unknown. */
 export function micrographKeys(dieId: string, micrographId: string, format?: string | null) {
@@ -39,6 +40,15 @@ export function micrographKeys(dieId: string, micrographId: string, format?: str
 export function derivedKeys(dieId: string, micrographId: string): string[] {
   const k = micrographKeys(dieId, micrographId);
   return [k.pack, k.preview, k.thumbnail];
+}
+
+/** The folder of a mosaic's stored frames: one prefix, so deleting the micrograph removes them all. */
+export const mosaicFramesPrefix = (dieId: string, micrographId: string) => `mosaics/${checkId(dieId)}/${checkId(micrographId)}/`;
+
+/** Frame `index` (0-based, capture order) of a mosaic, stored in its own format. */
+export function mosaicFrameKey(dieId: string, micrographId: string, index: number, format: string): string {
+  if (!(format in EXTENSION) || !Number.isInteger(index) || index < 0) throw new Error(`not a frame: ${index}.${format}`);
+  return `${mosaicFramesPrefix(dieId, micrographId)}${index}.${EXTENSION[format as StoredFormat]}`;
 }
 
 export const exportKey = (dieId: string, exportId: string) => `exports/${checkId(dieId)}/${checkId(exportId)}.png`;

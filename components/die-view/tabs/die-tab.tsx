@@ -6,6 +6,8 @@ import { queryKeys } from "@/lib/client/query-keys";
 import { Button } from "@/components/ui/button";
 import { MicrographList } from "@/components/micrographs/micrograph-list";
 import { MicrographsManager } from "@/components/compare/micrographs-manager";
+import { UploadMosaicButton } from "@/components/mosaics/upload-mosaic-button";
+import { MosaicPanel } from "@/components/mosaics/mosaic-panel";
 import { DieDetails } from "../die-details";
 import { useDieWorkspace } from "../die-workspace-context";
 
@@ -17,12 +19,15 @@ export function DieTab() {
     <div className="flex flex-col gap-5">
       <DieDetails die={die} umPerPx={umPerPx} />
       <section aria-label="Micrographs" className="flex flex-col gap-2">
-        <div className="flex items-center justify-between">
+        <div className="flex flex-wrap items-center justify-between gap-2">
           <h2 className="text-sm font-semibold">Micrographs</h2>
           {editable && (
-            <Button variant="primary" onClick={() => setUploadOpen(true)}>
-              Upload micrograph
-            </Button>
+            <span className="flex gap-2 whitespace-nowrap">
+              <UploadMosaicButton />
+              <Button variant="primary" onClick={() => setUploadOpen(true)}>
+                Upload micrograph
+              </Button>
+            </span>
           )}
         </div>
         {micrographs.isPending ? (
@@ -43,6 +48,7 @@ export function DieTab() {
           />
         )}
       </section>
+      {shown?.mosaic && <MosaicPanel micrograph={shown} editable={editable} />}
       <MicrographsManager dieId={die.id} items={list} editable={editable} onWork={setWork} />
     </div>
   );

@@ -7,9 +7,9 @@ import type { PxBoxDto, SimilarCandidateDto, UmBoxDto } from "@/lib/dto/find-sim
  * A template smaller than this on either side carries too few pixels for a correlation score
  * to mean anything (an 8 × 8 patch is 64 samples; fewer and noise alone reaches high scores).
  */
-export const MIN_TEMPLATE_PX = 8;
+const MIN_TEMPLATE_PX = 8;
 /** Largest template side: bounds the memory of one search (the template is read at full resolution). */
-export const MAX_TEMPLATE_PX = 4096;
+const MAX_TEMPLATE_PX = 4096;
 
 type ImageSize = { readonly width: number; readonly height: number };
 
@@ -95,7 +95,7 @@ export function overlapShare(a: UmBoxDto, b: BoundingBox): number {
  * smaller) is covered by a shape of the same kind: hand-drawn outlines are a few µm off, and
  * neighbouring pads at their pitch never share that much.
  */
-export const MARKED_OVERLAP = 0.25;
+const MARKED_OVERLAP = 0.25;
 
 /** The candidates not already covered by one of `marked` (bounding boxes of existing shapes of the kind). */
 export function withoutMarked<C extends { boxUm: UmBoxDto }>(candidates: readonly C[], marked: readonly BoundingBox[]): C[] {

@@ -34,7 +34,7 @@ export function DetectEdge({ editor, state, micrographId }: { editor: Editor; st
     <section
       role="region"
       aria-label="Die edge"
-      className="absolute left-3 top-3 z-20 flex max-w-xs flex-col gap-2 rounded border border-ink-700 bg-ink-900/95 p-3 text-xs text-ink-100 shadow"
+      className="pointer-events-auto absolute left-14 top-3 z-30 flex max-w-xs flex-col gap-2 rounded border border-ink-700 bg-ink-900/95 p-3 text-xs text-ink-100 shadow"
     >
       <p>Drag a rectangle around the die, or let the edge be found in the image.</p>
       <Button onClick={detect} disabled={busy}>

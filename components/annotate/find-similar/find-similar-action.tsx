@@ -9,7 +9,7 @@ export function FindSimilarAction({ similar }: { similar: SimilarSearch }) {
   const busy = similar.session?.phase === "searching";
   return (
     <div className="flex items-center gap-2">
-      <Button onClick={similar.start} disabled={busy} aria-keyshortcuts="L" title="Find similar (L)">
+      <Button onClick={similar.start} disabled={busy} aria-keyshortcuts="L" title="Find similar (L)" className="whitespace-nowrap">
         Find similar
       </Button>
       <span className="text-xs text-ink-400">Looks for more like it on the shown micrograph.</span>

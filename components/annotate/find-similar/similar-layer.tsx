@@ -52,7 +52,9 @@ function CandidateClicks({ api, imageToDie, similar }: { api: ViewerApi; imageTo
   );
 }
 
-const panel = "absolute right-3 top-3 z-20 flex w-72 flex-col gap-2 rounded border border-ink-700 bg-ink-900/95 p-3 text-xs text-ink-100 shadow";
+// Top centre, one compact block above the die's top row of pads at the fit view (as the calibration tool's panel).
+const panel =
+  "pointer-events-auto absolute left-1/2 top-2 z-30 flex w-[min(36rem,calc(100%-7rem))] -translate-x-1/2 flex-col gap-1.5 rounded-lg border border-ink-700 bg-ink-900/95 px-3 py-2 text-xs text-ink-100 shadow-lg";
 
 /** The search's progress, then the score slider, the counts and "Add N"; Escape or Cancel ends it. */
 function SimilarPanel({ similar }: { similar: SimilarSearch }) {
@@ -67,19 +69,24 @@ function SimilarPanel({ similar }: { similar: SimilarSearch }) {
   if (s.phase === "searching") {
     return (
       <section role="region" aria-label="Find similar" className={panel}>
-        <p>Looking for shapes like {what}…</p>
-        <progress max={100} value={s.progress} aria-label="Search progress" className="h-1.5 w-full accent-kerf-500" />
-        <div className="flex justify-end">{cancel}</div>
+        <div className="flex items-center gap-3">
+          <p className="shrink-0">Looking for shapes like {what}…</p>
+          <progress max={100} value={s.progress} aria-label="Search progress" className="h-1.5 min-w-0 flex-1 accent-kerf-500" />
+          <span className="shrink-0 tabular-nums">{Math.round(s.progress)} %</span>
+          {cancel}
+        </div>
       </section>
     );
   }
   if (s.phase === "failed") {
     return (
       <section role="region" aria-label="Find similar" className={panel}>
-        <p role="alert" className="text-danger-400">
-          {s.message}
-        </p>
-        <div className="flex justify-end">{cancel}</div>
+        <div className="flex items-center gap-3">
+          <p role="alert" className="flex-1 text-danger-400">
+            {s.message}
+          </p>
+          {cancel}
+        </div>
       </section>
     );
   }
@@ -87,30 +94,26 @@ function SimilarPanel({ similar }: { similar: SimilarSearch }) {
   const n = similar.kept.length;
   return (
     <section role="region" aria-label="Find similar" className={panel}>
-      <p>Shapes like {what}: click one on the image to drop or keep it.</p>
-      <label className="flex items-center gap-2">
-        <span className="shrink-0">Score ≥ {threshold}</span>
-        <input
-          type="range"
-          min={0.5}
-          max={0.99}
-          step={0.01}
-          value={s.threshold}
-          onChange={(e) => similar.setThreshold(Number(e.target.value))}
-          aria-label="Lowest score shown"
-          className="w-full accent-kerf-500"
-        />
-      </label>
-      {similar.shown.length === 0 ? (
-        <p data-testid="similar-count">No similar shapes above {threshold}</p>
-      ) : (
-        <p data-testid="similar-count">
-          {similar.shown.length} found, {n} kept
-        </p>
-      )}
-      <div className="flex justify-end gap-2">
+      <p className="text-ink-300">Shapes like {what}: click one on the image to drop or keep it.</p>
+      <div className="flex items-center gap-3">
+        <label className="flex min-w-0 flex-1 items-center gap-2">
+          <span className="shrink-0 tabular-nums">Score ≥ {threshold}</span>
+          <input
+            type="range"
+            min={0.5}
+            max={0.99}
+            step={0.01}
+            value={s.threshold}
+            onChange={(e) => similar.setThreshold(Number(e.target.value))}
+            aria-label="Lowest score shown"
+            className="min-w-0 flex-1 accent-kerf-500"
+          />
+        </label>
+        <span data-testid="similar-count" className="shrink-0 tabular-nums">
+          {similar.shown.length === 0 ? `No similar shapes above ${threshold}` : `${similar.shown.length} found, ${n} kept`}
+        </span>
         {cancel}
-        <Button variant="primary" disabled={n === 0} onClick={similar.add}>
+        <Button variant="primary" disabled={n === 0} onClick={similar.add} className="whitespace-nowrap">
           Add {n}
         </Button>
       </div>

@@ -14,12 +14,12 @@ import { drawCandidates } from "./candidate-drawer";
 /** The server is asked for everything down to this score, so the slider can go below its start. */
 const ASK_MIN_SCORE = 0.5;
 /** Where the slider starts: the API's default threshold. */
-export const START_THRESHOLD = 0.7;
+const START_THRESHOLD = 0.7;
 const POLL_MS = 400;
 
 /** One "find similar" run: searching with progress, reviewing candidates, or failed. */
 type Base = { token: number; template: AnyShape; micrographId: string };
-export type SimilarSession =
+type SimilarSession =
   | (Base & { phase: "searching"; progress: number })
   | (Base & { phase: "review"; candidates: SimilarCandidateDto[]; dropped: ReadonlySet<number>; threshold: number })
   | (Base & { phase: "failed"; message: string });

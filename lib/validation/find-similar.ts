@@ -2,7 +2,7 @@ import { z } from "zod";
 import { uuidSchema } from "./common";
 
 /** The quarter turns a template may be tried at. */
-export const SEARCH_ROTATIONS = [0, 90, 180, 270] as const;
+const SEARCH_ROTATIONS = [0, 90, 180, 270] as const;
 /** The kinds a search finds: the repeated features an analyst marks. */
 export const SEARCHABLE_KINDS = ["pad", "block"] as const;
 
@@ -12,7 +12,7 @@ const px = z.number("must be a number").finite("must be finite").min(0, "must no
 const sidePx = z.number("must be a number").finite("must be finite").min(0, "must not be negative").max(MAX_COORD_PX, "is too large");
 
 /** A box in one micrograph's pixels: (x, y) its top-left corner, y down. */
-export const pxBoxSchema = z.strictObject({ x: px, y: px, w: sidePx, h: sidePx });
+const pxBoxSchema = z.strictObject({ x: px, y: px, w: sidePx, h: sidePx });
 
 const options = {
   minScore: z.number("must be a number").finite("must be finite").min(0, "must be between 0 and 1").max(1, "must be between 0 and 1").default(0.7),

@@ -11,3 +11,10 @@ export type Rotation = 0 | 90 | 180 | 270;
 
 /** One match: its box and sub-pixel centre in image px, its ZNCC score and the variant that matched. */
 export type MatchCandidate = { box: PxBox; centre: [number, number]; score: number; rotation: Rotation; mirrored: boolean };
+
+/**
+ * Pixels of a micrograph read a region at a time, so a search never holds the whole image at
+ * full resolution. `read(box, scale)` gives the box (inside the image) at `scale` ≤ 1: a raster
+ * of max(1, round(w·scale)) × max(1, round(h·scale)) px, each the mean of the area it covers.
+ */
+export type PixelSource = { width: number; height: number; read(box: PxBox, scale: number): Promise<Gray> };

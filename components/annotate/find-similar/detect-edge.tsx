@@ -34,12 +34,14 @@ export function DetectEdge({ editor, state, micrographId }: { editor: Editor; st
     <section
       role="region"
       aria-label="Die edge"
-      className="pointer-events-auto absolute left-14 top-3 z-30 flex max-w-xs flex-col gap-2 rounded border border-ink-700 bg-ink-900/95 p-3 text-xs text-ink-100 shadow"
+      className="pointer-events-auto absolute left-1/2 top-2 z-30 flex w-[min(30rem,calc(100%-7rem))] -translate-x-1/2 flex-col gap-1.5 rounded-lg border border-ink-700 bg-ink-900/95 px-3 py-2 text-xs text-ink-100 shadow-lg"
     >
-      <p>Drag a rectangle around the die, or let the edge be found in the image.</p>
-      <Button onClick={detect} disabled={busy}>
-        {busy ? "Detecting…" : "Detect edge"}
-      </Button>
+      <div className="flex items-center gap-3">
+        <p className="flex-1">Drag a rectangle around the die, or let the edge be found in the image.</p>
+        <Button onClick={detect} disabled={busy} className="whitespace-nowrap">
+          {busy ? "Detecting…" : "Detect edge"}
+        </Button>
+      </div>
       {note && (
         <p role={note.error ? "alert" : "status"} className={note.error ? "text-danger-400" : "text-ink-300"}>
           {note.text}

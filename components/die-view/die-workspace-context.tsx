@@ -11,6 +11,7 @@ import type { OverlayDrawer } from "@/components/annotate/markup-overlay";
 import type { Editor, EditorState } from "@/components/annotate/editor/types";
 import { useEditorState, useMarkupEditor, type SaveState } from "@/components/annotate/use-markup-editor";
 import { useMarkupWorkspace } from "@/components/annotate/markup-workspace";
+import { useSimilarSearch, type SimilarSearch } from "@/components/annotate/find-similar/use-similar-search";
 import { useReviewBench, type ReviewBench } from "@/components/review/use-review-bench";
 import { useSymmetryView, type SymmetryView } from "@/components/layout-reading/use-symmetry-view";
 import { useWorkModeInUrl } from "@/components/compare/use-work-mode-url";
@@ -56,7 +57,9 @@ export type DieWorkspace = {
   markup: ReturnType<typeof useMarkupWorkspace>;
   symmetry: SymmetryView;
   review: ReviewBench;
-  /** What the overlay draws besides markup: the symmetry view and the review pins. */
+  /** "Find similar" from the selected pad or block on the shown micrograph (single view only). */
+  similar: SimilarSearch;
+  /** What the overlay draws besides markup: the symmetry view, the review pins and found candidates. */
   drawers: OverlayDrawer[];
   uploadOpen: boolean;
   setUploadOpen: (open: boolean) => void;
@@ -107,7 +110,12 @@ export function DieWorkspaceProvider({
   const markup = useMarkupWorkspace(editor, state, api, (compareTop ?? shown)?.transform ?? null, die.teamId, die.id);
   const symmetry = useSymmetryView(state?.shapeList);
   const review = useReviewBench(die.id, linkedThreadId, state, api, shownTransform, markup.pick);
-  const drawers = useMemo(() => [...symmetry.drawers, review.drawer], [symmetry.drawers, review.drawer]);
+  const single = work.kind === "view" ? shown : null;
+  const similar = useSimilarSearch(editor, state, single?.id ?? null, single?.transform ?? null);
+  const drawers = useMemo(
+    () => [...symmetry.drawers, review.drawer, ...(similar.drawer ? [similar.drawer] : [])],
+    [symmetry.drawers, review.drawer, similar.drawer],
+  );
   const selected = useMemo(() => (state ? [...state.selection].map((id) => state.shapes.get(id)!).filter(Boolean) : []), [state]);
   const value: DieWorkspace = {
     die,
@@ -138,6 +146,7 @@ export function DieWorkspaceProvider({
     markup,
     symmetry,
     review,
+    similar,
     drawers,
     uploadOpen,
     setUploadOpen,

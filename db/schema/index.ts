@@ -8,7 +8,7 @@ export * from "./sample";
 export * from "./mosaics";
 export * from "./relations";
 
-import type { auditEvents, exports } from "./work";
+import type { auditEvents, exports, imageSearches } from "./work";
 import type { cases, dies, markup, micrographs, reviewStatusEnum } from "./dies";
 import type { comments, inboxItems, outbox, reviewEvents, threads } from "./review";
 import type { dieRevisions } from "./revisions";
@@ -31,6 +31,7 @@ export type ReviewEventRow = typeof reviewEvents.$inferSelect;
 export type InvitationRow = typeof invitations.$inferSelect;
 export type OutboxRow = typeof outbox.$inferSelect;
 export type ExportRow = typeof exports.$inferSelect;
+export type ImageSearchRow = typeof imageSearches.$inferSelect;
 export type MarkupRow = typeof markup.$inferSelect;
 export type InboxItemRow = typeof inboxItems.$inferSelect;
 export type DieRevisionRow = typeof dieRevisions.$inferSelect;

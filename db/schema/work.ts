@@ -1,9 +1,11 @@
-// Background work and the record of changes: job heartbeats, exports, the audit trail.
+// Background work and the record of changes: job heartbeats, exports, image searches, the audit trail.
 import { index, integer, jsonb, pgEnum, pgTable, text, timestamp, uuid, bigint } from "drizzle-orm/pg-core";
 import { EXPORT_KINDS, JOB_STATUSES } from "@/lib/dto/stored-values";
 import { createdAt } from "./columns";
 import { users, teams } from "./people";
 import { dies, micrographs } from "./dies";
+import type { FindSimilarResult } from "@/lib/dto/find-similar";
+import type { ImageSearchParams } from "@/lib/similar-shapes/params";
 
 export const jobStatusEnum = pgEnum("job_status", JOB_STATUSES);
 
@@ -63,4 +65,33 @@ export const exports = pgTable(
     finishedAt: timestamp("finished_at", { withTimezone: true }),
   },
   (t) => [index("exports_die_idx").on(t.dieId, t.createdAt)],
+);
+
+/**
+ * A template search on one micrograph ("find similar"), run as a job: status and progress
+ * while it runs, then the candidates it found. Kept as a row so the page can poll it and a
+ * retried attempt starts from the same request.
+ */
+export const imageSearches = pgTable(
+  "image_searches",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    dieId: uuid("die_id")
+      .notNull()
+      .references(() => dies.id, { onDelete: "cascade" }),
+    micrographId: uuid("micrograph_id")
+      .notNull()
+      .references(() => micrographs.id, { onDelete: "cascade" }),
+    status: jobStatusEnum("status").notNull().default("queued"),
+    progress: integer("progress").notNull().default(0),
+    /** The request as resolved: template box in image px, kind, options, template size in µm. */
+    params: jsonb("params").$type<ImageSearchParams>().notNull(),
+    /** The answer once done: candidates best first, pixels searched, time taken. */
+    result: jsonb("result").$type<FindSimilarResult | null>(),
+    error: text("error"),
+    createdBy: uuid("created_by").references(() => users.id, { onDelete: "set null" }),
+    createdAt: createdAt(),
+    finishedAt: timestamp("finished_at", { withTimezone: true }),
+  },
+  (t) => [index("image_searches_micrograph_idx").on(t.micrographId, t.createdAt)],
 );

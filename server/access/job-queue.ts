@@ -6,10 +6,10 @@ import type { Db } from "./context";
 // lives here with the data access; server/jobs starts pg-boss and runs the jobs.
 
 /** The kinds of job a worker runs, each a pg-boss queue of that name. */
-export const JOB_KINDS = ["tile", "export", "mail", "stitch"] as const;
+export const JOB_KINDS = ["tile", "export", "mail", "stitch", "find"] as const;
 export type JobKind = (typeof JOB_KINDS)[number];
 
-/** What every job carries: the row it works on (a micrograph, an export, an outbox message). */
+/** What every job carries: the row it works on (a micrograph, an export, an outbox message, a mosaic, an image search). */
 export type JobData = { subjectId: string };
 
 /** What pg-boss needs of a connection: PGlite and its transactions, a node-postgres pool or pool client. */

@@ -1,6 +1,16 @@
 import "server-only";
-import { eq, inArray, sql } from "drizzle-orm";
-import { exports as exportsTable, jobHeartbeats, micrographs, type ExportRow, type MicrographRow } from "@/db/schema";
+import { and, eq, inArray, lt, sql } from "drizzle-orm";
+import {
+  exports as exportsTable,
+  imageSearches,
+  jobHeartbeats,
+  markup,
+  micrographs,
+  type ExportRow,
+  type ImageSearchRow,
+  type MicrographRow,
+} from "@/db/schema";
+import { boundingBox, type BoundingBox } from "@/lib/geometry/measure";
 import type { Db } from "./context";
 
 // The rows background jobs read and move through their states. Jobs run on behalf of a request
@@ -48,6 +58,39 @@ export async function setExportState(
   changes: Partial<Pick<ExportRow, "status" | "progress" | "error" | "fileName" | "bytes" | "params" | "finishedAt">>,
 ): Promise<void> {
   await db.update(exportsTable).set(changes).where(eq(exportsTable.id, exportId));
+}
+
+/** The image search a find job works on, or null when its micrograph (and so the search) was deleted. */
+export async function searchForJob(db: Db, searchId: string): Promise<ImageSearchRow | null> {
+  const [row] = await db.select().from(imageSearches).where(eq(imageSearches.id, searchId));
+  return row ?? null;
+}
+
+/** Moves a search's state (running with progress, done with its result, failed with a reason). */
+export async function setSearchState(
+  db: Db,
+  searchId: string,
+  changes: Partial<Pick<ImageSearchRow, "status" | "progress" | "error" | "result" | "finishedAt">>,
+): Promise<void> {
+  await db.update(imageSearches).set(changes).where(eq(imageSearches.id, searchId));
+}
+
+/** Bounding boxes (die µm) of the die's shapes of one kind, as they are now: candidates on them are already marked. */
+export async function markedBoxes(db: Db, dieId: string, kind: "pad" | "block"): Promise<BoundingBox[]> {
+  const rows = await db
+    .select({ geometry: markup.geometry })
+    .from(markup)
+    .where(and(eq(markup.dieId, dieId), eq(markup.kind, kind)));
+  return rows.map((r) => boundingBox(r.geometry));
+}
+
+/** Deletes searches finished before `olderThan` (their answers were read long ago); returns how many. */
+export async function expireSearches(db: Db, olderThan: Date): Promise<number> {
+  const gone = await db
+    .delete(imageSearches)
+    .where(and(inArray(imageSearches.status, ["done", "failed"]), lt(imageSearches.finishedAt, olderThan)))
+    .returning({ id: imageSearches.id });
+  return gone.length;
 }
 
 /** Records that `worker` (host:pid) still holds job `jobId` (written every few seconds while it runs). */

@@ -20,6 +20,8 @@ export const TILE_ATTEMPTS = 3;
 export const STITCH_ATTEMPTS = 3;
 /** Attempts of an export. */
 const EXPORT_ATTEMPTS = 3;
+/** Attempts of an image search: one retry (a search is repeatable; a second failure is the search's own). */
+const FIND_ATTEMPTS = 2;
 
 /**
  * Retry, back-off and expiry per queue (pg-boss docs, "Queues": retryLimit counts retries after
@@ -40,6 +42,8 @@ function queueOptions(): Record<JobKind, Omit<PgBoss.Queue, "name">> {
       expireInSeconds: 600,
       deadLetter: gaveUpQueue("mail"),
     },
+    // A search reads a reduced level and then small windows: minutes at most on the largest micrographs.
+    find: { retryLimit: FIND_ATTEMPTS - 1, retryDelay: 1, retryBackoff: true, expireInSeconds: 1800, deadLetter: gaveUpQueue("find") },
   };
 }
 

@@ -4,6 +4,7 @@ import { env } from "../env";
 import { mailDelivery } from "../mail/sender";
 import { startBoss } from "./boss";
 import { exporting } from "./export";
+import { findingSimilar } from "./find-similar";
 import { tiling, tilingWorkerCount } from "./tiling";
 import { stitching } from "./stitch";
 import { drainGaveUp, failStaleJobs, startJobWorkers, type WorkerPlan } from "./worker";
@@ -43,6 +44,8 @@ function workerPlans(): WorkerPlan[] {
     // One export at a time, so a large render never takes every core from tiling.
     { handler: exporting, count: 1, pollSeconds: 1 },
     { handler: mailDelivery, count: 1, pollSeconds: mailPoll },
+    // One search at a time: it is interactive, but a second at once would halve both.
+    { handler: findingSimilar, count: 1, pollSeconds: 0.5 },
   ];
 }
 

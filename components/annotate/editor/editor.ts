@@ -1,4 +1,6 @@
 import { deletionChanges, duplicateChanges, moveChanges, propertyChanges } from "./commands";
+import { createShape } from "./shape-factory";
+import { proposedDieOutline } from "./tools/die-outline";
 import { createEditorCore, type EditorCore } from "./editor-core";
 import { runKeyAction } from "./key-actions";
 import { mergeEcho } from "./model";
@@ -29,7 +31,9 @@ function inputPart(core: EditorCore, editor: () => Editor): Part<"pointerDown" |
 }
 
 /** Commands that change markup; each ends a drawing or drag in progress first. */
-function editPart(core: EditorCore): Part<"deleteSelection" | "duplicateSelection" | "nudge" | "undo" | "redo" | "updateProperties"> {
+function editPart(
+  core: EditorCore,
+): Part<"deleteSelection" | "duplicateSelection" | "addShapes" | "proposeDieOutline" | "nudge" | "undo" | "redo" | "updateProperties"> {
   const { store, ctx, writer, shapes, stamp, canEdit, interrupt } = core;
   const editing = (run: () => void) =>
     store.batch(() => {
@@ -45,6 +49,18 @@ function editPart(core: EditorCore): Part<"deleteSelection" | "duplicateSelectio
         const { changes, ids } = duplicateChanges(shapes(), selection(), stamp);
         ctx.commit(changes);
         if (ids.length > 0) ctx.setSelection(ids);
+      }),
+    addShapes: (drafts) =>
+      editing(() => {
+        if (drafts.length === 0) return;
+        const created = drafts.map((d) => createShape(d, stamp));
+        ctx.commit(created.map((after) => ({ before: null, after })));
+        ctx.setSelection(created.map((s) => s.id));
+      }),
+    proposeDieOutline: (geometry) =>
+      editing(() => {
+        ctx.toIdle("die_outline");
+        ctx.transition(proposedDieOutline(ctx, geometry));
       }),
     nudge: (dx, dy) => editing(() => ctx.commit(moveChanges(shapes(), selection(), dx, dy, stamp.now()))),
     undo: () =>

@@ -50,6 +50,11 @@ export const SHORTCUTS: readonly { readonly keys: readonly string[]; readonly de
   { keys: ["Ctrl+Z", "Cmd+Z"], description: "Undo" },
   { keys: ["Ctrl+Shift+Z", "Cmd+Shift+Z", "Ctrl+Y", "Cmd+Y"], description: "Redo" },
   { keys: ["Ctrl+D", "Cmd+D"], description: "Duplicate the selection" },
+  {
+    keys: ["L"],
+    description:
+      "Look for more like the selected pad or block on the shown micrograph: drag the score slider, click a candidate to drop or keep it, Add N creates them in one step (Escape cancels)",
+  },
   { keys: ["Arrow keys"], description: "Nudge the selection by 1 µm (10 µm with Shift); ↑ is +y" },
   { keys: ["Alt+click"], description: "Add a vertex on an edge, or remove the vertex clicked" },
   {

@@ -106,6 +106,10 @@ export interface Editor {
   setTool(id: ToolId): void;
   deleteSelection(): void;
   duplicateSelection(): void;
+  /** Creates the shapes in one history entry (one undo step) and selects them. */
+  addShapes(drafts: readonly DraftShape[]): void;
+  /** Shows a die outline proposed from the image, waiting for `confirm` as a drawn one does. */
+  proposeDieOutline(geometry: PolygonGeometry): void;
   nudge(dx: number, dy: number): void;
   undo(): void;
   redo(): void;

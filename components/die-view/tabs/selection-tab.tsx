@@ -2,15 +2,19 @@
 
 import { Inspector } from "@/components/annotate/inspector";
 import { Legend } from "@/components/annotate/legend";
+import { FindSimilarAction } from "@/components/annotate/find-similar/find-similar-action";
 import { useDieWorkspace } from "../die-workspace-context";
 
 /** The Selection tab: the selected shapes' fields, what is shown (kinds and review states, with counts), and the labels switch. */
 export function SelectionTab() {
-  const { editor, state, selected, markupEditable, dieSize, umPerPx, markup } = useDieWorkspace();
+  const { editor, state, selected, markupEditable, dieSize, umPerPx, markup, similar } = useDieWorkspace();
   return (
     <div className="flex flex-col gap-5">
       {editor && state ? (
-        <Inspector editor={editor} selected={selected} canEdit={markupEditable} die={dieSize} umPerPx={umPerPx} />
+        <>
+          <Inspector editor={editor} selected={selected} canEdit={markupEditable} die={dieSize} umPerPx={umPerPx} />
+          <FindSimilarAction similar={similar} />
+        </>
       ) : (
         <p className="text-sm text-ink-400">Loading markup…</p>
       )}

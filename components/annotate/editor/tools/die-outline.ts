@@ -1,5 +1,6 @@
 import type { EditorContext, ToolState } from "../tool-state";
-import { rectangleToolIdle, type RectangleToolSpec } from "./shared/drawing-rectangle";
+import type { PolygonGeometry } from "@/lib/geometry/types";
+import { awaitingConfirmation, rectangleToolIdle, type RectangleToolSpec } from "./shared/drawing-rectangle";
 
 const DIE_OUTLINE: RectangleToolSpec = {
   tool: "die_outline",
@@ -16,4 +17,9 @@ const DIE_OUTLINE: RectangleToolSpec = {
  */
 export function dieOutlineIdle(ctx: EditorContext): ToolState {
   return rectangleToolIdle(ctx, DIE_OUTLINE);
+}
+
+/** A die outline proposed from the image (detected edge), waiting for confirmation like a drawn one. */
+export function proposedDieOutline(ctx: EditorContext, geometry: PolygonGeometry): ToolState {
+  return awaitingConfirmation(ctx, DIE_OUTLINE, geometry);
 }

@@ -60,10 +60,10 @@ function drawingRectangle(ctx: EditorContext, spec: RectangleToolSpec, down: Poi
 }
 
 /**
- * A drawn rectangle shown as it will be created, waiting for `confirm` (the host asks the user
+ * A drawn (or proposed) rectangle shown as it will be created, waiting for `confirm` (the host asks the user
  * and says what will move); Escape or a tool switch drops it and nothing is recorded.
  */
-function awaitingConfirmation(ctx: EditorContext, spec: RectangleToolSpec, geometry: PolygonGeometry): ToolState {
+export function awaitingConfirmation(ctx: EditorContext, spec: RectangleToolSpec, geometry: PolygonGeometry): ToolState {
   const draft = spec.draft(ctx, geometry);
   ctx.setPreview({ type: "shape", shape: draft });
   return {

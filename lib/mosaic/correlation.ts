@@ -125,11 +125,16 @@ export function overlapNcc(a: GreyPatch, b: GreyPatch, tx: number, ty: number, r
   return { ncc, pixels: w * h };
 }
 
+/** Below this rms of high-passed pixels (grey levels) an overlap counts as blank. */
+const EDGE_FLOOR = 0.5;
+
 /**
  * NCC of the two overlaps after a high-pass filter (each pixel minus the mean of its right and
  * lower neighbours): shading, vignetting and brightness are smooth and drop out, so a blank
  * overlap scores about 0 however its illumination varies, while real structure scores high.
- * Used to decide whether a measured translation can be trusted.
+ * Used to decide whether a measured translation can be trusted. An overlap whose high-passed
+ * pixels vary by less than EDGE_FLOOR (rms, grey levels) on either side scores 0: what is left
+ * there is the slope of a smooth shading, the same at every shift, not structure.
  */
 export function overlapEdgeNcc(a: GreyPatch, b: GreyPatch, tx: number, ty: number): Overlap {
   const vx0 = Math.max(b.x0, a.x0 - tx);
@@ -161,5 +166,6 @@ export function overlapEdgeNcc(a: GreyPatch, b: GreyPatch, tx: number, ty: numbe
   const va = saa - (sa * sa) / n;
   const vb = sbb - (sb * sb) / n;
   const cov = sab - (sa * sb) / n;
-  return { ncc: va > 1e-9 && vb > 1e-9 ? cov / Math.sqrt(va * vb) : 0, pixels: n };
+  const floor = n * EDGE_FLOOR * EDGE_FLOOR;
+  return { ncc: va > floor && vb > floor ? cov / Math.sqrt(va * vb) : 0, pixels: n };
 }

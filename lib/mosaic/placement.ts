@@ -14,7 +14,7 @@ export type MeasuredPair = {
 };
 
 /** Below this overlap NCC a measured translation is not trusted. */
-export const MIN_TRUSTED_PEAK = 0.3;
+const MIN_TRUSTED_PEAK = 0.3;
 
 /** Weight of a stage-model translation in the placement: a soft hint beside real measurements. */
 const STAGE_MODEL_WEIGHT = 1e-3;

@@ -42,7 +42,7 @@ function checkBox(b: PxBox, w: number, h: number, what: string): void {
 }
 
 /** The power-of-two reduction of the coarse pass for a template of this size. */
-export function coarseFactor(w: number, h: number): number {
+function coarseFactor(w: number, h: number): number {
   let f = 1;
   while (f < MAX_COARSE_FACTOR && Math.min(w, h) / (f * 2) >= MIN_COARSE_SIDE) f *= 2;
   return f;

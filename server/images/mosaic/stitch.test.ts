@@ -6,6 +6,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { seededRandom } from "@/lib/alignment/test-support";
 import type { MosaicLayout } from "@/lib/mosaic/types";
 import { stitchMosaic } from "./stitch";
+import { cutMosaic } from "@/tests/support/mosaic-frames";
 import { cutFrames, dieLikeScene, sceneSizeFor, type GridSpec, type Rect, type Scene } from "./test-support";
 
 // Ground truth made here: frames cut from a synthetic die-like scene at known positions
@@ -186,6 +187,37 @@ describe("stitchMosaic against a ground truth it did not see", () => {
     expect(layout.pairs.filter((p) => p.used === "stage_model")).toHaveLength(1);
     const worst = Math.max(...positionErrors(layout, truth));
     console.info(`blank overlap: pair peak ${pair.peak}, worst frame error ${worst.toFixed(3)} px`);
+    expect(worst).toBeLessThanOrEqual(2);
+  });
+
+  it("flags a noise-free blank overlap as weak with the flat field on (shading slope is not structure)", async () => {
+    // The browser test's case: JPEG frames of a flat grey area (no sensor noise), where the
+    // shading gain leaves only a smooth slope in the overlap that once matched at any shift.
+    const blank = { x: 290, y: 0, width: 130, height: 330 };
+    const frames = await cutMosaic({ rows: 3, cols: 3, frameWidth: 400, frameHeight: 300, overlap: 0.25, jitter: 6, order: "serpentine", seed: 11, blank });
+    const folder = path.join(dir, "blank-jpeg");
+    fs.mkdirSync(folder);
+    const framePaths = frames.map((f) => {
+      const p = path.join(folder, f.name);
+      fs.writeFileSync(p, f.bytes);
+      return p;
+    });
+    const layout = await stitchMosaic({
+      framePaths,
+      rows: 3,
+      cols: 3,
+      order: "serpentine",
+      overlapPercent: 25,
+      flatField: true,
+      outPath: path.join(folder, "mosaic.tif"),
+      workDir: folder,
+      onProgress: () => {},
+    });
+    expect(layout.pairs.filter((p) => p.used === "stage_model").map((p) => `${p.a}-${p.b}`)).toEqual(["0-1"]);
+    const f0 = layout.frames.find((f) => f.index === 0)!;
+    const worst = Math.max(
+      ...layout.frames.map((f) => Math.hypot(f.x - f0.x - (frames[f.index].x - frames[0].x), f.y - f0.y - (frames[f.index].y - frames[0].y))),
+    );
     expect(worst).toBeLessThanOrEqual(2);
   });
 });

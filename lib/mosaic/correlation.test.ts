@@ -4,10 +4,10 @@ import type { GreyPatch } from "./patch";
 
 // Ground truth built here: a flat grey overlap under a smooth shading ramp (what flat-field
 // correction leaves of a featureless area) has no structure, so no shift can match it.
-function patch(width: number, height: number, value: (x: number, y: number) => number, x0 = 0): GreyPatch {
+function patch(width: number, height: number, value: (x: number, y: number) => number): GreyPatch {
   const data = new Float32Array(width * height);
-  for (let y = 0; y < height; y++) for (let x = 0; x < width; x++) data[y * width + x] = value(x + x0, y);
-  return { data, x0, y0: 0, width, height };
+  for (let y = 0; y < height; y++) for (let x = 0; x < width; x++) data[y * width + x] = value(x, y);
+  return { data, x0: 0, y0: 0, width, height };
 }
 
 describe("overlapEdgeNcc", () => {

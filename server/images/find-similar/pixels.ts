@@ -30,7 +30,7 @@ async function toBuffer(body: NodeJS.ReadableStream): Promise<Buffer> {
 
 type DecodedTile = { data: Uint8Array; width: number; height: number };
 
-/** Reads regions from a tile pack's levels (exported for tests that build a pack themselves). */
+/** Reads regions from a tile pack's levels. */
 function tilePackPixels(store: ObjectStore, pack: OpenPack): PixelSource {
   const p: PyramidDescription = pack.index.pyramid;
   const cache = new Map<string, DecodedTile>();
